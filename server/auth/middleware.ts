@@ -1,0 +1,105 @@
+/**
+ * The authorization layer. `loadSession` runs on every request; farm routes are declared with
+ * `farmRoute`, which records the route's permission (the API tests generate their role matrix
+ * from that record) and checks the caller's membership and role before the handler runs.
+ */
+import { Router, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
+import type { Database } from '../db/client.js';
+import type { FarmRole } from '../db/schema/index.js';
+import { findMembership, findUserById, type User } from '../db/repositories/users.js';
+import { forbidden, notFound, unauthorized } from '../errors.js';
+import { roleAllows, type Permission } from './permissions.js';
+import { clearSession, issueSession, readSession, SESSION_LIFETIME_SECONDS } from './session.js';
+
+declare module 'express-serve-static-core' {
+  interface Request {
+    user?: User;
+    farmAccess?: { farmId: number; role: FarmRole };
+  }
+}
+
+export function loadSession(db: Database, secret: string): RequestHandler {
+  return async (req, res, next) => {
+    const claims = readSession(req, secret);
+    if (!claims) return next();
+    const user = await findUserById(db, Number(claims.sub));
+    if (!user || user.disabled || user.tokenVersion !== claims.ver) {
+      clearSession(res);
+      return next();
+    }
+    req.user = user;
+    const now = Math.floor(Date.now() / 1000);
+    if (claims.exp - now < SESSION_LIFETIME_SECONDS / 2) issueSession(res, req, secret, user.id, user.tokenVersion);
+    next();
+  };
+}
+
+export function requireUser(req: Request): User {
+  if (!req.user) throw unauthorized();
+  return req.user;
+}
+
+export const requireSignedIn: RequestHandler = (req, _res, next) => {
+  requireUser(req);
+  next();
+};
+
+export const requireAdmin: RequestHandler = (req, _res, next) => {
+  if (!requireUser(req).isAdmin) throw forbidden('Administrators only');
+  next();
+};
+
+/** Checks that the caller is a member of :farmId whose role allows `permission`. */
+export function authorizeFarm(db: Database, permission: Permission): RequestHandler {
+  return async (req, _res, next) => {
+    const user = requireUser(req);
+    const farmId = Number(req.params.farmId);
+    // A farm the caller does not belong to is "not found", so ids reveal nothing.
+    if (!Number.isInteger(farmId) || farmId <= 0) throw notFound('Farm not found');
+    const role = await findMembership(db, farmId, user.id);
+    if (!role) throw notFound('Farm not found');
+    if (!roleAllows(role, permission)) throw forbidden(`Your role (${role}) cannot do this on this farm`);
+    req.farmAccess = { farmId, role };
+    next();
+  };
+}
+
+export function farmAccess(req: Request): { farmId: number; role: FarmRole } {
+  if (!req.farmAccess) throw new Error('farm route without authorizeFarm');
+  return req.farmAccess;
+}
+
+type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
+
+export const FARM_MOUNT = '/api/farms/:farmId';
+
+export interface FarmRouteRecord {
+  method: Method;
+  /** Full path, e.g. `/api/farms/:farmId/scenarios`. */
+  path: string;
+  permission: Permission;
+}
+
+/** Every farm route declared in this process, for the permission-matrix tests. */
+export const farmRouteRegistry: FarmRouteRecord[] = [];
+
+type Handler = (req: Request, res: Response, next: NextFunction) => unknown;
+
+/**
+ * A router for routes under /api/farms/:farmId. `route` declares one, guarded by a permission
+ * and recorded in the registry; extra handlers (e.g. an upload parser) run after the check.
+ */
+export function farmRouter(db: Database): {
+  router: Router;
+  route: (method: Method, path: string, permission: Permission, ...handlers: Handler[]) => void;
+} {
+  const router = Router({ mergeParams: true });
+  const route = (method: Method, path: string, permission: Permission, ...handlers: Handler[]) => {
+    const fullPath = `${FARM_MOUNT}${path}`.replace(/\/$/, "");
+    if (!farmRouteRegistry.some((r) => r.method === method && r.path === fullPath)) {
+      farmRouteRegistry.push({ method, path: fullPath, permission });
+    }
+    router[method](path, authorizeFarm(db, permission), ...(handlers as RequestHandler[]));
+  };
+  return { router, route };
+}

@@ -1,0 +1,31 @@
+/**
+ * Who may do what on a farm. Role checks are this table, nothing else: every farm route names
+ * one permission, and the authorization middleware looks the caller's role up here.
+ * Lenders are read-only and, beyond that, see only scenarios shared with them (checked by the
+ * scenario access rule, not here).
+ */
+import type { FarmRole } from '../db/schema/index.js';
+
+export const permissionTable = {
+  'farm:read': ['owner', 'partner', 'consultant', 'lender'],
+  'farm:update': ['owner', 'partner', 'consultant'],
+  'farm:delete': ['owner'],
+  'members:read': ['owner', 'partner', 'consultant'],
+  'members:manage': ['owner'],
+  'scenario:read': ['owner', 'partner', 'consultant', 'lender'],
+  'scenario:write': ['owner', 'partner', 'consultant'],
+  'scenario:share': ['owner', 'consultant'],
+  'scenario:decide': ['owner'],
+  'preference:write': ['owner', 'partner', 'consultant'],
+  'review:write': ['lender'],
+  'review:reply': ['owner', 'partner', 'consultant'],
+  'audit:read': ['owner'],
+  'document:read': ['owner', 'partner', 'consultant', 'lender'],
+  'document:write': ['owner', 'partner', 'consultant'],
+} as const satisfies Record<string, readonly FarmRole[]>;
+
+export type Permission = keyof typeof permissionTable;
+
+export function roleAllows(role: FarmRole, permission: Permission): boolean {
+  return (permissionTable[permission] as readonly FarmRole[]).includes(role);
+}

@@ -1,0 +1,95 @@
+/** kg P2O5 per kg P (Virginia Tech SPES-201NP). */
+export const P_TO_P2O5 = 2.291;
+/** kg P per kg P2O5 (Virginia Tech SPES-201NP). */
+export const P2O5_TO_P = 0.4365;
+/** kg K2O per kg K (Virginia Tech SPES-201NP). */
+export const K_TO_K2O = 1.2051;
+/** kg K per kg K2O (Virginia Tech SPES-201NP). */
+export const K2O_TO_K = 0.8301;
+
+export interface Excretion {
+  massKgPerCowDay: number;
+  nitrogenKgPerCowDay: number;
+  phosphorusKgPerCowDay: number;
+  potassiumKgPerCowDay: number;
+}
+
+/** Collected manure and nutrients per year, as elements N, P, K (kg/yr). */
+export interface CollectedManure {
+  massKg: number;
+  nitrogenKg: number;
+  phosphorusKg: number;
+  potassiumKg: number;
+}
+
+/**
+ * Manure and nutrients collected per year (kg/yr): excretion per cow-day × N × housed days ×
+ * collection efficiency. Manure dropped on pasture on grazing days is not collected.
+ */
+export function collectedManurePerYear(excretion: Excretion, cows: number, housedDays: number, collectionEfficiency: number): CollectedManure {
+  const cowDays = cows * housedDays * collectionEfficiency;
+  return {
+    massKg: excretion.massKgPerCowDay * cowDays,
+    nitrogenKg: excretion.nitrogenKgPerCowDay * cowDays,
+    phosphorusKg: excretion.phosphorusKgPerCowDay * cowDays,
+    potassiumKg: excretion.potassiumKgPerCowDay * cowDays,
+  };
+}
+
+export interface NutrientAvailability {
+  nitrogen: number;
+  phosphate: number;
+  potash: number;
+}
+
+export interface FertiliserPrices {
+  nitrogenPerKg: number;
+  phosphatePerKg: number;
+  potashPerKg: number;
+}
+
+/**
+ * Fertiliser replacement value (currency/yr): N·avail_N·price_N + P·2.2910·avail_P·price_P2O5 +
+ * K·1.2051·avail_K·price_K2O, nutrients as elements in kg, prices per kg of N, P2O5, K2O.
+ */
+export function fertiliserValue(nutrients: CollectedManure, availability: NutrientAvailability, prices: FertiliserPrices): number {
+  return (
+    nutrients.nitrogenKg * availability.nitrogen * prices.nitrogenPerKg +
+    nutrients.phosphorusKg * P_TO_P2O5 * availability.phosphate * prices.phosphatePerKg +
+    nutrients.potassiumKg * K_TO_K2O * availability.potash * prices.potashPerKg
+  );
+}
+
+export interface StoredVolumeInputs {
+  /** Collected manure (kg/yr). */
+  manureKgPerYear: number;
+  /** Density of the manure (kg/m³). */
+  manureDensityKgPerM3: number;
+  /** Parlour wash water (m³ per cow per day) for the cows' housed days. */
+  washWaterM3PerCowDay: number;
+  cows: number;
+  housedDays: number;
+  /** Bedding volume reaching the storage (m³/yr). */
+  beddingM3PerYear: number;
+  /** Open storage surface (m²) and net rain on it (m/yr). */
+  openStorageAreaM2: number;
+  netRainMPerYear: number;
+}
+
+/**
+ * Volume passing through the manure storage (m³/yr): manure ÷ density + wash water × N × housed
+ * days + bedding + net rain × open area. This is the volume agitated, hauled and spread.
+ */
+export function storedVolumeM3PerYear(inputs: StoredVolumeInputs): number {
+  return (
+    inputs.manureKgPerYear / inputs.manureDensityKgPerM3 +
+    inputs.washWaterM3PerCowDay * inputs.cows * inputs.housedDays +
+    inputs.beddingM3PerYear +
+    inputs.netRainMPerYear * inputs.openStorageAreaM2
+  );
+}
+
+/** Manure handling cost in today's money (currency/yr): m³ × (handling cost + sand extra handling) per m³. */
+export function manureHandlingCostPerYear(volumeM3: number, handlingCostPerM3: number, sandExtraCostPerM3: number): number {
+  return volumeM3 * (handlingCostPerM3 + sandExtraCostPerM3);
+}

@@ -1,0 +1,104 @@
+import type { CapitalLine, Option, RiskInputKey, Scenario } from '../../schema';
+
+/** A multiplier per key input; 1 (or absent) leaves the input as entered. */
+export type Multipliers = Partial<Record<RiskInputKey, number>>;
+
+/** Milk price per kg × m (herd baseline price; every option sells at it). */
+export function scaleMilkPrice(scenario: Scenario, m: number): Scenario {
+  return { ...scenario, herd: { ...scenario.herd, milkPricePerKg: scenario.herd.milkPricePerKg * m } };
+}
+
+/** Lying-time milk response g (kg/cow/day per hour) × m. */
+export function scaleYieldResponse(scenario: Scenario, m: number): Scenario {
+  return { ...scenario, herd: { ...scenario.herd, lyingResponseKgPerHour: scenario.herd.lyingResponseKgPerHour * m } };
+}
+
+/** Wage per hour × m. */
+export function scaleWage(scenario: Scenario, m: number): Scenario {
+  return { ...scenario, herd: { ...scenario.herd, wagePerHour: scenario.herd.wagePerHour * m } };
+}
+
+/** Fertiliser prices per kg of N, P₂O₅ and K₂O, all × m (they move together with the fertiliser market). */
+export function scaleFertiliserPrices(scenario: Scenario, m: number): Scenario {
+  const prices = scenario.herd.fertiliserPrices;
+  return {
+    ...scenario,
+    herd: {
+      ...scenario.herd,
+      fertiliserPrices: {
+        nitrogenPerKg: prices.nitrogenPerKg * m,
+        phosphatePerKg: prices.phosphatePerKg * m,
+        potashPerKg: prices.potashPerKg * m,
+      },
+    },
+  };
+}
+
+/** Loan interest rate (fraction per year) × m; the discount rate is left alone. */
+export function scaleInterestRate(scenario: Scenario, m: number): Scenario {
+  return { ...scenario, finance: { ...scenario.finance, interestRate: scenario.finance.interestRate * m } };
+}
+
+const mapOptions = (scenario: Scenario, change: (option: Option) => Option): Scenario => ({
+  ...scenario,
+  options: scenario.options.map(change),
+});
+
+/**
+ * Unit cost of every capital item in every option × m. A contingency line is a share of the
+ * other lines, so it follows them without being touched.
+ */
+export function scaleCapitalCost(scenario: Scenario, m: number): Scenario {
+  const scaleLine = (line: CapitalLine): CapitalLine => (line.kind === 'item' ? { ...line, unitCost: line.unitCost * m } : line);
+  return mapOptions(scenario, (option) => ({ ...option, capitalLines: option.capitalLines.map(scaleLine) }));
+}
+
+/** Bedding price per tonne in every option × m. */
+export function scaleBeddingPrice(scenario: Scenario, m: number): Scenario {
+  return mapOptions(scenario, (option) => ({
+    ...option,
+    bedding: { ...option.bedding, pricePerTonne: option.bedding.pricePerTonne * m },
+  }));
+}
+
+/**
+ * Herd size × m: the baseline cows and, so every option keeps its herd relative to the
+ * baseline, each option's cows per year and added cows. Cow counts are left fractional (they
+ * are lactating-cow equivalents) so NPV moves smoothly with m.
+ */
+export function scaleHerdSize(scenario: Scenario, m: number): Scenario {
+  const scaled = mapOptions(scenario, (option) => ({
+    ...option,
+    herdChange: {
+      ...option.herdChange,
+      cowsByYear: option.herdChange.cowsByYear?.map((cows) => cows * m) ?? null,
+      addedCows: option.herdChange.addedCows * m,
+    },
+  }));
+  return { ...scaled, herd: { ...scaled.herd, cows: scenario.herd.cows * m } };
+}
+
+const SCALERS: Readonly<Record<RiskInputKey, (scenario: Scenario, m: number) => Scenario>> = {
+  milkPrice: scaleMilkPrice,
+  yieldResponse: scaleYieldResponse,
+  capitalCost: scaleCapitalCost,
+  interestRate: scaleInterestRate,
+  wage: scaleWage,
+  beddingPrice: scaleBeddingPrice,
+  fertiliserPrice: scaleFertiliserPrices,
+  herdSize: scaleHerdSize,
+};
+
+/** Applies one multiplier to one key input; returns a new scenario, the input untouched. */
+export function perturb(scenario: Scenario, key: RiskInputKey, multiplier: number): Scenario {
+  return multiplier === 1 ? scenario : SCALERS[key](scenario, multiplier);
+}
+
+/** Applies a multiplier per key input (absent = 1); returns a new scenario, the input untouched. */
+export function applyMultipliers(scenario: Scenario, multipliers: Multipliers): Scenario {
+  let result = scenario;
+  for (const [key, multiplier] of Object.entries(multipliers) as [RiskInputKey, number | undefined][]) {
+    if (multiplier !== undefined) result = perturb(result, key, multiplier);
+  }
+  return result;
+}

@@ -1,0 +1,40 @@
+import { z } from 'zod';
+import { choice, flag, money, quantity, rate } from './fields';
+
+export const financeSchema = z
+  .object({
+    equity: money('Equity', 'Own cash put into the capital (currency)').default(0),
+    grants: money('Grants', 'Capital grants received at year 0 (currency)').default(0),
+    loanAmount: money('Loan amount', 'Loan principal; null = capital − equity − grants, floored at 0 (currency)')
+      .nullable()
+      .default(null),
+    interestRate: rate('Interest rate', 0, 0.3, 'Nominal loan interest rate (fraction per year, 0.06 = 6 %)'),
+    termYears: quantity('Loan term', 'years', 1, 40, 'Loan term (years)', { int: true }),
+    paymentsPerYear: z
+      .union([z.literal(1), z.literal(2), z.literal(4), z.literal(12)], {
+        error: 'Payments per year must be 1, 2, 4 or 12',
+      })
+      .default(12)
+      .describe('Loan payments per year (1, 2, 4 or 12)'),
+    interestOnlyMonths: quantity('Interest-only period', 'months', 0, 479, 'Months at the start of the loan with interest only (months)', { int: true }).default(0),
+    discountRate: rate('Discount rate', 0, 0.3, 'Nominal discount rate for NPV (fraction per year)'),
+    taxRate: rate('Tax rate', 0, 0.6, 'Income tax rate; 0 = pre-tax analysis (fraction)').default(0),
+    depreciation: choice('Depreciation method', ['straight-line', 'declining-balance'], 'Tax depreciation of capital lines over each life').default('straight-line'),
+    decliningBalanceFactor: quantity('Declining-balance factor', '', 1, 3, 'Declining-balance factor (2 = 200 % DB), switching to straight line when larger').default(2),
+    lossesOffsetOtherIncome: flag('Losses offset other income', 'True: a taxable loss saves tax that year against other farm income; false: losses carry forward').default(true),
+    coverageThreshold: quantity('Coverage threshold', '', 0.5, 5, "Lender's minimum debt-service coverage ratio (ratio)").default(1.25),
+  })
+  .superRefine((finance, ctx) => {
+    // The schedule pays interest only for whole payment periods, rounded up.
+    const interestOnlyPeriods = Math.ceil((finance.interestOnlyMonths * finance.paymentsPerYear) / 12);
+    if (interestOnlyPeriods >= finance.termYears * finance.paymentsPerYear) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['interestOnlyMonths'],
+        message: `Interest-only period must leave at least one repayment in the ${finance.termYears}-year loan term`,
+      });
+    }
+  })
+  .describe('Finance, discounting and tax');
+
+export type Finance = z.infer<typeof financeSchema>;

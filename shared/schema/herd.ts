@@ -1,0 +1,77 @@
+import { z } from 'zod';
+import { choice, money, quantity, rate } from './fields';
+
+/** Yearly growth of one price or cost line, a fraction per year (nominal). */
+const growth = (label: string, fallback: number) =>
+  rate(label, -0.2, 0.3, `${label}: nominal growth per year (fraction, 0.02 = 2 %/yr)`).default(
+    fallback,
+  );
+
+export const growthRatesSchema = z
+  .object({
+    milkPrice: growth('Milk price growth', 0.01),
+    feed: growth('Feed cost growth', 0.02),
+    wages: growth('Wage growth', 0.03),
+    bedding: growth('Bedding price growth', 0.02),
+    fertiliser: growth('Fertiliser price growth', 0.02),
+    general: growth('General inflation', 0.02),
+  })
+  .describe('Nominal yearly growth of each price group (fractions per year)');
+
+/** The price groups a running-cost line can follow. */
+export const growthKeys = ['milkPrice', 'feed', 'wages', 'bedding', 'fertiliser', 'general', 'none'] as const;
+export type GrowthKey = (typeof growthKeys)[number];
+
+export const manureExcretionSchema = z
+  .object({
+    massKgPerCowDay: quantity('Manure excreted', 'kg/cow/day', 0, 200, 'Manure as excreted (kg per cow per day)').default(68),
+    nitrogenKgPerCowDay: quantity('Nitrogen excreted', 'kg/cow/day', 0, 2, 'Nitrogen (N) excreted (kg per cow per day)').default(0.45),
+    phosphorusKgPerCowDay: quantity('Phosphorus excreted', 'kg/cow/day', 0, 1, 'Phosphorus as element P excreted (kg per cow per day)').default(0.078),
+    potassiumKgPerCowDay: quantity('Potassium excreted', 'kg/cow/day', 0, 1, 'Potassium as element K excreted (kg per cow per day)').default(0.1),
+  })
+  .describe('Excretion per lactating cow per day (ASABE D384.2 Table 1, from memory)');
+
+export const nutrientAvailabilitySchema = z
+  .object({
+    nitrogen: rate('Nitrogen availability', 0, 1, 'Share of collected N available to the crop in the year applied (fraction)').default(0.35),
+    phosphate: rate('Phosphate availability', 0, 1, 'Share of collected P2O5 valued as fertiliser (fraction)').default(1),
+    potash: rate('Potash availability', 0, 1, 'Share of collected K2O valued as fertiliser (fraction)').default(1),
+  })
+  .describe('Share of each collected nutrient that replaces bought fertiliser (fractions)');
+
+export const herdSchema = z
+  .object({
+    cows: quantity('Herd size', 'cows', 1, 20000, 'Lactating-cow equivalents in the herd today, dry cows included (head)', { int: true }),
+    breedSize: choice('Breed size class', ['small', 'large'], "Body size class for stall guidance: 'small' 590-680 kg, 'large' 680-770 kg"),
+    yieldKgPerCowDay: quantity('Milk yield', 'kg/cow/day', 0, 80, 'Baseline milk yield averaged over the year, dry periods included (kg per cow per day)'),
+    milkPricePerKg: money('Milk price', 'Milk price today (currency per kg)', 0, 100000),
+    growth: growthRatesSchema.prefault({}),
+    feedCostPerCowDay: z
+      .object({
+        housed: money('Housed feed cost', 'Feed cost per cow per housed day today (currency per cow-day)', 0, 100000),
+        grazing: money('Grazing feed cost', 'Feed cost per cow per grazing day today (currency per cow-day)', 0, 100000),
+      })
+      .describe('Baseline feed cost per cow-day; new options copy it'),
+    marginalFeedCostPerKgMilk: money('Marginal feed cost', 'Extra feed cost per extra kg of milk today (currency per kg milk)', 0, 100000),
+    wagePerHour: money('Wage', 'Labour cost per hour today (currency per hour)', 0, 100000),
+    fertiliserPrices: z
+      .object({
+        nitrogenPerKg: money('Nitrogen price', 'Fertiliser N price today (currency per kg N)', 0, 100000),
+        phosphatePerKg: money('Phosphate price', 'Fertiliser P2O5 price today (currency per kg P2O5)', 0, 100000),
+        potashPerKg: money('Potash price', 'Fertiliser K2O price today (currency per kg K2O)', 0, 100000),
+      })
+      .describe('Bought fertiliser prices per kg of nutrient'),
+    lyingResponseKgPerHour: quantity('Lying-time milk response', 'kg/cow/day per hour', 0, 5, 'Extra milk per extra hour of lying (kg per cow per day per h); default 1.0, common practice').default(1),
+    lyingResponseYear1Fraction: rate('Year-1 ramp fraction', 0, 1, 'Share of the lying-time response reached in year 1 (fraction); full from year 2').default(0.5),
+    replacementHeiferCost: money('Replacement heifer cost', 'Cost of a replacement heifer or bought cow today (currency per head)', 0, 1e6),
+    cullCowValue: money('Cull cow value', 'Sale value of a cull cow today (currency per head)', 0, 1e6),
+    existingCashForDebtServicePerYear: money('Existing farm cash for debt service', 'Cash the farm has for debt service today, before the new loan (currency per year)', -1e10, 1e10).default(0),
+    existingDebtPaymentsPerYear: money('Existing debt payments', 'Principal and interest on existing term debt (currency per year)').default(0),
+    manureExcretion: manureExcretionSchema.prefault({}),
+    nutrientAvailability: nutrientAvailabilitySchema.prefault({}),
+    manureDensityKgPerM3: quantity('Manure density', 'kg/m3', 500, 2000, 'Density of liquid dairy manure (kg per m3); about 1000, from memory').default(1000),
+  })
+  .describe('Farm and herd baseline and markets');
+
+export type Herd = z.infer<typeof herdSchema>;
+export type GrowthRates = z.infer<typeof growthRatesSchema>;

@@ -1,0 +1,90 @@
+import { z } from 'zod';
+import { quantity } from './fields';
+
+/** The inputs a sensitivity range or a Monte Carlo distribution can move. */
+export const riskInputKeys = [
+  'milkPrice',
+  'yieldResponse',
+  'capitalCost',
+  'interestRate',
+  'wage',
+  'beddingPrice',
+  'fertiliserPrice',
+  'herdSize',
+] as const;
+export type RiskInputKey = (typeof riskInputKeys)[number];
+
+const riskKey = z.enum(riskInputKeys, { error: `Risk input must be one of: ${riskInputKeys.join(', ')}` });
+
+const rangeSchema = (label: string) =>
+  z
+    .object({
+      low: quantity(`${label} low`, '', -1, 0, `${label}: low value as a change from the base (fraction, −0.2 = 20 % lower)`).default(-0.2),
+      high: quantity(`${label} high`, '', 0, 5, `${label}: high value as a change from the base (fraction, 0.2 = 20 % higher)`).default(0.2),
+    })
+    .describe(`${label} sensitivity range`);
+
+const sensitivitySchema = z
+  .object({
+    milkPrice: rangeSchema('Milk price').prefault({}),
+    yieldResponse: rangeSchema('Lying-time milk response').prefault({}),
+    capitalCost: rangeSchema('Capital cost').prefault({}),
+    interestRate: rangeSchema('Interest rate').prefault({}),
+    wage: rangeSchema('Wage').prefault({}),
+    beddingPrice: rangeSchema('Bedding price').prefault({}),
+    fertiliserPrice: rangeSchema('Fertiliser price').prefault({}),
+    herdSize: rangeSchema('Herd size').prefault({}),
+  } satisfies Record<RiskInputKey, unknown>)
+  .describe('Low/high change per key input (fractions of the base value)');
+
+const multiplier = (label: string, description: string) => quantity(label, '', 0, 10, description);
+
+const triangularSchema = z
+  .object({
+    key: riskKey,
+    distribution: z.literal('triangular'),
+    min: multiplier('Triangular minimum', 'Lowest multiplier on the base value (1 = as entered)'),
+    mode: multiplier('Triangular mode', 'Most likely multiplier on the base value'),
+    max: multiplier('Triangular maximum', 'Highest multiplier on the base value'),
+  })
+  .refine((d) => d.min <= d.mode && d.mode <= d.max, {
+    message: 'Triangular distribution needs minimum ≤ mode ≤ maximum',
+    path: ['mode'],
+  });
+
+const normalSchema = z
+  .object({
+    key: riskKey,
+    distribution: z.literal('normal'),
+    mean: multiplier('Normal mean', 'Mean multiplier on the base value (1 = as entered)'),
+    sd: quantity('Normal standard deviation', '', 0, 5, 'Standard deviation of the multiplier'),
+    min: multiplier('Normal truncation minimum', 'Lowest multiplier kept (truncation)').optional(),
+    max: multiplier('Normal truncation maximum', 'Highest multiplier kept (truncation)').optional(),
+  })
+  .refine((d) => d.min === undefined || d.max === undefined || d.min < d.max, {
+    message: 'Normal distribution truncation needs minimum < maximum',
+    path: ['max'],
+  });
+
+export const monteCarloInputSchema = z
+  .discriminatedUnion('distribution', [triangularSchema, normalSchema], {
+    error: "Distribution must be 'triangular' or 'normal'",
+  })
+  .describe('An uncertain input as a multiplier on its base value');
+export type MonteCarloInput = z.infer<typeof monteCarloInputSchema>;
+
+export const riskSchema = z
+  .object({
+    sensitivity: sensitivitySchema.prefault({}),
+    monteCarlo: z
+      .object({
+        draws: quantity('Monte Carlo draws', 'draws', 100, 100000, 'Number of draws', { int: true }).default(5000),
+        seed: quantity('Monte Carlo seed', '', 0, 2147483647, 'Seed of the generator (same seed → same numbers)', { int: true }).default(1),
+        inputs: z.array(monteCarloInputSchema).max(20, 'Monte Carlo inputs: at most 20').default([]),
+      })
+      .prefault({})
+      .describe('Monte Carlo settings'),
+  })
+  .describe('Sensitivity and Monte Carlo settings');
+
+export type RiskSettings = z.infer<typeof riskSchema>;

@@ -1,0 +1,64 @@
+import { z } from 'zod';
+import { choice, quantity, text } from './fields';
+import { financeSchema } from './finance';
+import { herdSchema } from './herd';
+import { optionSchema } from './option';
+import { riskSchema } from './risk';
+
+function isLocale(value: string): boolean {
+  try {
+    return Intl.getCanonicalLocales(value).length === 1;
+  } catch {
+    return false;
+  }
+}
+
+export const scenarioSchema = z
+  .object({
+    schemaVersion: z.literal(1, { error: 'Schema version must be 1' }).describe('Version of this scenario format'),
+    name: text('Scenario name', 'Name of the decision study', 120),
+    description: z.string({ error: 'Scenario description must be text' }).max(2000, 'Scenario description must be at most 2000 characters').optional().describe('Free text'),
+    horizonYears: quantity('Horizon', 'years', 1, 40, 'Operating years evaluated after year 0 (years)', { int: true }).default(20),
+    currency: z
+      .string({ error: 'Currency must be text' })
+      .regex(/^[A-Z]{3}$/, 'Currency must be a three-letter ISO 4217 code such as EUR')
+      .describe('ISO 4217 currency code of every money figure'),
+    locale: z
+      .string({ error: 'Locale must be text' })
+      .refine(isLocale, 'Locale must be a BCP 47 tag such as en-IE')
+      .describe('BCP 47 locale for number formatting'),
+    units: choice('Units', ['metric', 'us'], 'Display units only; stored values are SI').default('metric'),
+    herd: herdSchema,
+    options: z
+      .array(optionSchema)
+      .min(1, 'Options: a scenario needs at least one option')
+      .max(12, 'Options: a scenario holds at most 12 options'),
+    finance: financeSchema,
+    risk: riskSchema.prefault({}),
+  })
+  .superRefine((scenario, ctx) => {
+    const currents = scenario.options.filter((option) => option.current).length;
+    if (currents !== 1) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['options'],
+        message: `Options: exactly one option must be the current option (found ${currents})`,
+      });
+    }
+    const ids = new Set<string>();
+    scenario.options.forEach((option, index) => {
+      if (ids.has(option.id)) {
+        ctx.addIssue({ code: 'custom', path: ['options', index, 'id'], message: `Option id "${option.id}" is used twice` });
+      }
+      ids.add(option.id);
+      const years = option.herdChange.cowsByYear;
+      if (years && years.length === 0) {
+        ctx.addIssue({ code: 'custom', path: ['options', index, 'herdChange', 'cowsByYear'], message: 'Cows by year must list at least year 1, or be null' });
+      }
+    });
+  })
+  .describe('A Byrecast scenario: herd, options, finance and risk settings');
+
+export type Scenario = z.infer<typeof scenarioSchema>;
+/** What a client may send: defaults not yet filled. */
+export type ScenarioInput = z.input<typeof scenarioSchema>;

@@ -1,0 +1,21 @@
+import type { SignInInput, SignUpInput, FarmRole } from '@shared/schema/accounts';
+import { http } from './client';
+
+export interface SessionUser {
+  id: number;
+  email: string;
+  name: string;
+  isAdmin: boolean;
+}
+
+export interface Session {
+  user: SessionUser;
+  memberships: { farmId: number; role: FarmRole }[];
+}
+
+export const authApi = {
+  me: () => http.get<Session>('/auth/me'),
+  signIn: (input: SignInInput) => http.post<Session>('/auth/sign-in', input),
+  signUp: (input: SignUpInput) => http.post<Session>('/auth/sign-up', input),
+  signOut: () => http.post<void>('/auth/sign-out'),
+};

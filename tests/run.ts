@@ -1,0 +1,49 @@
+/**
+ * `npm test`: starts a throwaway MariaDB on a free loopback port with a fresh data directory,
+ * builds the client once, runs every vitest project (unit, API, browser), then stops the
+ * server and removes its data, whatever the outcome. Arguments go to vitest.
+ */
+import { spawn, spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { startLocalMariadb } from '../server/db/local-server.js';
+
+const workDir = mkdtempSync(join(tmpdir(), 'byrecast-test-'));
+let stopDatabase: (() => Promise<void>) | null = null;
+
+async function cleanUp(): Promise<void> {
+  await stopDatabase?.();
+  rmSync(workDir, { recursive: true, force: true });
+}
+
+for (const signal of ['SIGINT', 'SIGTERM'] as const) {
+  process.on(signal, () => {
+    void cleanUp().finally(() => process.exit(130));
+  });
+}
+
+let exitCode = 1;
+try {
+  const database = await startLocalMariadb({ dataDir: join(workDir, 'mariadb'), quiet: true });
+  stopDatabase = database.stop;
+  console.log(`test MariaDB on 127.0.0.1:${database.port}`);
+
+  const distDir = join(workDir, 'dist');
+  const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'error', '--outDir', distDir], { stdio: 'inherit' });
+  if (build.status !== 0) throw new Error('client build failed');
+
+  exitCode = await new Promise<number>((resolve) => {
+    const vitest = spawn('npx', ['vitest', 'run', ...process.argv.slice(2)], {
+      stdio: 'inherit',
+      env: { ...process.env, TEST_DATABASE_URL: database.serverUrl, BYRECAST_DIST: distDir },
+    });
+    vitest.on('exit', (code) => resolve(code ?? 1));
+  });
+} catch (error) {
+  console.error(error);
+  exitCode = 1;
+} finally {
+  await cleanUp();
+}
+process.exit(exitCode);
