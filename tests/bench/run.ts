@@ -1,0 +1,78 @@
+import { availableParallelism } from 'node:os';
+import { scenarioSchema, type Scenario, type ScenarioInput } from '../../shared/schema';
+import { createOption, STARTING_POINT_ORDER } from '../../shared/starting-points';
+import { evaluateScenario } from '../../shared/engine/evaluate';
+import { runMonteCarlo } from '../../shared/engine/risk/monte-carlo';
+import { bench, formatTable, type TableRow } from './harness';
+
+// Project targets: a live preview must feel instant, and a 10 000-draw risk run must finish
+// while the user watches, on one core (the browser gives the Worker one thread).
+const FULL_EVALUATION_TARGET_MS = 1;
+const MONTE_CARLO_TARGET_S = 1;
+const MONTE_CARLO_DRAWS = 10_000;
+
+/** An invented 180-cow herd with all five starting points, the first (grazing) as the current option. */
+function benchScenario(horizonYears: number): Scenario {
+  const herdInput = {
+    cows: 180,
+    breedSize: 'large',
+    yieldKgPerCowDay: 29,
+    milkPricePerKg: 0.43,
+    feedCostPerCowDay: { housed: 5.5, grazing: 2.7 },
+    marginalFeedCostPerKgMilk: 0.18,
+    wagePerHour: 17.5,
+    fertiliserPrices: { nitrogenPerKg: 1.15, phosphatePerKg: 0.95, potashPerKg: 0.62 },
+    replacementHeiferCost: 2200,
+    cullCowValue: 900,
+    existingCashForDebtServicePerYear: 140000,
+    existingDebtPaymentsPerYear: 40000,
+  } as const satisfies ScenarioInput['herd'];
+  const herd = scenarioSchema.shape.herd.parse(herdInput);
+  return scenarioSchema.parse({
+    schemaVersion: 1,
+    name: `Benchmark, ${horizonYears} years`,
+    horizonYears,
+    currency: 'EUR',
+    locale: 'en-IE',
+    herd: herdInput,
+    options: STARTING_POINT_ORDER.map((point, i) => createOption(point, herd, { id: point, current: i === 0 })),
+    finance: { equity: 150000, interestRate: 0.055, termYears: Math.min(20, horizonYears), discountRate: 0.06, taxRate: 0.2 },
+    risk: {
+      monteCarlo: {
+        draws: MONTE_CARLO_DRAWS,
+        seed: 12345,
+        inputs: [
+          { key: 'milkPrice', distribution: 'triangular', min: 0.8, mode: 1, max: 1.15 },
+          { key: 'capitalCost', distribution: 'normal', mean: 1.05, sd: 0.1, min: 0.85, max: 1.4 },
+          { key: 'yieldResponse', distribution: 'triangular', min: 0.3, mode: 1, max: 1.6 },
+          { key: 'wage', distribution: 'normal', mean: 1, sd: 0.08 },
+        ],
+      },
+    },
+  } satisfies ScenarioInput);
+}
+
+// Pass/fail is judged on CPU time: the targets are for one core, and this machine may be shared.
+const rows: TableRow[] = [];
+for (const horizon of [20, 40]) {
+  const scenario = benchScenario(horizon);
+  const full = bench(`full evaluation, 5 options, ${horizon} y`, () => evaluateScenario(scenario), 200, 20);
+  rows.push({
+    name: full.name,
+    value: `${full.medianMs.toFixed(3)} ms`,
+    cpu: `${full.medianCpuMs.toFixed(3)} ms`,
+    target: `< ${FULL_EVALUATION_TARGET_MS} ms`,
+    pass: full.medianCpuMs < FULL_EVALUATION_TARGET_MS,
+  });
+  const monteCarlo = bench(`Monte Carlo ${MONTE_CARLO_DRAWS} draws, 5 options, ${horizon} y`, () => runMonteCarlo(scenario), 3, 0);
+  rows.push({
+    name: monteCarlo.name,
+    value: `${(monteCarlo.medianMs / 1000).toFixed(3)} s`,
+    cpu: `${(monteCarlo.medianCpuMs / 1000).toFixed(3)} s`,
+    target: `< ${MONTE_CARLO_TARGET_S} s`,
+    pass: monteCarlo.medianCpuMs / 1000 < MONTE_CARLO_TARGET_S,
+  });
+}
+
+process.stdout.write(`Node ${process.version}, ${availableParallelism()} cores available, benchmarks run on one\n\n`);
+process.stdout.write(`${formatTable(rows)}\n`);

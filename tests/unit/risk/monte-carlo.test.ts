@@ -1,0 +1,112 @@
+import { describe, expect, it } from 'vitest';
+import { evaluateNpvOnly } from '../../../shared/engine/evaluate';
+import { perturb } from '../../../shared/engine/risk/perturb';
+import { createMonteCarloRun, runMonteCarlo, type MonteCarloSettings } from '../../../shared/engine/risk/monte-carlo';
+import { riskScenario } from './fixture';
+
+const scenario = riskScenario();
+const settings = (changes: Partial<MonteCarloSettings> = {}): MonteCarloSettings => ({ ...scenario.risk.monteCarlo, draws: 300, ...changes });
+
+describe('runMonteCarlo', () => {
+  it('gives identical results for the same seed', () => {
+    expect(runMonteCarlo(scenario, settings())).toEqual(runMonteCarlo(scenario, settings()));
+  });
+
+  it('gives different results for different seeds', () => {
+    const a = runMonteCarlo(scenario, settings({ seed: 1 }));
+    const b = runMonteCarlo(scenario, settings({ seed: 2 }));
+    expect(a.options[1]?.npv.mean).not.toBe(b.options[1]?.npv.mean);
+  });
+
+  it('does not depend on how the run is chunked', () => {
+    const whole = runMonteCarlo(scenario, settings(), { chunkSize: 300 });
+    const run = createMonteCarloRun(scenario, settings());
+    while (!run.finished()) run.step(7);
+    expect(run.result()).toEqual(whole);
+  });
+
+  it('reports progress after every chunk up to the total', () => {
+    const seen: number[] = [];
+    runMonteCarlo(scenario, settings({ draws: 250 }), { chunkSize: 100, onProgress: (done, total) => seen.push(done, total) });
+    expect(seen).toEqual([100, 250, 200, 250, 250, 250]);
+  });
+
+  it('stops early when cancelled and says so', () => {
+    let chunks = 0;
+    const result = runMonteCarlo(scenario, settings({ draws: 1000 }), {
+      chunkSize: 100,
+      onProgress: () => (chunks += 1),
+      isCancelled: () => chunks >= 2,
+    });
+    expect(result.cancelled).toBe(true);
+    expect(result.drawsDone).toBe(200);
+    expect(result.drawsRequested).toBe(1000);
+    expect(result.options[1]?.npv.histogram.reduce((s, b) => s + b.count, 0)).toBe(200);
+  });
+
+  it('reproduces the deterministic NPV when no input is uncertain', () => {
+    // With every multiplier at 1 each draw is the base scenario: all percentiles equal its NPV (definition).
+    const result = runMonteCarlo(scenario, settings({ inputs: [], draws: 100 }));
+    const base = evaluateNpvOnly(scenario);
+    result.options.forEach((option, i) => {
+      expect(option.npv.p10).toBeCloseTo(base[i]?.npv ?? Number.NaN, 6);
+      expect(option.npv.p90).toBeCloseTo(base[i]?.npv ?? Number.NaN, 6);
+      expect(option.npv.mean).toBeCloseTo(base[i]?.npv ?? Number.NaN, 4);
+    });
+  });
+
+  it('has a mean NPV at the mean milk price when NPV is linear in the price', () => {
+    // Triangular mean (a+b+c)/3 and variance (a²+b²+c²−ab−ac−bc)/18 (standard results); with no
+    // tax, NPV is affine in the milk price, so E[NPV(m)] = NPV(E[m]) (linearity of expectation).
+    const [a, c, b] = [0.8, 1, 1.15];
+    const draws = 2000;
+    const result = runMonteCarlo(scenario, settings({ draws, inputs: [{ key: 'milkPrice', distribution: 'triangular', min: a, mode: c, max: b }] }));
+    const expectedMultiplier = (a + b + c) / 3;
+    const sd = Math.sqrt((a * a + b * b + c * c - a * b - a * c - b * c) / 18);
+    const at = (m: number) => evaluateNpvOnly(perturb(scenario, 'milkPrice', m));
+    const [low, mid, high] = [at(0.8), at(expectedMultiplier), at(1.2)];
+    result.options.forEach((option, i) => {
+      const slope = Math.abs(((high[i]?.npv ?? 0) - (low[i]?.npv ?? 0)) / 0.4);
+      const tolerance = 5 * slope * (sd / Math.sqrt(draws)) + 1;
+      expect(Math.abs((option.npv.mean ?? Number.NaN) - (mid[i]?.npv ?? 0))).toBeLessThan(tolerance);
+    });
+  });
+
+  it('orders P10 ≤ P50 ≤ P90, keeps shares in [0, 1] and bins every draw', () => {
+    const result = runMonteCarlo(scenario, settings());
+    for (const option of result.options) {
+      const { p10, p50, p90, probabilityNegative, histogram } = option.npv;
+      expect(p10).not.toBeNull();
+      expect(p10 ?? 0).toBeLessThanOrEqual(p50 ?? 0);
+      expect(p50 ?? 0).toBeLessThanOrEqual(p90 ?? 0);
+      expect(probabilityNegative).toBeGreaterThanOrEqual(0);
+      expect(probabilityNegative).toBeLessThanOrEqual(1);
+      expect(histogram.reduce((s, bin) => s + bin.count, 0)).toBe(result.drawsDone);
+      expect(option.irr.definedDraws).toBeLessThanOrEqual(result.drawsDone);
+      expect(option.incrementalNpv === null).toBe(option.current);
+    }
+  });
+
+  it('counts draws whose coverage falls below the lender threshold', () => {
+    // Whole-farm coverage = cash for debt service ÷ debt payments (FFSC, farmdoc daily 8:175, read);
+    // existing debt is due every year, so each option has coverage to test.
+    const strict = riskScenario();
+    const high = runMonteCarlo({ ...strict, finance: { ...strict.finance, coverageThreshold: 5 } }, settings({ draws: 100 }));
+    const rich = { ...strict, herd: { ...strict.herd, existingCashForDebtServicePerYear: 1e8 } };
+    const low = runMonteCarlo({ ...rich, finance: { ...rich.finance, coverageThreshold: 0.5 } }, settings({ draws: 100 }));
+    for (const option of high.options) expect(option.probabilityCoverageBelowThreshold).toBe(1);
+    for (const option of low.options) expect(option.probabilityCoverageBelowThreshold).toBe(0);
+  });
+
+  it('reports coverage as not applicable when nothing is ever due', () => {
+    const base = riskScenario();
+    const debtFree = {
+      ...base,
+      herd: { ...base.herd, existingDebtPaymentsPerYear: 0 },
+      finance: { ...base.finance, loanAmount: 0 },
+    };
+    const current = runMonteCarlo(debtFree, settings({ draws: 100 })).options.find((o) => o.current);
+    expect(current?.probabilityCoverageBelowThreshold).toBeNull();
+    expect(current?.coverageReason).toBe('no-debt-service');
+  });
+});
