@@ -1,0 +1,100 @@
+/**
+ * Writes the demo farm's scenario files in scenarios/ from the farm baseline in demo-farm.json
+ * and the engine's starting points: `npx tsx server/cli/demo-scenarios.ts`. The files are
+ * committed (they are also test fixtures); run this again after the starting points change.
+ */
+import { readFileSync, writeFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { herdSchema, scenarioSchema, type Finance, type Herd, type Option, type Scenario, type ScenarioInput, type StartingPoint } from '../../shared/schema';
+import { createOption } from '../../shared/starting-points';
+
+const demoDir = fileURLToPath(new URL('../../scenarios/', import.meta.url));
+
+interface DemoFarm {
+  farm: { currency: string; locale: string; units: 'metric' | 'us'; baseline: unknown };
+}
+
+/** Cairnbrook's invented loan offer and discount rate. */
+const CAIRNBROOK_FINANCE: ScenarioInput['finance'] = {
+  equity: 80000,
+  grants: 0,
+  interestRate: 0.055,
+  termYears: 20,
+  paymentsPerYear: 12,
+  discountRate: 0.06,
+  coverageThreshold: 1.25,
+} satisfies Partial<Finance>;
+
+function scenario(farm: DemoFarm['farm'], herd: Herd, name: string, description: string, options: Option[]): Scenario {
+  return scenarioSchema.parse({
+    schemaVersion: 1,
+    name,
+    description,
+    horizonYears: 20,
+    currency: farm.currency,
+    locale: farm.locale,
+    units: farm.units,
+    herd,
+    options,
+    finance: CAIRNBROOK_FINANCE,
+  } satisfies ScenarioInput);
+}
+
+/** Cows the new barn is built for: the herd grows from 190 to 220 when it moves in. */
+const ADDED_COWS = 30;
+/** Cairnbrook's own planning figure for a mixed ration fed in the barn all year (kg/cow/day beyond the lying-time effect). */
+const BARN_FEEDING_YIELD_GAIN = 3.5;
+
+/** A freestall option sized for the enlarged herd, with its extra cows and the barn-feeding yield gain. */
+function barnOption(startingPoint: StartingPoint, herd: Herd, settings: { id: string; name?: string }): Option {
+  const option = createOption(startingPoint, { ...herd, cows: herd.cows + ADDED_COWS }, settings);
+  return {
+    ...option,
+    systemYieldAdjustment: BARN_FEEDING_YIELD_GAIN,
+    herdChange: { ...option.herdChange, addedCows: ADDED_COWS },
+    sources: {
+      ...option.sources,
+      systemYieldAdjustment: { kind: 'assumption', note: "the farm's planning figure for a mixed ration fed in the barn all year" },
+      'herdChange.addedCows': { kind: 'user', note: 'the barn is built for 220 cows; the herd grows by 30 heifers of its own rearing' },
+    },
+  };
+}
+
+/** The grazing herd as it is today against the four freestall starting points. */
+function fiveSystems(farm: DemoFarm['farm'], herd: Herd): Scenario {
+  return scenario(
+    farm,
+    herd,
+    'Stay on grass or build: five systems',
+    'Cairnbrook today (grazing with winter housing in the old cubicle house) against a new freestall barn with each of the four stall and bed systems.',
+    [
+      createOption('grazing', herd, { id: 'grazing', name: 'Grazing as today', current: true }),
+      barnOption('steel-freestall', herd, { id: 'steel-freestall' }),
+      barnOption('flexible-freestall', herd, { id: 'flexible-freestall' }),
+      barnOption('mattress-freestall', herd, { id: 'mattress-freestall' }),
+      barnOption('sand-freestall', herd, { id: 'sand-freestall' }),
+    ],
+  );
+}
+
+/** A new barn for 220 cows either way: top-dressed mattresses (current) or deep sand. Both carry the barn's capital. */
+function mattressOrSand(farm: DemoFarm['farm'], herd: Herd): Scenario {
+  const mattress = { ...barnOption('mattress-freestall', herd, { id: 'mattress', name: 'New barn, mattresses' }), current: true };
+  return scenario(
+    farm,
+    herd,
+    'New barn: mattress or sand',
+    'The new freestall barn is decided; which bed goes in it? Top-dressed mattresses with an automatic scraper against deep sand beds scraped by tractor.',
+    [mattress, barnOption('sand-freestall', herd, { id: 'sand', name: 'New barn, deep sand' })],
+  );
+}
+
+function write(fileName: string, document: Scenario): void {
+  writeFileSync(`${demoDir}${fileName}`, `${JSON.stringify(document, null, 2)}\n`);
+  process.stdout.write(`Wrote scenarios/${fileName}\n`);
+}
+
+const demo = JSON.parse(readFileSync(`${demoDir}demo-farm.json`, 'utf8')) as DemoFarm;
+const herd = herdSchema.parse(demo.farm.baseline);
+write('cairnbrook-five-systems.json', fiveSystems(demo.farm, herd));
+write('cairnbrook-mattress-or-sand.json', mattressOrSand(demo.farm, herd));

@@ -1,0 +1,213 @@
+/** Scenario rows and their versions as plain objects; JSON columns parsed here (MariaDB returns them as text). */
+import { and, asc, desc, eq } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/mysql-core';
+import type { Database } from '../client.js';
+import { scenariosTable, scenarioVersionsTable, usersTable, type ScenarioStatus } from '../schema/index.js';
+
+/** What the list shows without reading documents. */
+export interface ScenarioSummary {
+  optionCount: number;
+  best: { optionId: string; name: string; npv: number } | null;
+}
+
+export interface ScenarioRecord {
+  id: number;
+  farmId: number;
+  name: string;
+  status: ScenarioStatus;
+  version: number;
+  document: unknown;
+  summary: ScenarioSummary;
+  createdBy: { id: number; name: string } | null;
+  updatedBy: { id: number; name: string } | null;
+  createdAt: Date;
+  updatedAt: Date;
+}
+
+export interface VersionRecord {
+  version: number;
+  document: unknown;
+  note: string;
+  author: { id: number; name: string } | null;
+  createdAt: Date;
+}
+
+/** A transaction or the database: repository functions run in either. */
+export type Executor = Database | Parameters<Parameters<Database['transaction']>[0]>[0];
+
+function parseJson(value: unknown): unknown {
+  return typeof value === 'string' ? JSON.parse(value) : value;
+}
+
+function person(id: number | null, name: string | null): { id: number; name: string } | null {
+  return id !== null && name !== null ? { id, name } : null;
+}
+
+const creator = alias(usersTable, 'creator');
+const updater = alias(usersTable, 'updater');
+
+function selectScenarios(db: Executor) {
+  return db
+    .select({
+      row: scenariosTable,
+      creatorName: creator.name,
+      updaterName: updater.name,
+    })
+    .from(scenariosTable)
+    .leftJoin(creator, eq(creator.id, scenariosTable.createdBy))
+    .leftJoin(updater, eq(updater.id, scenariosTable.updatedBy));
+}
+
+type ScenarioSelectRow = Awaited<ReturnType<ReturnType<typeof selectScenarios>['execute']>>[number];
+
+function toRecord({ row, creatorName, updaterName }: ScenarioSelectRow): ScenarioRecord {
+  return {
+    id: row.id,
+    farmId: row.farmId,
+    name: row.name,
+    status: row.status,
+    version: row.version,
+    document: parseJson(row.document),
+    summary: parseJson(row.summary) as ScenarioSummary,
+    createdBy: person(row.createdBy, creatorName),
+    updatedBy: person(row.updatedBy, updaterName),
+    createdAt: row.createdAt,
+    updatedAt: row.updatedAt,
+  };
+}
+
+/** Scenarios of a farm, most recently saved first. */
+export async function listScenarios(db: Executor, farmId: number): Promise<ScenarioRecord[]> {
+  const rows = await selectScenarios(db).where(eq(scenariosTable.farmId, farmId)).orderBy(desc(scenariosTable.updatedAt), asc(scenariosTable.id));
+  return rows.map(toRecord);
+}
+
+/** One scenario of this farm; null for an id of another farm, so ids reveal nothing. */
+export async function findScenario(db: Executor, farmId: number, scenarioId: number): Promise<ScenarioRecord | null> {
+  const [row] = await selectScenarios(db).where(and(eq(scenariosTable.farmId, farmId), eq(scenariosTable.id, scenarioId)));
+  return row ? toRecord(row) : null;
+}
+
+/** Locks the scenario row until the transaction ends (SELECT … FOR UPDATE) and returns its version, or null. */
+export async function lockScenario(tx: Executor, farmId: number, scenarioId: number): Promise<{ version: number } | null> {
+  const [row] = await tx
+    .select({ version: scenariosTable.version })
+    .from(scenariosTable)
+    .where(and(eq(scenariosTable.farmId, farmId), eq(scenariosTable.id, scenarioId)))
+    .for('update');
+  return row ?? null;
+}
+
+export interface NewScenario {
+  farmId: number;
+  name: string;
+  document: unknown;
+  summary: ScenarioSummary;
+  userId: number;
+  note: string;
+  now: Date;
+}
+
+/** Inserts a scenario at version 1 and its first version row; call inside a transaction. */
+export async function insertScenario(tx: Executor, input: NewScenario): Promise<number> {
+  const [result] = await tx.insert(scenariosTable).values({
+    farmId: input.farmId,
+    name: input.name,
+    version: 1,
+    document: input.document,
+    summary: input.summary,
+    createdBy: input.userId,
+    updatedBy: input.userId,
+    createdAt: input.now,
+    updatedAt: input.now,
+  });
+  await insertVersion(tx, { scenarioId: result.insertId, version: 1, document: input.document, userId: input.userId, note: input.note, now: input.now });
+  return result.insertId;
+}
+
+export interface SavedVersion {
+  scenarioId: number;
+  version: number;
+  name: string;
+  document: unknown;
+  summary: ScenarioSummary;
+  userId: number;
+  note: string;
+  now: Date;
+}
+
+/** Writes the scenario's new state and its immutable version row; call inside a transaction after lockScenario. */
+export async function updateScenarioVersion(tx: Executor, input: SavedVersion): Promise<void> {
+  await tx
+    .update(scenariosTable)
+    .set({
+      name: input.name,
+      version: input.version,
+      document: input.document,
+      summary: input.summary,
+      updatedBy: input.userId,
+      updatedAt: input.now,
+    })
+    .where(eq(scenariosTable.id, input.scenarioId));
+  await insertVersion(tx, input);
+}
+
+async function insertVersion(
+  tx: Executor,
+  input: { scenarioId: number; version: number; document: unknown; userId: number; note: string; now: Date },
+): Promise<void> {
+  await tx.insert(scenarioVersionsTable).values({
+    scenarioId: input.scenarioId,
+    version: input.version,
+    document: input.document,
+    authorId: input.userId,
+    note: input.note,
+    createdAt: input.now,
+  });
+}
+
+export async function setScenarioStatus(db: Executor, farmId: number, scenarioId: number, status: ScenarioStatus): Promise<void> {
+  await db
+    .update(scenariosTable)
+    .set({ status })
+    .where(and(eq(scenariosTable.farmId, farmId), eq(scenariosTable.id, scenarioId)));
+}
+
+/** Deletes the scenario and (by cascade) its versions. */
+export async function deleteScenario(db: Executor, farmId: number, scenarioId: number): Promise<void> {
+  await db.delete(scenariosTable).where(and(eq(scenariosTable.farmId, farmId), eq(scenariosTable.id, scenarioId)));
+}
+
+/** The scenario's versions without their documents, newest first. */
+export async function listVersions(db: Executor, scenarioId: number): Promise<Omit<VersionRecord, 'document'>[]> {
+  const rows = await db
+    .select({
+      version: scenarioVersionsTable.version,
+      note: scenarioVersionsTable.note,
+      createdAt: scenarioVersionsTable.createdAt,
+      authorId: scenarioVersionsTable.authorId,
+      authorName: usersTable.name,
+    })
+    .from(scenarioVersionsTable)
+    .leftJoin(usersTable, eq(usersTable.id, scenarioVersionsTable.authorId))
+    .where(eq(scenarioVersionsTable.scenarioId, scenarioId))
+    .orderBy(desc(scenarioVersionsTable.version));
+  return rows.map((r) => ({ version: r.version, note: r.note, createdAt: r.createdAt, author: person(r.authorId, r.authorName) }));
+}
+
+export async function findVersion(db: Executor, scenarioId: number, version: number): Promise<VersionRecord | null> {
+  const [row] = await db
+    .select({
+      version: scenarioVersionsTable.version,
+      document: scenarioVersionsTable.document,
+      note: scenarioVersionsTable.note,
+      createdAt: scenarioVersionsTable.createdAt,
+      authorId: scenarioVersionsTable.authorId,
+      authorName: usersTable.name,
+    })
+    .from(scenarioVersionsTable)
+    .leftJoin(usersTable, eq(usersTable.id, scenarioVersionsTable.authorId))
+    .where(and(eq(scenarioVersionsTable.scenarioId, scenarioId), eq(scenarioVersionsTable.version, version)));
+  if (!row) return null;
+  return { version: row.version, document: parseJson(row.document), note: row.note, createdAt: row.createdAt, author: person(row.authorId, row.authorName) };
+}

@@ -1,0 +1,55 @@
+/**
+ * Scenarios and their versions. A scenario is one validated JSON document (the engine's
+ * `Scenario`: herd, options, capital and running-cost lines, finance, risk) because it is always
+ * read, saved and versioned whole; options and lines keep stable string ids inside it, which
+ * other tables use together with the scenario id. See DEVELOPERS.md, "Scenarios".
+ */
+import { index, int, json, mysqlEnum, mysqlTable, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { farmsTable, usersTable } from './accounts.js';
+import { createdAt, id, ref, timestamp } from './columns.js';
+
+export const scenarioStatuses = ['draft', 'decided', 'archived'] as const;
+export type ScenarioStatus = (typeof scenarioStatuses)[number];
+
+export const scenariosTable = mysqlTable(
+  'scenarios',
+  {
+    id: id(),
+    farmId: ref('farm_id')
+      .notNull()
+      .references(() => farmsTable.id, { onDelete: 'cascade' }),
+    /** Copy of document.name, for listing without reading documents. */
+    name: varchar('name', { length: 120 }).notNull(),
+    status: mysqlEnum('status', scenarioStatuses).notNull().default('draft'),
+    /** Raised by one on every save; a save based on an older number is refused (optimistic locking). */
+    version: int('version', { unsigned: true }).notNull(),
+    document: json('document').notNull(),
+    /** Option count and best option by NPV, computed at save so the list needs no evaluation. */
+    summary: json('summary').notNull(),
+    createdBy: ref('created_by').references(() => usersTable.id, { onDelete: 'set null' }),
+    updatedBy: ref('updated_by').references(() => usersTable.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    updatedAt: timestamp('updated_at').notNull(),
+  },
+  (t) => [index('scenarios_farm_idx').on(t.farmId)],
+);
+
+/** Every saved state of a scenario; rows are only ever inserted. */
+export const scenarioVersionsTable = mysqlTable(
+  'scenario_versions',
+  {
+    id: id(),
+    scenarioId: ref('scenario_id')
+      .notNull()
+      .references(() => scenariosTable.id, { onDelete: 'cascade' }),
+    version: int('version', { unsigned: true }).notNull(),
+    document: json('document').notNull(),
+    authorId: ref('author_id').references(() => usersTable.id, { onDelete: 'set null' }),
+    note: varchar('note', { length: 200 }).notNull().default(''),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('scenario_versions_scenario_version_unique').on(t.scenarioId, t.version)],
+);
+
+export type ScenarioRow = typeof scenariosTable.$inferSelect;
+export type ScenarioVersionRow = typeof scenarioVersionsTable.$inferSelect;

@@ -1,0 +1,419 @@
+/**
+ * The scenario rules: who may see which scenario, creating (from the farm baseline or an
+ * imported document), saving with optimistic locking, option operations, versions and their
+ * comparison. Every save validates the whole document and writes a new immutable version in
+ * the same transaction as the scenario row, locked with SELECT … FOR UPDATE.
+ */
+import type { z } from 'zod';
+import { evaluateScenario } from '../../shared/engine/evaluate.js';
+import type { ScenarioResults } from '../../shared/engine/results.js';
+import { diffScenarios, type FieldChange, type Json } from '../../shared/scenario-diff.js';
+import type { createScenarioBodySchema } from '../../shared/scenario-api.js';
+import { herdSchema, scenarioSchema, type Finance, type Option, type Scenario, type ScenarioInput, type StartingPoint } from '../../shared/schema/index.js';
+import { createOption } from '../../shared/starting-points.js';
+import type { UnitSystem } from '../../shared/units.js';
+import type { Database } from '../db/client.js';
+import { findFarmBaseline } from '../db/repositories/farm-baseline.js';
+import {
+  deleteScenario as deleteScenarioRow,
+  findScenario,
+  findVersion,
+  insertScenario,
+  listScenarios,
+  listVersions,
+  lockScenario,
+  setScenarioStatus,
+  updateScenarioVersion,
+  type Executor,
+  type ScenarioRecord,
+  type ScenarioSummary,
+  type VersionRecord,
+} from '../db/repositories/scenarios.js';
+import type { FarmRole, ScenarioStatus } from '../db/schema/index.js';
+import { AppError, fieldErrors, notFound } from '../errors.js';
+
+/** Who is asking, on which farm. */
+export interface ScenarioActor {
+  farmId: number;
+  role: FarmRole;
+  userId: number;
+}
+
+/**
+ * Whether this role may see this scenario at all. Lenders see only scenarios shared with them
+ * (the lender share comes later and passes the ids shared with the caller); everyone else on
+ * the farm sees every scenario of the farm.
+ */
+export function canSeeScenario(role: FarmRole, scenarioId: number, sharedWithCaller: ReadonlySet<number> = new Set()): boolean {
+  return role === 'lender' ? sharedWithCaller.has(scenarioId) : true;
+}
+
+/** Finance terms of a new scenario before the user enters the farm's own (planning assumptions, editable). */
+const NEW_SCENARIO_FINANCE: Finance = {
+  equity: 0,
+  grants: 0,
+  loanAmount: null,
+  interestRate: 0.055,
+  termYears: 20,
+  paymentsPerYear: 12,
+  interestOnlyMonths: 0,
+  discountRate: 0.06,
+  taxRate: 0,
+  depreciation: 'straight-line',
+  decliningBalanceFactor: 2,
+  lossesOffsetOtherIncome: true,
+  coverageThreshold: 1.25,
+};
+
+export interface ScenarioView {
+  id: number;
+  scenario: Scenario;
+  version: number;
+  results: ScenarioResults;
+  meta: {
+    id: number;
+    farmId: number;
+    name: string;
+    status: ScenarioStatus;
+    version: number;
+    createdAt: Date;
+    createdBy: string | null;
+    updatedAt: Date;
+    updatedBy: string | null;
+  };
+}
+
+export interface ScenarioListItem {
+  id: number;
+  name: string;
+  status: ScenarioStatus;
+  version: number;
+  optionCount: number;
+  best: { optionId: string; name: string; npv: number } | null;
+  updatedAt: Date;
+  updatedBy: string | null;
+}
+
+/** Option count and the option with the highest NPV (currency), for the list. */
+export function summarise(scenario: Scenario, results: ScenarioResults): ScenarioSummary {
+  let best: ScenarioSummary['best'] = null;
+  for (const option of results.options) {
+    if (best === null || option.npv > best.npv) best = { optionId: option.id, name: option.name, npv: option.npv };
+  }
+  return { optionCount: scenario.options.length, best };
+}
+
+function view(record: ScenarioRecord): ScenarioView {
+  const scenario = record.document as Scenario;
+  return {
+    id: record.id,
+    scenario,
+    version: record.version,
+    results: evaluateScenario(scenario),
+    meta: {
+      id: record.id,
+      farmId: record.farmId,
+      name: record.name,
+      status: record.status,
+      version: record.version,
+      createdAt: record.createdAt,
+      createdBy: record.createdBy?.name ?? null,
+      updatedAt: record.updatedAt,
+      updatedBy: record.updatedBy?.name ?? null,
+    },
+  };
+}
+
+/** A 400 naming one field of the request, shaped as parseOrThrow shapes it. */
+function badField(field: string, message: string): AppError {
+  return new AppError(400, 'invalid_input', `${field}: ${message}`, { [field]: message });
+}
+
+/** Validates a document the server built or changed; errors name fields under `scenario.`. */
+function validated(document: unknown): Scenario {
+  const result = scenarioSchema.safeParse(document);
+  if (result.success) return result.data;
+  const fields = Object.fromEntries(Object.entries(fieldErrors(result.error)).map(([path, message]) => [`scenario.${path}`, message]));
+  const first = Object.entries(fields)[0];
+  throw new AppError(400, 'invalid_input', first ? `${first[0]}: ${first[1]}` : 'Invalid scenario', fields);
+}
+
+async function visibleRecord(db: Executor, actor: ScenarioActor, scenarioId: number): Promise<ScenarioRecord> {
+  const record = canSeeScenario(actor.role, scenarioId) ? await findScenario(db, actor.farmId, scenarioId) : null;
+  if (!record) throw notFound('Scenario not found');
+  return record;
+}
+
+/** The farm's scenarios the caller may see, most recently saved first. */
+export async function listFarmScenarios(db: Database, actor: ScenarioActor): Promise<ScenarioListItem[]> {
+  const records = await listScenarios(db, actor.farmId);
+  return records
+    .filter((record) => canSeeScenario(actor.role, record.id))
+    .map((record) => ({
+      id: record.id,
+      name: record.name,
+      status: record.status,
+      version: record.version,
+      optionCount: record.summary.optionCount,
+      best: record.summary.best,
+      updatedAt: record.updatedAt,
+      updatedBy: record.updatedBy?.name ?? null,
+    }));
+}
+
+/** The latest version of a scenario with results evaluated on the server. */
+export async function readScenario(db: Database, actor: ScenarioActor, scenarioId: number): Promise<ScenarioView> {
+  return view(await visibleRecord(db, actor, scenarioId));
+}
+
+async function createScenario(db: Database, actor: ScenarioActor, document: Scenario, note: string): Promise<ScenarioView> {
+  const results = evaluateScenario(document);
+  const id = await db.transaction((tx) =>
+    insertScenario(tx, {
+      farmId: actor.farmId,
+      name: document.name,
+      document,
+      summary: summarise(document, results),
+      userId: actor.userId,
+      note,
+      now: new Date(),
+    }),
+  );
+  return readScenario(db, actor, id);
+}
+
+/** A new scenario from the farm baseline: herd, currency and units copied, one current option from a starting point. */
+export async function createFromBaseline(
+  db: Database,
+  actor: ScenarioActor,
+  input: z.output<typeof createScenarioBodySchema>,
+): Promise<ScenarioView> {
+  const farm = await findFarmBaseline(db, actor.farmId);
+  const herd = herdSchema.safeParse(farm?.herd);
+  if (!farm || !herd.success) {
+    throw new AppError(409, 'baseline_missing', 'Set the farm baseline (herd and markets) before creating a scenario from it');
+  }
+  const current = createOption(input.startingPoint, herd.data, {
+    id: input.startingPoint,
+    current: true,
+    ...(input.currentOptionName ? { name: input.currentOptionName } : {}),
+  });
+  const document = validated({
+    schemaVersion: 1,
+    name: input.name,
+    currency: farm.currency,
+    locale: farm.locale,
+    units: farm.units,
+    herd: herd.data,
+    options: [current],
+    finance: NEW_SCENARIO_FINANCE,
+  } satisfies ScenarioInput);
+  return createScenario(db, actor, document, 'Created from the farm baseline');
+}
+
+/** A new scenario from a whole (already validated) document: an import, or a copy kept after a conflict. */
+export async function importScenario(db: Database, actor: ScenarioActor, scenario: Scenario, name?: string): Promise<ScenarioView> {
+  return createScenario(db, actor, name ? { ...scenario, name } : scenario, 'Imported');
+}
+
+/**
+ * Applies `change` to the latest document and saves the result as the next version, in one
+ * transaction with the row locked. With `basedOn`, a scenario saved since then gives 409
+ * `version_conflict` with who saved the newer version and when; nothing is written.
+ */
+async function saveChange(
+  db: Database,
+  actor: ScenarioActor,
+  scenarioId: number,
+  basedOn: number | undefined,
+  note: string,
+  change: (latest: Scenario) => unknown,
+): Promise<ScenarioView> {
+  await db.transaction(async (tx) => {
+    const locked = canSeeScenario(actor.role, scenarioId) ? await lockScenario(tx, actor.farmId, scenarioId) : null;
+    if (!locked) throw notFound('Scenario not found');
+    const latest = await visibleRecord(tx, actor, scenarioId);
+    if (basedOn !== undefined && basedOn !== locked.version) {
+      throw new AppError(
+        409,
+        'version_conflict',
+        `${latest.updatedBy?.name ?? 'Someone'} saved version ${latest.version} of this scenario after version ${basedOn}, which your changes are based on`,
+        undefined,
+        { latest: { version: latest.version, updatedBy: latest.updatedBy?.name ?? null, updatedAt: latest.updatedAt } },
+      );
+    }
+    const document = validated(change(latest.document as Scenario));
+    await updateScenarioVersion(tx, {
+      scenarioId,
+      version: locked.version + 1,
+      name: document.name,
+      document,
+      summary: summarise(document, evaluateScenario(document)),
+      userId: actor.userId,
+      note,
+      now: new Date(),
+    });
+  });
+  return readScenario(db, actor, scenarioId);
+}
+
+/** Saves a whole document (PUT) based on `version`. */
+export function saveScenario(db: Database, actor: ScenarioActor, scenarioId: number, version: number, scenario: Scenario, note?: string): Promise<ScenarioView> {
+  return saveChange(db, actor, scenarioId, version, note ?? '', () => scenario);
+}
+
+function optionIndex(scenario: Scenario, optionId: string): number {
+  const index = scenario.options.findIndex((option) => option.id === optionId);
+  if (index < 0) throw notFound(`Option "${optionId}" not found in this scenario`);
+  return index;
+}
+
+/** `base`, or `base-2`, `base-3`, … — the first id no option of the scenario uses. */
+export function freeOptionId(scenario: Scenario, base: string): string {
+  const taken = new Set(scenario.options.map((option) => option.id));
+  if (!taken.has(base)) return base;
+  let n = 2;
+  while (taken.has(`${base}-${n}`)) n++;
+  return `${base}-${n}`;
+}
+
+/** Adds a candidate option from a starting point, sized for the scenario's herd. */
+export function addOption(db: Database, actor: ScenarioActor, scenarioId: number, version: number, startingPoint: StartingPoint, name?: string): Promise<ScenarioView> {
+  return saveChange(db, actor, scenarioId, version, `Added an option from the ${startingPoint} starting point`, (latest) => {
+    const option = createOption(startingPoint, latest.herd, { id: freeOptionId(latest, startingPoint), ...(name ? { name } : {}) });
+    return { ...latest, options: [...latest.options, option] };
+  });
+}
+
+/** Copies an option (not as current) right after the original. */
+export function duplicateOption(db: Database, actor: ScenarioActor, scenarioId: number, version: number, optionId: string, name?: string): Promise<ScenarioView> {
+  return saveChange(db, actor, scenarioId, version, `Duplicated option "${optionId}"`, (latest) => {
+    const index = optionIndex(latest, optionId);
+    const original = latest.options[index] as Option;
+    const copy: Option = { ...structuredClone(original), id: freeOptionId(latest, original.id), name: name ?? `${original.name} (copy)`, current: false };
+    const options = [...latest.options];
+    options.splice(index + 1, 0, copy);
+    return { ...latest, options };
+  });
+}
+
+/** Removes a candidate option; the current option stays until another is marked current. */
+export function deleteOption(db: Database, actor: ScenarioActor, scenarioId: number, version: number, optionId: string): Promise<ScenarioView> {
+  return saveChange(db, actor, scenarioId, version, `Deleted option "${optionId}"`, (latest) => {
+    const option = latest.options[optionIndex(latest, optionId)] as Option;
+    if (option.current) {
+      throw badField('optionId', 'The current option cannot be deleted: mark another option as current first');
+    }
+    return { ...latest, options: latest.options.filter((o) => o.id !== optionId) };
+  });
+}
+
+/** Puts the options in the given order; `order` must name every option once. */
+export function reorderOptions(db: Database, actor: ScenarioActor, scenarioId: number, version: number, order: string[]): Promise<ScenarioView> {
+  return saveChange(db, actor, scenarioId, version, 'Reordered the options', (latest) => {
+    const byId = new Map(latest.options.map((option) => [option.id, option]));
+    const unique = new Set(order);
+    if (unique.size !== order.length || order.length !== byId.size || order.some((id) => !byId.has(id))) {
+      throw badField('order', `Order must list each option id exactly once: ${[...byId.keys()].join(', ')}`);
+    }
+    return { ...latest, options: order.map((id) => byId.get(id) as Option) };
+  });
+}
+
+/** Makes one option the current option (the baseline the others are measured against). */
+export function markCurrent(db: Database, actor: ScenarioActor, scenarioId: number, version: number, optionId: string): Promise<ScenarioView> {
+  return saveChange(db, actor, scenarioId, version, `Marked option "${optionId}" as current`, (latest) => {
+    optionIndex(latest, optionId);
+    return { ...latest, options: latest.options.map((option) => ({ ...option, current: option.id === optionId })) };
+  });
+}
+
+/** A new scenario holding a copy of the latest document. */
+export async function duplicateScenario(db: Database, actor: ScenarioActor, scenarioId: number, name?: string): Promise<ScenarioView> {
+  const record = await visibleRecord(db, actor, scenarioId);
+  const document = validated({ ...(record.document as Scenario), name: name ?? `${record.name} (copy)` });
+  return createScenario(db, actor, document, `Copied from "${record.name}" version ${record.version}`);
+}
+
+/** Sets the status to archived; the document and its versions stay. */
+export async function archiveScenario(db: Database, actor: ScenarioActor, scenarioId: number): Promise<{ id: number; status: ScenarioStatus }> {
+  await visibleRecord(db, actor, scenarioId);
+  await setScenarioStatus(db, actor.farmId, scenarioId, 'archived');
+  return { id: scenarioId, status: 'archived' };
+}
+
+/** Deletes the scenario with all its versions. */
+export async function deleteScenario(db: Database, actor: ScenarioActor, scenarioId: number): Promise<void> {
+  await visibleRecord(db, actor, scenarioId);
+  await deleteScenarioRow(db, actor.farmId, scenarioId);
+}
+
+export interface VersionListItem {
+  version: number;
+  note: string;
+  author: string | null;
+  createdAt: Date;
+}
+
+export async function scenarioVersions(db: Database, actor: ScenarioActor, scenarioId: number): Promise<VersionListItem[]> {
+  await visibleRecord(db, actor, scenarioId);
+  const versions = await listVersions(db, scenarioId);
+  return versions.map((v) => ({ version: v.version, note: v.note, author: v.author?.name ?? null, createdAt: v.createdAt }));
+}
+
+async function versionOf(db: Database, scenarioId: number, version: number): Promise<VersionRecord> {
+  const found = await findVersion(db, scenarioId, version);
+  if (!found) throw notFound(`Version ${version} not found`);
+  return found;
+}
+
+/** One past version, read-only, with its results evaluated now. */
+export async function readVersion(db: Database, actor: ScenarioActor, scenarioId: number, version: number) {
+  await visibleRecord(db, actor, scenarioId);
+  const found = await versionOf(db, scenarioId, version);
+  const scenario = found.document as Scenario;
+  return {
+    version: found.version,
+    scenario,
+    note: found.note,
+    author: found.author?.name ?? null,
+    createdAt: found.createdAt,
+    results: evaluateScenario(scenario),
+  };
+}
+
+/** Changed fields between two versions, in `units` for display (the farm's units by default). */
+export async function compareVersions(
+  db: Database,
+  actor: ScenarioActor,
+  scenarioId: number,
+  from: number,
+  to: number,
+  units?: UnitSystem,
+): Promise<{ from: number; to: number; units: UnitSystem; changes: FieldChange[] }> {
+  await visibleRecord(db, actor, scenarioId);
+  const [older, newer] = await Promise.all([versionOf(db, scenarioId, from), versionOf(db, scenarioId, to)]);
+  const shownIn = units ?? (await findFarmBaseline(db, actor.farmId))?.units ?? 'metric';
+  return { from, to, units: shownIn, changes: diffScenarios(older.document as Json, newer.document as Json, shownIn) };
+}
+
+/** Saves a past version's document as the next version. */
+export async function restoreVersion(
+  db: Database,
+  actor: ScenarioActor,
+  scenarioId: number,
+  version: number,
+  basedOn?: number,
+  note?: string,
+): Promise<ScenarioView> {
+  await visibleRecord(db, actor, scenarioId);
+  const past = await versionOf(db, scenarioId, version);
+  return saveChange(db, actor, scenarioId, basedOn, note ?? `Restored version ${version}`, () => past.document);
+}
+
+/** The latest document as the file `npm run evaluate` reads, and a file name for it. */
+export async function exportScenario(db: Database, actor: ScenarioActor, scenarioId: number): Promise<{ fileName: string; document: Scenario }> {
+  const record = await visibleRecord(db, actor, scenarioId);
+  const slug = record.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'scenario';
+  return { fileName: `${slug}-v${record.version}.json`, document: record.document as Scenario };
+}
