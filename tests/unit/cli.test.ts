@@ -83,10 +83,4 @@ describe('npm run evaluate', { timeout: 60_000, concurrent: true }, () => {
     expect(code).toBe(2);
     expect(stderr).toMatch(/Cannot read scenario file/);
   });
-
-  it('says the workbook export is not available yet, exit code 1', async () => {
-    const { code, stderr } = await runCli(valid, '--xlsx', join(dir, 'out.xlsx'));
-    expect(code).toBe(1);
-    expect(stderr).toMatch(/not available yet/);
-  });
 });
