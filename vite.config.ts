@@ -20,6 +20,15 @@ export default defineConfig({
   build: {
     outDir: 'dist',
     chunkSizeWarningLimit: 900,
+    rolldownOptions: {
+      output: {
+        // The chart library (~190 KB gzip) and its own dependencies in one chunk, fetched only by
+        // screens with charts. Not recursive: vue3-apexcharts imports Vue, which stays in the entry.
+        codeSplitting: {
+          groups: [{ name: 'charts', test: /node_modules[\\/](apexcharts|vue3-apexcharts|@svgdotjs|@yr[\\/]monotone-cubic-spline)[\\/]/, includeDependenciesRecursively: false }],
+        },
+      },
+    },
   },
   worker: { format: 'es' },
   test: {

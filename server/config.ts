@@ -17,6 +17,19 @@ const configSchema = z.object({
   DIST_DIR: z.string().default('dist'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
+  /** Sign-in and password-reset requests allowed per e-mail address and per IP in each window. */
+  RATE_LIMIT_WINDOW_MINUTES: z.coerce.number().int().min(1).max(1440).default(15),
+  RATE_LIMIT_PER_EMAIL: z.coerce.number().int().min(1).default(10),
+  RATE_LIMIT_PER_IP: z.coerce.number().int().min(1).default(100),
+  /** Where uploaded documents live: `local` (under DATA_DIR/files) or `s3` (S3-compatible store). */
+  STORAGE: z.enum(['local', 's3']).default('local'),
+  S3_ENDPOINT: z.url().optional(),
+  S3_BUCKET: z.string().min(3).optional(),
+  S3_REGION: z.string().default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().optional(),
+  /** Bytes of documents one farm may keep (all files together). */
+  DOCUMENT_QUOTA_BYTES: z.coerce.number().int().min(0).default(500 * 1024 * 1024),
 });
 
 export interface AppConfig {
@@ -31,7 +44,14 @@ export interface AppConfig {
   distDir: string;
   logLevel: string;
   bcryptCost: number;
+  rateLimit: { windowMinutes: number; perEmail: number; perIp: number };
+  storage: StorageConfig;
+  documentQuotaBytes: number;
 }
+
+export type StorageConfig =
+  | { kind: 'local' }
+  | { kind: 's3'; endpoint: string | undefined; bucket: string; region: string; accessKeyId: string | undefined; secretAccessKey: string | undefined };
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Partial<AppConfig> = {}): AppConfig {
   const parsed = configSchema.safeParse(env);
@@ -52,6 +72,22 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     distDir: c.DIST_DIR,
     logLevel: c.LOG_LEVEL,
     bcryptCost: c.BCRYPT_COST,
+    rateLimit: { windowMinutes: c.RATE_LIMIT_WINDOW_MINUTES, perEmail: c.RATE_LIMIT_PER_EMAIL, perIp: c.RATE_LIMIT_PER_IP },
+    storage: storageConfig(c),
+    documentQuotaBytes: c.DOCUMENT_QUOTA_BYTES,
     ...overrides,
+  };
+}
+
+function storageConfig(c: z.infer<typeof configSchema>): StorageConfig {
+  if (c.STORAGE === 'local') return { kind: 'local' };
+  if (!c.S3_BUCKET) throw new Error('Invalid configuration:\n  S3_BUCKET: required when STORAGE=s3');
+  return {
+    kind: 's3',
+    endpoint: c.S3_ENDPOINT,
+    bucket: c.S3_BUCKET,
+    region: c.S3_REGION,
+    accessKeyId: c.S3_ACCESS_KEY_ID,
+    secretAccessKey: c.S3_SECRET_ACCESS_KEY,
   };
 }

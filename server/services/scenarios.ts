@@ -31,6 +31,7 @@ import {
 } from '../db/repositories/scenarios.js';
 import type { FarmRole, ScenarioStatus } from '../db/schema/index.js';
 import { AppError, fieldErrors, notFound } from '../errors.js';
+import { lenderGrants } from './lender-access.js';
 
 /** Who is asking, on which farm. */
 export interface ScenarioActor {
@@ -40,12 +41,31 @@ export interface ScenarioActor {
 }
 
 /**
- * Whether this role may see this scenario at all. Lenders see only scenarios shared with them
- * (the lender share comes later and passes the ids shared with the caller); everyone else on
- * the farm sees every scenario of the farm.
+ * Whether this role may see this scenario at all. Lenders see only scenarios with a live share
+ * to them (`sharedWithCaller`: the scenario ids of `lenderGrants`, so not revoked, not expired,
+ * link used), and then only the shared versions; everyone else on the farm sees every scenario.
  */
 export function canSeeScenario(role: FarmRole, scenarioId: number, sharedWithCaller: ReadonlySet<number> = new Set()): boolean {
   return role === 'lender' ? sharedWithCaller.has(scenarioId) : true;
+}
+
+/** The versions a lender may read, per scenario; null for members, who read every version. */
+function grantsOf(db: Executor, actor: ScenarioActor): Promise<Map<number, number[]> | null> {
+  return actor.role === 'lender' ? lenderGrants(db, actor.farmId, actor.userId) : Promise.resolve(null);
+}
+
+/** The record as the lender sees it: the highest version shared with them, never the latest save. */
+async function asSharedVersion(db: Executor, record: ScenarioRecord, versions: readonly number[] | undefined): Promise<ScenarioRecord> {
+  const version = versions?.[0];
+  const found = version === undefined ? null : await findVersion(db, record.id, version);
+  if (!found) throw notFound('Scenario not found');
+  const document = found.document as Scenario;
+  return { ...record, name: document.name, version: found.version, document, updatedAt: found.createdAt, updatedBy: found.author };
+}
+
+/** 404 unless a lender may read this version (members may read any). */
+function assertVersionVisible(grants: Map<number, number[]> | null, scenarioId: number, version: number): void {
+  if (grants && !(grants.get(scenarioId) ?? []).includes(version)) throw notFound(`Version ${version} not found`);
 }
 
 /** Finance terms of a new scenario before the user enters the farm's own (planning assumptions, editable). */
@@ -139,16 +159,28 @@ function validated(document: unknown): Scenario {
 }
 
 async function visibleRecord(db: Executor, actor: ScenarioActor, scenarioId: number): Promise<ScenarioRecord> {
-  const record = canSeeScenario(actor.role, scenarioId) ? await findScenario(db, actor.farmId, scenarioId) : null;
+  const grants = await grantsOf(db, actor);
+  const record = canSeeScenario(actor.role, scenarioId, grants ? new Set(grants.keys()) : undefined) ? await findScenario(db, actor.farmId, scenarioId) : null;
   if (!record) throw notFound('Scenario not found');
-  return record;
+  return grants ? asSharedVersion(db, record, grants.get(scenarioId)) : record;
 }
 
 /** The farm's scenarios the caller may see, most recently saved first. */
 export async function listFarmScenarios(db: Database, actor: ScenarioActor): Promise<ScenarioListItem[]> {
-  const records = await listScenarios(db, actor.farmId);
+  const grants = await grantsOf(db, actor);
+  const shared = grants ? new Set(grants.keys()) : undefined;
+  const visible = (await listScenarios(db, actor.farmId)).filter((record) => canSeeScenario(actor.role, record.id, shared));
+  // A lender's list describes the shared version, so its summary is computed from that document.
+  const records = grants
+    ? await Promise.all(
+        visible.map(async (record) => {
+          const seen = await asSharedVersion(db, record, grants.get(record.id));
+          const document = seen.document as Scenario;
+          return { ...seen, summary: summarise(document, evaluateScenario(document)) };
+        }),
+      )
+    : visible;
   return records
-    .filter((record) => canSeeScenario(actor.role, record.id))
     .map((record) => ({
       id: record.id,
       name: record.name,
@@ -357,7 +389,9 @@ export interface VersionListItem {
 
 export async function scenarioVersions(db: Database, actor: ScenarioActor, scenarioId: number): Promise<VersionListItem[]> {
   await visibleRecord(db, actor, scenarioId);
-  const versions = await listVersions(db, scenarioId);
+  const grants = await grantsOf(db, actor);
+  const shared = grants?.get(scenarioId);
+  const versions = (await listVersions(db, scenarioId)).filter((v) => !shared || shared.includes(v.version));
   return versions.map((v) => ({ version: v.version, note: v.note, author: v.author?.name ?? null, createdAt: v.createdAt }));
 }
 
@@ -370,6 +404,7 @@ async function versionOf(db: Database, scenarioId: number, version: number): Pro
 /** One past version, read-only, with its results evaluated now. */
 export async function readVersion(db: Database, actor: ScenarioActor, scenarioId: number, version: number) {
   await visibleRecord(db, actor, scenarioId);
+  assertVersionVisible(await grantsOf(db, actor), scenarioId, version);
   const found = await versionOf(db, scenarioId, version);
   const scenario = found.document as Scenario;
   return {
@@ -392,6 +427,9 @@ export async function compareVersions(
   units?: UnitSystem,
 ): Promise<{ from: number; to: number; units: UnitSystem; changes: FieldChange[] }> {
   await visibleRecord(db, actor, scenarioId);
+  const grants = await grantsOf(db, actor);
+  assertVersionVisible(grants, scenarioId, from);
+  assertVersionVisible(grants, scenarioId, to);
   const [older, newer] = await Promise.all([versionOf(db, scenarioId, from), versionOf(db, scenarioId, to)]);
   const shownIn = units ?? (await findFarmBaseline(db, actor.farmId))?.units ?? 'metric';
   return { from, to, units: shownIn, changes: diffScenarios(older.document as Json, newer.document as Json, shownIn) };

@@ -5,6 +5,13 @@ function show(value: number): string {
   return String(Number(value.toPrecision(10)));
 }
 
+/** " 1 cow", " 20 cows": a plain plural unit loses its "s" after exactly 1. */
+function unitAfter(value: number, unit: string): string {
+  if (!unit) return '';
+  const singular = value === 1 && /^[a-z]+s$/.test(unit) ? unit.slice(0, -1) : unit;
+  return ` ${singular}`;
+}
+
 interface QuantityOptions {
   /** Whole numbers only (counts, years, months). */
   int?: boolean;
@@ -24,10 +31,9 @@ export function quantity(
 ) {
   let schema = z.number({ error: `${label} must be a number` });
   if (options.int) schema = schema.int(`${label} must be a whole number`);
-  const suffix = unit ? ` ${unit}` : '';
   return schema
-    .min(min, `${label} must be at least ${show(min)}${suffix}`)
-    .max(max, `${label} must be at most ${show(max)}${suffix}`)
+    .min(min, `${label} must be at least ${show(min)}${unitAfter(min, unit)}`)
+    .max(max, `${label} must be at most ${show(max)}${unitAfter(max, unit)}`)
     .describe(description);
 }
 

@@ -5,9 +5,10 @@ export const financeSchema = z
   .object({
     equity: money('Equity', 'Own cash put into the capital (currency)').default(0),
     grants: money('Grants', 'Capital grants received at year 0 (currency)').default(0),
-    loanAmount: money('Loan amount', 'Loan principal; null = capital − equity − grants, floored at 0 (currency)')
+    loanAmount: money('Loan amount', 'Loan principal (currency)')
       .nullable()
-      .default(null),
+      .default(null)
+      .describe('Loan principal; null = capital − equity − grants, floored at 0; never more than capital − grants (currency)'),
     interestRate: rate('Interest rate', 0, 0.3, 'Nominal loan interest rate (fraction per year, 0.06 = 6 %)'),
     termYears: quantity('Loan term', 'years', 1, 40, 'Loan term (years)', { int: true }),
     paymentsPerYear: z

@@ -48,9 +48,10 @@ const capitalItemSchema = z
     id: text('Capital line id', 'Stable id of the line within its option', 60),
     description: text('Capital line description', 'What is bought'),
     category: choice('Capital line category', capitalCategories, 'Kind of investment'),
-    quantity: quantity('Capital line quantity', '', 0, 1e7, 'How many units; null = sized automatically (per-stall: stalls; per-m3 manure storage: sized volume; per-item water: troughs; lump-sum: 1)')
+    quantity: quantity('Capital line quantity', '', 0, 1e7, 'How many units')
       .nullable()
-      .default(null),
+      .default(null)
+      .describe('How many units (per the unit); null = sized automatically (per-stall: stalls; per-m3 manure storage: sized volume; per-item water: troughs; lump-sum: 1)'),
     unit: choice('Capital line unit', capitalUnits, 'What the unit cost is per'),
     unitCost: money('Capital line unit cost', 'Cost per unit today (currency per unit)', 0, 1e9),
     lifeYears: quantity('Capital line life', 'years', 1, 60, 'Useful life (years)', { int: true }),
@@ -137,9 +138,10 @@ export const herdChangeSchema = z
       .default(null)
       .describe('Herd size per operating year, [0] = year 1; the last value carries on; null = baseline + added cows'),
     addedCows: quantity('Added cows', 'cows', -20000, 20000, 'Cows added from year 1 when cowsByYear is null (head; negative = fewer)', { int: true }).default(0),
-    addedCowCost: money('Added cow cost', 'Purchase or rearing cost of each added cow today; null = the herd replacement heifer cost (currency per head)', 0, 1e6)
+    addedCowCost: money('Added cow cost', 'Purchase or rearing cost of each added cow today (currency per head)', 0, 1e6)
       .nullable()
-      .default(null),
+      .default(null)
+      .describe('Purchase or rearing cost of each added cow today; null = the herd replacement heifer cost (currency per head)'),
   })
   .describe('How the option changes the herd size');
 
@@ -214,10 +216,10 @@ export const optionSchema = z
     water: waterSchema,
     bedding: beddingSchema,
     maintenanceRate: rate('Maintenance rate', 0, 0.2, 'Maintenance per year as a share of capital (fraction of capital per year)'),
-    energyLines: z.array(energyLineSchema).max(50, 'Energy lines: at most 50').default([]),
+    energyLines: z.array(energyLineSchema).max(50, 'Energy lines: at most 50').default([]).describe('Named electricity uses (kWh per year × price)'),
     manure: manureSchema,
-    capitalLines: z.array(capitalLineSchema).max(100, 'Capital lines: at most 100').default([]),
-    runningCosts: z.array(runningCostLineSchema).max(100, 'Running costs: at most 100').default([]),
+    capitalLines: z.array(capitalLineSchema).max(100, 'Capital lines: at most 100').default([]).describe('Capital lines bought at year 0 (currency, today\'s money)'),
+    runningCosts: z.array(runningCostLineSchema).max(100, 'Running costs: at most 100').default([]).describe('Other yearly running costs (currency per year)'),
     sources: sourcesSchema,
   })
   .superRefine((option, ctx) => {

@@ -14,7 +14,9 @@ export const riskInputKeys = [
 ] as const;
 export type RiskInputKey = (typeof riskInputKeys)[number];
 
-const riskKey = z.enum(riskInputKeys, { error: `Risk input must be one of: ${riskInputKeys.join(', ')}` });
+const riskKey = z
+  .enum(riskInputKeys, { error: `Risk input must be one of: ${riskInputKeys.join(', ')}` })
+  .describe('Which key input the distribution multiplies');
 
 const rangeSchema = (label: string) =>
   z
@@ -42,7 +44,7 @@ const multiplier = (label: string, description: string) => quantity(label, '', 0
 const triangularSchema = z
   .object({
     key: riskKey,
-    distribution: z.literal('triangular'),
+    distribution: z.literal('triangular').describe('Triangular distribution (min, mode, max)'),
     min: multiplier('Triangular minimum', 'Lowest multiplier on the base value (1 = as entered)'),
     mode: multiplier('Triangular mode', 'Most likely multiplier on the base value'),
     max: multiplier('Triangular maximum', 'Highest multiplier on the base value'),
@@ -55,7 +57,7 @@ const triangularSchema = z
 const normalSchema = z
   .object({
     key: riskKey,
-    distribution: z.literal('normal'),
+    distribution: z.literal('normal').describe('Normal distribution (mean, sd), optionally truncated'),
     mean: multiplier('Normal mean', 'Mean multiplier on the base value (1 = as entered)'),
     sd: quantity('Normal standard deviation', '', 0, 5, 'Standard deviation of the multiplier'),
     min: multiplier('Normal truncation minimum', 'Lowest multiplier kept (truncation)').optional(),
@@ -80,7 +82,7 @@ export const riskSchema = z
       .object({
         draws: quantity('Monte Carlo draws', 'draws', 100, 100000, 'Number of draws', { int: true }).default(5000),
         seed: quantity('Monte Carlo seed', '', 0, 2147483647, 'Seed of the generator (same seed → same numbers)', { int: true }).default(1),
-        inputs: z.array(monteCarloInputSchema).max(20, 'Monte Carlo inputs: at most 20').default([]),
+        inputs: z.array(monteCarloInputSchema).max(20, 'Monte Carlo inputs: at most 20').default([]).describe('Uncertain inputs and their distributions'),
       })
       .prefault({})
       .describe('Monte Carlo settings'),

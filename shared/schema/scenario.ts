@@ -32,7 +32,8 @@ export const scenarioSchema = z
     options: z
       .array(optionSchema)
       .min(1, 'Options: a scenario needs at least one option')
-      .max(12, 'Options: a scenario holds at most 12 options'),
+      .max(12, 'Options: a scenario holds at most 12 options')
+      .describe('Housing options (1..12), exactly one of them current'),
     finance: financeSchema,
     risk: riskSchema.prefault({}),
   })

@@ -1,4 +1,12 @@
-import type { SignInInput, SignUpInput, FarmRole } from '@shared/schema/accounts';
+import type {
+  ChangePasswordInput,
+  FarmRole,
+  PasswordResetInput,
+  PasswordResetRequestInput,
+  SignInInput,
+  SignUpInput,
+  UpdateProfileInput,
+} from '@shared/schema/accounts';
 import { http } from './client';
 
 export interface SessionUser {
@@ -18,4 +26,8 @@ export const authApi = {
   signIn: (input: SignInInput) => http.post<Session>('/auth/sign-in', input),
   signUp: (input: SignUpInput) => http.post<Session>('/auth/sign-up', input),
   signOut: () => http.post<void>('/auth/sign-out'),
+  updateProfile: (input: UpdateProfileInput) => http.patch<Session>('/auth/me', input),
+  changePassword: (input: ChangePasswordInput) => http.post<void>('/auth/me/password', input),
+  requestPasswordReset: (input: PasswordResetRequestInput) => http.post<{ message: string }>('/auth/password-reset/request', input),
+  completePasswordReset: (input: PasswordResetInput) => http.post<void>('/auth/password-reset/complete', input),
 };

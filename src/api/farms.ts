@@ -13,4 +13,5 @@ export interface FarmSummary {
 export const farmsApi = {
   list: () => http.get<FarmSummary[]>('/farms'),
   create: (input: CreateFarmInput) => http.post<FarmSummary>('/farms', input),
+  get: (farmId: number) => http.get<FarmSummary>(`/farms/${farmId}`),
 };

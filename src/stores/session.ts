@@ -2,7 +2,15 @@ import { defineStore } from 'pinia';
 import { computed, readonly, ref } from 'vue';
 import { authApi, type Session } from '@/api/auth';
 import { ApiError } from '@/api/client';
-import type { SignInInput, SignUpInput } from '@shared/schema/accounts';
+import { invitationsApi } from '@/api/members';
+import type {
+  AcceptInvitationInput,
+  ChangePasswordInput,
+  PasswordResetInput,
+  SignInInput,
+  SignUpInput,
+  UpdateProfileInput,
+} from '@shared/schema/accounts';
 
 /** Who is signed in. `ensureLoaded` shares one request between concurrent callers. */
 export const useSessionStore = defineStore('session', () => {
@@ -59,5 +67,49 @@ export const useSessionStore = defineStore('session', () => {
     await ensureLoaded();
   }
 
-  return { session: readonly(session), user, signedIn, loaded: readonly(loaded), ensureLoaded, signIn, signUp, signOut, forget, refresh };
+  async function updateProfile(input: UpdateProfileInput): Promise<void> {
+    session.value = await authApi.updateProfile(input);
+  }
+
+  /** Changes the password; the server ends every other session and renews this one. */
+  async function changePassword(input: ChangePasswordInput): Promise<void> {
+    await authApi.changePassword(input);
+  }
+
+  async function requestPasswordReset(email: string): Promise<string> {
+    return (await authApi.requestPasswordReset({ email })).message;
+  }
+
+  /** Sets the new password; every session ends, so this browser is signed out too. */
+  async function completePasswordReset(input: PasswordResetInput): Promise<void> {
+    await authApi.completePasswordReset(input);
+    session.value = null;
+    loaded.value = true;
+  }
+
+  /** Accepts an invitation (signing up when `input` carries name and password); returns the farm id. */
+  async function acceptInvitation(token: string, input: AcceptInvitationInput): Promise<number> {
+    const { farmId, ...accepted } = await invitationsApi.accept(token, input);
+    session.value = accepted;
+    loaded.value = true;
+    return farmId;
+  }
+
+  return {
+    session: readonly(session),
+    user,
+    signedIn,
+    loaded: readonly(loaded),
+    ensureLoaded,
+    signIn,
+    signUp,
+    signOut,
+    forget,
+    refresh,
+    updateProfile,
+    changePassword,
+    requestPasswordReset,
+    completePasswordReset,
+    acceptInvitation,
+  };
 });

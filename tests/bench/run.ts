@@ -4,6 +4,8 @@ import { createOption, STARTING_POINT_ORDER } from '../../shared/starting-points
 import { evaluateScenario } from '../../shared/engine/evaluate';
 import { runMonteCarlo } from '../../shared/engine/risk/monte-carlo';
 import { bench, formatTable, type TableRow } from './harness';
+import { reportBundleSizes } from './bundle-size';
+import { milkImportBench } from './milk-import';
 
 // Project targets: a live preview must feel instant, and a 10 000-draw risk run must finish
 // while the user watches, on one core (the browser gives the Worker one thread).
@@ -74,5 +76,8 @@ for (const horizon of [20, 40]) {
   });
 }
 
+rows.push(...milkImportBench());
+
 process.stdout.write(`Node ${process.version}, ${availableParallelism()} cores available, benchmarks run on one\n\n`);
 process.stdout.write(`${formatTable(rows)}\n`);
+reportBundleSizes(process.env.BYRECAST_DIST);

@@ -1,6 +1,6 @@
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import type { Database } from '../client.js';
-import { farmsTable, membershipsTable, type FarmRole } from '../schema/index.js';
+import { farmsTable, membershipsTable, usersTable, type FarmRole } from '../schema/index.js';
 
 export interface Farm {
   id: number;
@@ -39,4 +39,58 @@ export async function insertFarmWithOwner(
     await tx.insert(membershipsTable).values({ farmId: result.insertId, userId: ownerId, role: 'owner' });
     return result.insertId;
   });
+}
+
+/** A connection or an open transaction: member changes that check the owner count run in one. */
+export type Executor = Database | Parameters<Parameters<Database['transaction']>[0]>[0];
+
+export interface Member {
+  userId: number;
+  name: string;
+  email: string;
+  role: FarmRole;
+  since: Date;
+}
+
+export async function listMembers(db: Executor, farmId: number): Promise<Member[]> {
+  return db
+    .select({
+      userId: usersTable.id,
+      name: usersTable.name,
+      email: usersTable.email,
+      role: membershipsTable.role,
+      since: membershipsTable.createdAt,
+    })
+    .from(membershipsTable)
+    .innerJoin(usersTable, eq(usersTable.id, membershipsTable.userId))
+    .where(eq(membershipsTable.farmId, farmId))
+    .orderBy(usersTable.name);
+}
+
+/**
+ * The farm's memberships, locked until the transaction ends (SELECT … FOR UPDATE), so two
+ * owners demoting each other at once cannot leave the farm without an owner.
+ */
+export async function lockMemberships(tx: Executor, farmId: number): Promise<{ userId: number; role: FarmRole }[]> {
+  return tx
+    .select({ userId: membershipsTable.userId, role: membershipsTable.role })
+    .from(membershipsTable)
+    .where(eq(membershipsTable.farmId, farmId))
+    .for('update');
+}
+
+/** Adds the membership, or changes the role of an existing one. */
+export async function upsertMembership(db: Executor, farmId: number, userId: number, role: FarmRole): Promise<void> {
+  await db.insert(membershipsTable).values({ farmId, userId, role }).onDuplicateKeyUpdate({ set: { role } });
+}
+
+export async function updateMemberRole(db: Executor, farmId: number, userId: number, role: FarmRole): Promise<void> {
+  await db
+    .update(membershipsTable)
+    .set({ role })
+    .where(and(eq(membershipsTable.farmId, farmId), eq(membershipsTable.userId, userId)));
+}
+
+export async function deleteMembership(db: Executor, farmId: number, userId: number): Promise<void> {
+  await db.delete(membershipsTable).where(and(eq(membershipsTable.farmId, farmId), eq(membershipsTable.userId, userId)));
 }

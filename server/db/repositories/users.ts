@@ -1,6 +1,7 @@
-import { and, eq } from 'drizzle-orm';
+import { and, count, eq, isNull, sql } from 'drizzle-orm';
 import type { Database } from '../client.js';
-import { farmsTable, membershipsTable, usersTable, type FarmRole } from '../schema/index.js';
+import type { Executor } from './farms.js';
+import { farmsTable, membershipsTable, passwordResetsTable, usersTable, type FarmRole } from '../schema/index.js';
 
 export interface User {
   id: number;
@@ -36,14 +37,14 @@ export async function findUserByEmail(db: Database, email: string): Promise<(Use
 }
 
 export async function insertUser(
-  db: Database,
+  db: Executor,
   user: { email: string; name: string; passwordHash: string; isAdmin?: boolean },
 ): Promise<number> {
   const [result] = await db.insert(usersTable).values(user);
   return result.insertId;
 }
 
-export async function findMembership(db: Database, farmId: number, userId: number): Promise<FarmRole | null> {
+export async function findMembership(db: Executor, farmId: number, userId: number): Promise<FarmRole | null> {
   const [row] = await db
     .select({ role: membershipsTable.role })
     .from(membershipsTable)
@@ -57,4 +58,79 @@ export async function listMemberships(db: Database, userId: number): Promise<{ f
     .select({ farmId: membershipsTable.farmId, role: membershipsTable.role })
     .from(membershipsTable)
     .where(eq(membershipsTable.userId, userId));
+}
+
+/** Replaces the password hash and raises the token version, so every earlier session ends. */
+export async function setPasswordHash(db: Database, userId: number, passwordHash: string): Promise<void> {
+  await db
+    .update(usersTable)
+    .set({ passwordHash, tokenVersion: sql`${usersTable.tokenVersion} + 1` })
+    .where(eq(usersTable.id, userId));
+}
+
+export async function findPasswordHash(db: Database, userId: number): Promise<string | null> {
+  const [row] = await db.select({ hash: usersTable.passwordHash }).from(usersTable).where(eq(usersTable.id, userId));
+  return row?.hash ?? null;
+}
+
+export async function updateUserName(db: Database, userId: number, name: string): Promise<void> {
+  await db.update(usersTable).set({ name }).where(eq(usersTable.id, userId));
+}
+
+/** Disables or re-enables an account; disabling also ends its sessions. */
+export async function setUserDisabled(db: Database, userId: number, disabled: boolean): Promise<void> {
+  await db
+    .update(usersTable)
+    .set(disabled ? { disabled, tokenVersion: sql`${usersTable.tokenVersion} + 1` } : { disabled })
+    .where(eq(usersTable.id, userId));
+}
+
+export interface UserListing extends User {
+  farmCount: number;
+}
+
+/** Every account with how many farms it belongs to (no farm names: the administrator sees no farm data). */
+export async function listUsersWithFarmCount(db: Database): Promise<UserListing[]> {
+  const rows = await db
+    .select({ ...publicColumns, farmCount: count(membershipsTable.farmId) })
+    .from(usersTable)
+    .leftJoin(membershipsTable, eq(membershipsTable.userId, usersTable.id))
+    .groupBy(usersTable.id)
+    .orderBy(usersTable.email);
+  return rows.map((r) => ({ ...r, farmCount: Number(r.farmCount) }));
+}
+
+export async function insertPasswordReset(db: Database, reset: { userId: number; tokenHash: string; expiresAt: Date }): Promise<void> {
+  await db.insert(passwordResetsTable).values(reset);
+}
+
+export async function findPasswordResetByHash(
+  db: Database,
+  tokenHash: string,
+): Promise<{ id: number; userId: number; expiresAt: Date; usedAt: Date | null } | null> {
+  const [row] = await db
+    .select({ id: passwordResetsTable.id, userId: passwordResetsTable.userId, expiresAt: passwordResetsTable.expiresAt, usedAt: passwordResetsTable.usedAt })
+    .from(passwordResetsTable)
+    .where(eq(passwordResetsTable.tokenHash, tokenHash));
+  return row ?? null;
+}
+
+/**
+ * Marks a reset used, only if it was still unused: true for the one caller that wins, so two
+ * requests racing with the same link cannot both set a password.
+ */
+export async function claimPasswordReset(db: Database, resetId: number, now: Date): Promise<boolean> {
+  const [result] = await db
+    .update(passwordResetsTable)
+    .set({ usedAt: now })
+    .where(and(eq(passwordResetsTable.id, resetId), isNull(passwordResetsTable.usedAt)));
+  return result.affectedRows === 1;
+}
+
+/** Ends every other open reset link of the user (after one is used). */
+export async function closeOpenPasswordResets(db: Database, userId: number, now: Date): Promise<void> {
+  await db
+    .update(passwordResetsTable)
+    .set({ usedAt: now })
+    .where(and(eq(passwordResetsTable.userId, userId), isNull(passwordResetsTable.usedAt)));
 }

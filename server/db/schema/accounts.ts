@@ -7,9 +7,10 @@ import {
   mysqlTable,
   primaryKey,
   uniqueIndex,
+  char,
   varchar,
 } from 'drizzle-orm/mysql-core';
-import { createdAt, id, ref } from './columns.js';
+import { createdAt, id, ref, timestamp } from './columns.js';
 
 
 export const farmRoles = ['owner', 'partner', 'consultant', 'lender'] as const;
@@ -58,6 +59,47 @@ export const membershipsTable = mysqlTable(
   (t) => [primaryKey({ columns: [t.farmId, t.userId] }), index('memberships_user_idx').on(t.userId)],
 );
 
+/**
+ * An e-mailed invitation to join a farm with a role. Only the sha-256 of the token is stored, so
+ * a leaked database cannot be turned into working links; accepted or revoked rows are kept as history.
+ */
+export const invitationsTable = mysqlTable(
+  'invitations',
+  {
+    id: id(),
+    farmId: ref('farm_id')
+      .notNull()
+      .references(() => farmsTable.id, { onDelete: 'cascade' }),
+    email: varchar('email', { length: 254 }).notNull(),
+    role: mysqlEnum('role', farmRoles).notNull(),
+    tokenHash: char('token_hash', { length: 64 }).notNull(),
+    invitedBy: ref('invited_by').references(() => usersTable.id, { onDelete: 'set null' }),
+    expiresAt: timestamp('expires_at').notNull(),
+    acceptedAt: timestamp('accepted_at'),
+    revokedAt: timestamp('revoked_at'),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('invitations_token_hash_unique').on(t.tokenHash), index('invitations_farm_idx').on(t.farmId)],
+);
+
+/** A password-reset request: the sha-256 of a single-use token that expires after an hour. */
+export const passwordResetsTable = mysqlTable(
+  'password_resets',
+  {
+    id: id(),
+    userId: ref('user_id')
+      .notNull()
+      .references(() => usersTable.id, { onDelete: 'cascade' }),
+    tokenHash: char('token_hash', { length: 64 }).notNull(),
+    expiresAt: timestamp('expires_at').notNull(),
+    usedAt: timestamp('used_at'),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('password_resets_token_hash_unique').on(t.tokenHash), index('password_resets_user_idx').on(t.userId)],
+);
+
 export type UserRow = typeof usersTable.$inferSelect;
 export type FarmRow = typeof farmsTable.$inferSelect;
 export type MembershipRow = typeof membershipsTable.$inferSelect;
+export type InvitationRow = typeof invitationsTable.$inferSelect;
+export type PasswordResetRow = typeof passwordResetsTable.$inferSelect;

@@ -1,0 +1,31 @@
+/** /api/invitations/:token — the invitee's side: open to anyone holding the link. */
+import { Router } from 'express';
+import { z } from 'zod';
+import { acceptInvitationSchema, emailTokenSchema } from '../../shared/schema/accounts.js';
+import type { AppDeps } from '../app.js';
+import { issueSession } from '../auth/session.js';
+import { listMemberships } from '../db/repositories/users.js';
+import { parseOrThrow } from '../errors.js';
+import { acceptInvitation, previewInvitation } from '../services/invitations.js';
+import { publicUser } from './auth.js';
+
+const tokenParams = z.object({ token: emailTokenSchema });
+
+export function invitationRoutes({ db, config }: AppDeps): Router {
+  const router = Router();
+
+  router.get('/:token', async (req, res) => {
+    const { token } = parseOrThrow(tokenParams, req.params);
+    res.json(await previewInvitation(db, token));
+  });
+
+  router.post('/:token/accept', async (req, res) => {
+    const { token } = parseOrThrow(tokenParams, req.params);
+    const input = parseOrThrow(acceptInvitationSchema, req.body);
+    const { user, farmId, created } = await acceptInvitation(db, token, req.user ?? null, input, config.bcryptCost);
+    if (created) issueSession(res, req, config.jwtSecret, user.id, user.tokenVersion);
+    res.status(created ? 201 : 200).json({ user: publicUser(user), memberships: await listMemberships(db, user.id), farmId });
+  });
+
+  return router;
+}

@@ -1,0 +1,39 @@
+/** Review notes and status of lender shares, under /api/farms/:farmId: parse → service → respond. */
+import type { Request, Router } from 'express';
+import { createNoteSchema, replySchema, reviewStatusSchema } from '../../shared/schema/lender.js';
+import type { AppDeps } from '../app.js';
+import { farmAccess, farmRouter } from '../auth/middleware.js';
+import { parseOrThrow } from '../errors.js';
+import { addLenderNote, replyToNote, scenarioReviews, setShareStatus, type ReviewActor } from '../services/review-notes.js';
+import { farmActor, pathId } from './lender-shares.js';
+
+function reviewActor(req: Request): ReviewActor {
+  return { ...farmActor(req), role: farmAccess(req).role };
+}
+
+export function reviewNoteRoutes({ db, mailer, config }: AppDeps): Router {
+  const { router, route } = farmRouter(db);
+  const ctx = { db, mailer, appOrigin: config.appOrigin };
+
+  route('get', '/scenarios/:scenarioId/reviews', 'scenario:read', async (req, res) => {
+    res.json(await scenarioReviews(db, reviewActor(req), pathId(req, 'scenarioId', 'Scenario id')));
+  });
+  route('post', '/lender-shares/:shareId/notes', 'review:write', async (req, res) => {
+    const shareId = pathId(req, 'shareId', 'Share id');
+    const input = parseOrThrow(createNoteSchema, req.body);
+    res.status(201).json(await addLenderNote(db, reviewActor(req), shareId, input));
+  });
+  route('post', '/lender-shares/:shareId/notes/:noteId/replies', 'review:reply', async (req, res) => {
+    const shareId = pathId(req, 'shareId', 'Share id');
+    const noteId = pathId(req, 'noteId', 'Note id');
+    const input = parseOrThrow(replySchema, req.body);
+    res.status(201).json(await replyToNote(db, reviewActor(req), shareId, noteId, input.body));
+  });
+  route('put', '/lender-shares/:shareId/status', 'review:write', async (req, res) => {
+    const shareId = pathId(req, 'shareId', 'Share id');
+    const input = parseOrThrow(reviewStatusSchema, req.body);
+    res.json(await setShareStatus(ctx, reviewActor(req), shareId, input.status));
+  });
+
+  return router;
+}

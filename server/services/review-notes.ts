@@ -1,0 +1,205 @@
+/**
+ * Review notes and the review status of a lender share. The lender writes notes on the version
+ * shared with them (optionally about one option or one line) and sets the status; the farm's
+ * members read them, answer in a thread and get an e-mail when the status changes. Every note,
+ * reply and status change goes into the audit log in the same transaction.
+ */
+import { REVIEW_STATUS_LABELS, type ReviewStatusValue } from '../../shared/schema/lender.js';
+import type { z } from 'zod';
+import type { createNoteSchema } from '../../shared/schema/lender.js';
+import type { Scenario } from '../../shared/schema/index.js';
+import type { Database } from '../db/client.js';
+import { findFarm, listMembers } from '../db/repositories/farms.js';
+import { findNote, findShare, insertNote, listNotes, listShares, setReviewStatus, type NoteRecord, type ShareRecord } from '../db/repositories/lender.js';
+import { findVersion } from '../db/repositories/scenarios.js';
+import type { FarmRole } from '../db/schema/index.js';
+import { AppError, notFound } from '../errors.js';
+import { reviewStatusMail } from '../mail/lender-templates.js';
+import { recordAudit } from './audit.js';
+import { liveSharesOf, shareState } from './lender-access.js';
+import { shareSubject, toShareView, type FarmActor, type LenderContext, type ShareView } from './lender-shares.js';
+import { canSeeScenario } from './scenarios.js';
+
+/** A caller with their farm role, as the farm route resolved it. */
+export interface ReviewActor extends FarmActor {
+  role: FarmRole;
+}
+
+export interface NoteView {
+  id: number;
+  author: string | null;
+  authorRole: FarmRole;
+  optionId: string | null;
+  /** The option's name in the shared version, when the note is about one. */
+  optionName: string | null;
+  lineRef: string | null;
+  body: string;
+  createdAt: Date;
+  replies: Omit<NoteView, 'replies'>[];
+}
+
+export interface ShareReview {
+  share: ShareView;
+  notes: NoteView[];
+}
+
+/** Arranges notes (oldest first) into threads: top-level notes, each with its replies in order. */
+export function threadNotes(notes: readonly NoteRecord[], optionNames: ReadonlyMap<string, string>): NoteView[] {
+  const flat = (n: NoteRecord): Omit<NoteView, 'replies'> => ({
+    id: n.id,
+    author: n.authorName,
+    authorRole: n.authorRole,
+    optionId: n.optionId,
+    optionName: n.optionId ? (optionNames.get(n.optionId) ?? null) : null,
+    lineRef: n.lineRef,
+    body: n.body,
+    createdAt: n.createdAt,
+  });
+  const roots = new Map<number, NoteView>();
+  for (const note of notes) if (note.parentId === null) roots.set(note.id, { ...flat(note), replies: [] });
+  for (const note of notes) if (note.parentId !== null) roots.get(note.parentId)?.replies.push(flat(note));
+  return [...roots.values()];
+}
+
+async function optionNamesOf(db: Database, share: Pick<ShareRecord, 'scenarioId' | 'version'>): Promise<Map<string, string>> {
+  const version = await findVersion(db, share.scenarioId, share.version);
+  const document = version?.document as Scenario | undefined;
+  return new Map((document?.options ?? []).map((o) => [o.id, o.name]));
+}
+
+/**
+ * The reviews of one scenario the caller may read: for members every share of it, for a lender
+ * only their own live shares (a scenario without one is "not found", as everywhere else).
+ */
+export async function scenarioReviews(db: Database, actor: ReviewActor, scenarioId: number, now = new Date()): Promise<ShareReview[]> {
+  let shares: ShareRecord[];
+  if (actor.role === 'lender') {
+    const live = await liveSharesOf(db, actor.farmId, actor.user.id, now);
+    if (!canSeeScenario(actor.role, scenarioId, new Set(live.map((s) => s.scenarioId)))) throw notFound('Scenario not found');
+    shares = live.filter((s) => s.scenarioId === scenarioId);
+  } else {
+    shares = await listShares(db, actor.farmId, scenarioId);
+  }
+  const notes = await listNotes(db, shares.map((s) => s.id));
+  return Promise.all(
+    shares.map(async (share) => ({
+      share: toShareView(share, now),
+      notes: threadNotes(
+        notes.filter((n) => n.shareId === share.id),
+        await optionNamesOf(db, share),
+      ),
+    })),
+  );
+}
+
+/** The share a lender acts on: theirs and live, or 404 (a revoked or expired share ends writing too). */
+async function lendersLiveShare(db: Database, actor: ReviewActor, shareId: number, now: Date): Promise<ShareRecord> {
+  const share = await findShare(db, actor.farmId, shareId);
+  if (!share || share.lenderUserId !== actor.user.id || shareState(share, now) !== 'live') throw notFound('Share not found');
+  return share;
+}
+
+const auditActor = (actor: ReviewActor) => ({ farmId: actor.farmId, userId: actor.user.id, name: actor.user.name });
+
+async function noteView(db: Database, actor: ReviewActor, share: ShareRecord, noteId: number): Promise<Omit<NoteView, 'replies'>> {
+  const note = await findNote(db, actor.farmId, noteId);
+  if (!note) throw new Error('note vanished after insert');
+  const [view] = threadNotes([{ ...note, parentId: null }], await optionNamesOf(db, share));
+  if (!view) throw new Error('note vanished after insert');
+  const { replies: _replies, ...rest } = view;
+  return rest;
+}
+
+/** The thread a new note joins: the root of `parentId`, which must be a note of the same share. */
+async function threadRoot(db: Database, farmId: number, shareId: number, parentId: number): Promise<number> {
+  const parent = await findNote(db, farmId, parentId);
+  if (!parent || parent.shareId !== shareId) throw new AppError(400, 'invalid_input', 'parentId: no such note on this share', { parentId: 'No such note on this share' });
+  return parent.parentId ?? parent.id;
+}
+
+/**
+ * The lender's note on their live share. `optionId`, when given, must be an option of the shared
+ * version; `lineRef` names a line (and needs an option); `parentId` answers a note in a thread.
+ */
+export async function addLenderNote(db: Database, actor: ReviewActor, shareId: number, input: z.output<typeof createNoteSchema>, now = new Date()): Promise<Omit<NoteView, 'replies'>> {
+  const share = await lendersLiveShare(db, actor, shareId, now);
+  const options = await optionNamesOf(db, share);
+  if (input.optionId !== undefined && !options.has(input.optionId)) {
+    throw new AppError(400, 'invalid_input', 'optionId: no such option in the shared version', { optionId: 'No such option in the shared version' });
+  }
+  if (input.lineRef !== undefined && input.optionId === undefined) {
+    throw new AppError(400, 'invalid_input', 'optionId: choose the option the line belongs to', { optionId: 'Choose the option the line belongs to' });
+  }
+  const parentId = input.parentId === undefined ? null : await threadRoot(db, actor.farmId, shareId, input.parentId);
+  const id = await db.transaction(async (tx) => {
+    const noteId = await insertNote(tx, {
+      farmId: actor.farmId,
+      scenarioId: share.scenarioId,
+      shareId,
+      authorId: actor.user.id,
+      authorRole: actor.role,
+      optionId: input.optionId ?? null,
+      lineRef: input.lineRef ?? null,
+      parentId,
+      body: input.body,
+    });
+    await recordAudit(tx, auditActor(actor), parentId === null ? 'note.added' : 'note.replied', shareSubject(share), {
+      shareId,
+      noteId,
+      scenarioId: share.scenarioId,
+      version: share.version,
+      ...(input.optionId ? { optionId: input.optionId } : {}),
+      ...(input.lineRef ? { lineRef: input.lineRef } : {}),
+    });
+    return noteId;
+  });
+  return noteView(db, actor, share, id);
+}
+
+/** A member's answer in the thread of a note on one of the farm's shares (any state: answering a closed review is still a record). */
+export async function replyToNote(db: Database, actor: ReviewActor, shareId: number, noteId: number, body: string): Promise<Omit<NoteView, 'replies'>> {
+  const share = await findShare(db, actor.farmId, shareId);
+  if (!share) throw notFound('Share not found');
+  const note = await findNote(db, actor.farmId, noteId);
+  if (!note || note.shareId !== shareId) throw notFound('Note not found');
+  const rootId = note.parentId ?? note.id;
+  const id = await db.transaction(async (tx) => {
+    const replyId = await insertNote(tx, { farmId: actor.farmId, scenarioId: share.scenarioId, shareId, authorId: actor.user.id, authorRole: actor.role, optionId: null, lineRef: null, parentId: rootId, body });
+    await recordAudit(tx, auditActor(actor), 'note.replied', shareSubject(share), { shareId, noteId: replyId, inReplyTo: rootId, scenarioId: share.scenarioId, version: share.version });
+    return replyId;
+  });
+  return noteView(db, actor, share, id);
+}
+
+/**
+ * Sets the review status of the lender's live share. A change is audited and e-mailed to the
+ * farm's members (owner, partners, consultant); setting the status it already has changes nothing.
+ */
+export async function setShareStatus(ctx: LenderContext, actor: ReviewActor, shareId: number, status: ReviewStatusValue, now = new Date()): Promise<ShareView> {
+  const share = await lendersLiveShare(ctx.db, actor, shareId, now);
+  if (share.reviewStatus === status) return toShareView(share, now);
+  await ctx.db.transaction(async (tx) => {
+    await setReviewStatus(tx, shareId, status, actor.user.id, now);
+    await recordAudit(tx, auditActor(actor), 'review.status', shareSubject(share), { shareId, scenarioId: share.scenarioId, version: share.version, from: share.reviewStatus, to: status });
+  });
+  const [farm, members, notes] = await Promise.all([findFarm(ctx.db, actor.farmId), listMembers(ctx.db, actor.farmId), listNotes(ctx.db, [shareId])]);
+  const latestNote = notes.filter((n) => n.authorRole === 'lender').at(-1);
+  const link = `${ctx.appOrigin}/farms/${actor.farmId}/scenarios/${share.scenarioId}/lender`;
+  for (const member of members.filter((m) => m.role !== 'lender')) {
+    await ctx.mailer.send(
+      reviewStatusMail({
+        to: member.email,
+        farmName: farm?.name ?? 'your farm',
+        scenarioName: share.scenarioName,
+        version: share.version,
+        lenderName: actor.user.name,
+        status: REVIEW_STATUS_LABELS[status],
+        ...(latestNote ? { note: latestNote.body.slice(0, 500) } : {}),
+        link,
+      }),
+    );
+  }
+  const updated = await findShare(ctx.db, actor.farmId, shareId);
+  if (!updated) throw notFound('Share not found');
+  return toShareView(updated, now);
+}

@@ -1,0 +1,240 @@
+import type { Option, Scenario } from '../schema';
+import { roundCentsFast } from './cents';
+import { coverageRatio, lowestByYear } from './coverage';
+import {
+  capitalRecoveryFactor,
+  discountedPaybackYears,
+  mirr,
+  npv,
+  paybackYears,
+  profitabilityIndex,
+} from './finance';
+import { toCents } from './money';
+import { planOption, projectOption, type OptionPlan, type Projection, type ProjectionOverrides } from './projection';
+import type { CoverageYear, FastOptionResult, IncrementalResult, Metrics, OptionResult, ScenarioResults } from './results';
+import { irrFast } from './irr-fast';
+import { findRoot } from './root';
+import { checkStallDimensions, checkWater } from './sizing';
+
+/** The current option (the schema guarantees exactly one; the first option otherwise). */
+export function currentOptionOf(scenario: Scenario): Option {
+  const current = scenario.options.find((option) => option.current) ?? scenario.options[0];
+  if (!current) throw new RangeError('options must hold at least one option');
+  return current;
+}
+
+/** Investment metrics of a cash-flow series (flows[0] at t = 0; numpy / `financial` npv convention); rates per year as fractions. */
+export function metricsOf(cashFlows: number[], discountRate: number, financeRate: number): Metrics {
+  const irrResult = irrFast(cashFlows);
+  return {
+    cashFlows,
+    npv: npv(discountRate, cashFlows),
+    irr: irrResult.value,
+    ...(irrResult.value === null ? { irrReason: irrResult.reason } : {}),
+    mirr: finiteOrNull(mirr(cashFlows, financeRate, discountRate)),
+    paybackYears: paybackYears(cashFlows),
+    discountedPaybackYears: discountedPaybackYears(discountRate, cashFlows),
+    profitabilityIndex: finiteOrNull(profitabilityIndex(discountRate, cashFlows)),
+  };
+}
+
+function finiteOrNull(value: number | null): number | null {
+  return value !== null && Number.isFinite(value) ? value : null;
+}
+
+/** Coverage per year 1..H: project (incremental) and whole-farm; see CoverageYear. */
+function coverageOf(scenario: Scenario, plan: OptionPlan, own: Projection, current: Projection, isCurrent: boolean): CoverageYear[] {
+  const { existingCashForDebtServicePerYear: existingCash, existingDebtPaymentsPerYear: existingDebt } = scenario.herd;
+  const years: CoverageYear[] = [];
+  for (let t = 1; t <= plan.horizon; t++) {
+    const debtService = (plan.interestByYear[t] ?? 0) + (plan.principalByYear[t] ?? 0);
+    const change = isCurrent ? 0 : (own.cashForDebtService[t] ?? 0) - (current.cashForDebtService[t] ?? 0);
+    years.push({
+      year: t,
+      project: isCurrent ? null : coverageRatio(change, debtService),
+      wholeFarm: coverageRatio(existingCash + change, existingDebt + debtService),
+    });
+  }
+  return years;
+}
+
+/**
+ * Equivalent annual cost of the capital per stall (currency per stall per year): (capital +
+ * PV of replacements − PV of salvage) × capital recovery factor at the discount rate over H ÷ stalls.
+ */
+function equivalentAnnualCostPerStall(plan: OptionPlan, discountRate: number): number | null {
+  if (plan.stalls <= 0) return null;
+  let present = plan.capitalTotal;
+  for (let t = 1; t <= plan.horizon; t++) present += (plan.replacementsByYear[t] ?? 0) / (1 + discountRate) ** t;
+  present -= plan.salvage / (1 + discountRate) ** plan.horizon;
+  return toCents((present * capitalRecoveryFactor(discountRate, plan.horizon)) / plan.stalls);
+}
+
+/** NPV (currency) of this option's flows minus the current option's, unrounded, for the break-even search. */
+function incrementalNpvAt(scenario: Scenario, option: Option, plan: OptionPlan, current: Option, currentPlan: OptionPlan, overrides: ProjectionOverrides): number {
+  const own = projectOption(scenario, option, plan, current.lyingHoursPerDay, 'none', false, overrides).cashFlows;
+  const base = projectOption(scenario, current, currentPlan, current.lyingHoursPerDay, 'none', false, overrides).cashFlows;
+  const rate = scenario.finance.discountRate;
+  let total = 0;
+  for (let t = 0; t < own.length; t++) total += ((own[t] ?? 0) - (base[t] ?? 0)) / (1 + rate) ** t;
+  return total;
+}
+
+// The searches cover 0..10× today's milk price (at least 0..1 a kg) and 0..5 kg/cow/day per hour
+// (the schema's range for g).
+const MILK_PRICE_SEARCH_MULTIPLE = 10;
+const MILK_PRICE_SEARCH_FLOOR = 1;
+const LYING_RESPONSE_SEARCH_MAX = 5;
+
+type BreakEvens = Pick<IncrementalResult, 'breakEvenMilkPrice' | 'breakEvenMilkPriceReason' | 'breakEvenLyingResponse' | 'breakEvenLyingResponseReason'>;
+
+function breakEvens(scenario: Scenario, option: Option, plan: OptionPlan, current: Option, currentPlan: OptionPlan): BreakEvens {
+  const base = scenario.herd.milkPricePerKg;
+  const priceHi = Math.max(base * MILK_PRICE_SEARCH_MULTIPLE, MILK_PRICE_SEARCH_FLOOR);
+  const price = findRoot(
+    (p) => incrementalNpvAt(scenario, option, plan, current, currentPlan, { milkPricePerKg: p }),
+    0,
+    priceHi,
+    { tolerance: priceHi * 1e-10 },
+  );
+  const result: BreakEvens = {
+    breakEvenMilkPrice: price.value,
+    ...(price.value === null ? { breakEvenMilkPriceReason: 'none-in-range' as const } : {}),
+    breakEvenLyingResponse: null,
+  };
+  if (option.lyingHoursPerDay === current.lyingHoursPerDay) {
+    return { ...result, breakEvenLyingResponseReason: 'same-lying-time' };
+  }
+  const response = findRoot(
+    (g) => incrementalNpvAt(scenario, option, plan, current, currentPlan, { lyingResponseKgPerHour: g }),
+    0,
+    LYING_RESPONSE_SEARCH_MAX,
+    { tolerance: 1e-9 },
+  );
+  return {
+    ...result,
+    breakEvenLyingResponse: response.value,
+    ...(response.value === null ? { breakEvenLyingResponseReason: 'none-in-range' as const } : {}),
+  };
+}
+
+/**
+ * Evaluates every option of a valid scenario (currency of the scenario, nominal, money in cents):
+ * yearly lines, loan schedule, metrics on the project cash flow (year 0 = grants − capital −
+ * cows bought for year 1), coverage, and for each option but the current one the incremental
+ * flows against the current option with break-even milk price and lying-time response.
+ */
+export function evaluateScenario(scenario: Scenario): ScenarioResults {
+  const current = currentOptionOf(scenario);
+  const { discountRate, interestRate, coverageThreshold } = scenario.finance;
+  const evaluated = scenario.options.map((option) => {
+    const { plan, loan } = planOption(scenario, option, 'ledger');
+    const projection = projectOption(scenario, option, plan, current.lyingHoursPerDay, 'ledger', true);
+    return { option, plan, loan, projection };
+  });
+  const base = evaluated.find((entry) => entry.option === current) ?? evaluated[0];
+  if (!base) throw new RangeError('options must hold at least one option');
+
+  const options = evaluated.map(({ option, plan, loan, projection }): OptionResult => {
+    const isCurrent = option === current;
+    const lines = projection.lines ?? [];
+    const coverage = coverageOf(scenario, plan, projection, base.projection, isCurrent);
+    const result: OptionResult = {
+      id: option.id,
+      name: option.name,
+      current: isCurrent,
+      ...metricsOf(projection.cashFlows, discountRate, interestRate),
+      stalls: plan.stalls,
+      capitalTotal: toCents(plan.capitalTotal),
+      capitalPerStall: plan.stalls > 0 ? toCents(plan.capitalTotal / plan.stalls) : null,
+      equivalentAnnualCostPerStall: equivalentAnnualCostPerStall(plan, discountRate),
+      financing: { grants: toCents(plan.grants), equity: toCents(plan.equity), loanAmount: toCents(plan.loanAmount) },
+      years: lines,
+      financedCashFlows: lines.map((line) => line.financedCashFlow),
+      loan: { amount: toCents(plan.loanAmount), ...(loan ?? { payments: [], years: [], totalInterest: 0, totalPrincipal: 0 }) },
+      coverage,
+      lowestCoverage: lowestByYear(coverage.map((c) => ({ year: c.year, value: c.wholeFarm }))),
+      lowestProjectCoverage: lowestByYear(coverage.map((c) => ({ year: c.year, value: c.project }))),
+      yearsBelowCoverageThreshold: coverage.filter((c) => c.wholeFarm !== null && c.wholeFarm < coverageThreshold).map((c) => c.year),
+      labourHoursPerYear: lines.map((line) => line.labourHours.total),
+      beddingTonnesPerYear: lines.map((line) => line.beddingTonnes),
+      manureFertiliserValuePerYear: lines.map((line) => line.manureValue),
+      sizing: {
+        designCows: plan.designCows,
+        stalls: plan.stalls,
+        stallCheck: checkStallDimensions(option.stallDimensions, scenario.herd.breedSize),
+        waterCheck: checkWater(plan.designCows, option.water.troughs, option.water.troughPerimeterM, option.water.fillRateLitresPerMinute),
+        manureStorageM3: plan.storageM3,
+      },
+    };
+    if (!isCurrent) {
+      const flows = projection.cashFlows.map((cf, t) => toCents(cf - (base.projection.cashFlows[t] ?? 0)));
+      result.incremental = { ...metricsOf(flows, discountRate, interestRate), ...breakEvens(scenario, option, plan, current, base.plan) };
+    }
+    return result;
+  });
+  return { horizonYears: scenario.horizonYears, currency: scenario.currency, currentOptionId: current.id, options };
+}
+
+export interface FastEvaluationOptions {
+  /** Also solve the incremental IRR (slower when the incremental flows change sign several times). */
+  incrementalIrr?: boolean;
+}
+
+function npvFast(rate: number, flows: readonly number[]): number {
+  const factor = 1 / (1 + rate);
+  let discount = 1;
+  let total = 0;
+  for (let t = 0; t < flows.length; t++) {
+    total += (flows[t] ?? 0) * discount;
+    discount *= factor;
+  }
+  return total;
+}
+
+/**
+ * Fast path for Monte Carlo and sensitivity: NPV, incremental NPV against the current option,
+ * IRR and lowest coverage per option, in floating point without decimal.js or yearly detail.
+ * Cents are rounded as in the ledger, so results agree with evaluateScenario to the cent.
+ */
+export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOptions = {}): FastOptionResult[] {
+  const current = currentOptionOf(scenario);
+  const { discountRate } = scenario.finance;
+  const runs = scenario.options.map((option) => {
+    const { plan } = planOption(scenario, option, 'fast');
+    return { option, plan, projection: projectOption(scenario, option, plan, current.lyingHoursPerDay, 'fast', false) };
+  });
+  const base = runs.find((run) => run.option === current) ?? runs[0];
+  if (!base) return [];
+  const baseNpv = npvFast(discountRate, base.projection.cashFlows);
+  const { existingCashForDebtServicePerYear: existingCash, existingDebtPaymentsPerYear: existingDebt } = scenario.herd;
+  return runs.map(({ option, plan, projection }) => {
+    const isCurrent = option === current;
+    const flows = projection.cashFlows;
+    const optionNpv = npvFast(discountRate, flows);
+    // Same ratios as coverageOf, without building the per-year objects.
+    let minCoverage: number | null = null;
+    let minProjectCoverage: number | null = null;
+    for (let t = 1; t <= plan.horizon; t++) {
+      const debtService = (plan.interestByYear[t] ?? 0) + (plan.principalByYear[t] ?? 0);
+      const change = isCurrent ? 0 : (projection.cashForDebtService[t] ?? 0) - (base.projection.cashForDebtService[t] ?? 0);
+      const wholeFarm = coverageRatio(existingCash + change, existingDebt + debtService);
+      if (wholeFarm !== null && (minCoverage === null || wholeFarm < minCoverage)) minCoverage = wholeFarm;
+      const project = isCurrent ? null : coverageRatio(change, debtService);
+      if (project !== null && (minProjectCoverage === null || project < minProjectCoverage)) minProjectCoverage = project;
+    }
+    let incrementalIrr: number | null = null;
+    if (settings.incrementalIrr && !isCurrent) {
+      incrementalIrr = irrFast(flows.map((cf, t) => roundCentsFast(cf - (base.projection.cashFlows[t] ?? 0)))).value;
+    }
+    return {
+      id: option.id,
+      npv: optionNpv,
+      incrementalNpv: isCurrent ? null : optionNpv - baseNpv,
+      irr: irrFast(flows).value,
+      incrementalIrr,
+      minCoverage,
+      minProjectCoverage,
+    };
+  });
+}

@@ -1,0 +1,65 @@
+import { IRR_RANGE, irr, type IrrResult } from './finance';
+
+function signChanges(flows: readonly number[]): number {
+  let changes = 0;
+  let previous = 0;
+  for (const cf of flows) {
+    if (cf === 0) continue;
+    const sign = cf > 0 ? 1 : -1;
+    if (previous !== 0 && sign !== previous) changes++;
+    previous = sign;
+  }
+  return changes;
+}
+
+// NPV at rate r and its derivative d/dr, flows[0] at t = 0.
+function npvAndSlope(flows: readonly number[], rate: number): [number, number] {
+  const v = 1 / (1 + rate);
+  let power = 1;
+  let value = 0;
+  let slope = 0;
+  for (let t = 0; t < flows.length; t++) {
+    const cf = flows[t] ?? 0;
+    value += cf * power;
+    slope -= t * cf * power * v;
+    power *= v;
+  }
+  return [value, slope];
+}
+
+const TOLERANCE = 1e-13;
+const MAX_ITERATIONS = 200;
+
+/**
+ * IRR per year (flows[0] at t = 0), as finance.ts irr over the same range [−0.99, 10], for the
+ * fast path: with one sign change (a single root) it runs a bracketed Newton search; otherwise
+ * it defers to finance.ts irr, so the two agree on every input.
+ */
+export function irrFast(flows: readonly number[]): IrrResult {
+  const changes = signChanges(flows);
+  if (changes !== 1) return irr(flows);
+  let lo: number = IRR_RANGE.lo;
+  let hi: number = IRR_RANGE.hi;
+  const fLo = npvAndSlope(flows, lo)[0];
+  const fHi = npvAndSlope(flows, hi)[0];
+  if (fLo === 0) return { value: lo };
+  if (fHi === 0) return { value: hi };
+  if (fLo > 0 === fHi > 0) return { value: null, reason: 'no-root' };
+  // Keep f(neg) < 0 < f(pos) so the bracket update does not depend on the slope's sign.
+  let neg = fLo < 0 ? lo : hi;
+  let pos = fLo < 0 ? hi : lo;
+  let rate = Math.min(Math.max(0.1, lo), hi);
+  for (let i = 0; i < MAX_ITERATIONS; i++) {
+    const [value, slope] = npvAndSlope(flows, rate);
+    if (value === 0) return { value: rate };
+    if (value < 0) neg = rate;
+    else pos = rate;
+    lo = Math.min(neg, pos);
+    hi = Math.max(neg, pos);
+    let next = slope !== 0 ? rate - value / slope : Number.NaN;
+    if (!(next > lo && next < hi)) next = (lo + hi) / 2;
+    if (Math.abs(next - rate) <= TOLERANCE * (1 + Math.abs(rate))) return { value: next };
+    rate = next;
+  }
+  return { value: rate };
+}

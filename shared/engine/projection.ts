@@ -1,0 +1,489 @@
+import type { Option, Scenario } from '../schema';
+import { beddingCostPerYear, beddingToStorageM3PerYear, beddingTonnesPerYear } from './bedding';
+import {
+  capitalAssets,
+  capitalTotal,
+  maintenanceCostPerYear,
+  purchaseSchedule,
+  replacementsByYear,
+  salvageAtHorizon,
+  type CapitalAsset,
+} from './capital';
+import { decliningBalanceFast, loanYearsFast, roundCentsFast, straightLineFast } from './cents';
+import { toCents } from './money';
+import { baseFeedCostPerYear, effectiveHousedDays, grazingDaysPerYear, marginalFeedCostPerYear } from './feed';
+import { loanSchedule, type LoanInput, type LoanSchedule } from './finance';
+import { cullingCostPerYear, healthCostPerYear } from './health';
+import { cowsPerYear, herdPurchasesByYear, herdValueAtHorizon } from './herd-size';
+import {
+  bedCareHoursPerYear,
+  beddingTopUpHoursPerYear,
+  grazingHoursPerYear,
+  labourCost,
+  scrapingHoursPerYear,
+  troughHoursPerYear,
+} from './labour';
+import { collectedManurePerYear, fertiliserValue, K_TO_K2O, manureHandlingCostPerYear, P_TO_P2O5, storedVolumeM3PerYear } from './manure';
+import type { YearLine } from './results';
+import { manureStorageVolumeM3, stallsFor } from './sizing';
+import { taxableIncome, taxDepreciation, taxForYear, type DepreciationSchedule } from './tax';
+import { milkSoldKgPerYear, rampFraction, yieldPerCowDay } from './yield';
+
+/** Everything about an option that does not change with prices: herd, sizing, capital, tax depreciation, loan. */
+export interface OptionPlan {
+  horizon: number;
+  cows: number[];
+  designCows: number;
+  stalls: number;
+  housedDays: number;
+  grazingDays: number;
+  storageM3: number;
+  assets: CapitalAsset[];
+  capitalTotal: number;
+  replacementsByYear: number[];
+  salvage: number;
+  depreciationByYear: number[];
+  taxBookValueAtHorizon: number;
+  grants: number;
+  equity: number;
+  loanAmount: number;
+  /** Loan interest and principal per year (currency), index = year, [0] = 0. */
+  interestByYear: number[];
+  principalByYear: number[];
+  loanBalanceAtHorizon: number;
+  herdPurchasesByYear: number[];
+  herdValueAtHorizon: number;
+}
+
+/** 'ledger' also builds the decimal.js loan schedule (for display); 'fast' only its yearly totals in floating point (same cents). */
+export type PlanMode = 'ledger' | 'fast';
+
+/**
+ * Manure storage volume (m³) for an option's design herd: manure collected, wash water and
+ * bedding per day, rain on the open store, over the storage period, plus freeboard.
+ */
+export function optionStorageM3(scenario: Scenario, option: Option, designCows: number, stalls: number): number {
+  const { herd } = scenario;
+  const manureKgPerDay = designCows * herd.manureExcretion.massKgPerCowDay * option.manure.collectionEfficiency;
+  const beddingTonnesPerDay = beddingTonnesPerYear(option.bedding.kgPerStallDay, stalls, 1);
+  return manureStorageVolumeM3({
+    manureM3PerDay: manureKgPerDay / herd.manureDensityKgPerM3,
+    washWaterM3PerDay: option.manure.washWaterM3PerCowDay * designCows,
+    beddingM3PerDay: beddingToStorageM3PerYear(beddingTonnesPerDay, option.bedding.shareToManureStorage, option.bedding.bulkDensityTonnesPerM3),
+    netRainMPerYear: option.manure.netRainMPerYear,
+    openStorageAreaM2: option.manure.openStorageAreaM2,
+    storageDays: option.manure.storageDays,
+    freeboardM: option.manure.freeboardM,
+  });
+}
+
+/** Stalls of an option (count): none without beds, else from the largest herd of the horizon and the stocking rate. */
+export function optionStalls(option: Option, designCows: number): number {
+  return option.bed === 'none' ? 0 : stallsFor(designCows, option.stockingRate);
+}
+
+// The float twins give the same cents as depreciation.ts (tests pin them) at a fraction of the cost.
+function depreciationSchedule(scenario: Scenario): DepreciationSchedule {
+  const { depreciation, decliningBalanceFactor } = scenario.finance;
+  if (depreciation === 'declining-balance') return (cost, life) => decliningBalanceFast(cost, life, decliningBalanceFactor);
+  return straightLineFast;
+}
+
+const LOAN_CACHE_SIZE = 64;
+const loanCache = new Map<string, LoanSchedule>();
+
+/**
+ * finance.ts loanSchedule, remembered for the last few loans: a live preview re-evaluates every
+ * option on each edit while most loans stay the same, and the decimal schedule is the costliest
+ * step. Each caller gets its own copy.
+ */
+function rememberedLoanSchedule(input: LoanInput): LoanSchedule {
+  const key = `${input.principal}|${input.annualRate}|${input.years}|${input.paymentsPerYear}|${input.interestOnlyMonths ?? 0}`;
+  let schedule = loanCache.get(key);
+  if (schedule) {
+    loanCache.delete(key);
+  } else {
+    schedule = loanSchedule(input);
+    if (loanCache.size >= LOAN_CACHE_SIZE) {
+      const oldest = loanCache.keys().next();
+      if (!oldest.done) loanCache.delete(oldest.value);
+    }
+  }
+  loanCache.set(key, schedule);
+  return {
+    payments: schedule.payments.map((payment) => ({ ...payment })),
+    years: schedule.years.map((year) => ({ ...year })),
+    totalInterest: schedule.totalInterest,
+    totalPrincipal: schedule.totalPrincipal,
+  };
+}
+
+/**
+ * Loan principal (currency): the override, or capital − equity − grants, floored at 0 and never
+ * more than the capital left after grants (an option without capital borrows nothing).
+ */
+export function loanAmountFor(capital: number, grants: number, equity: number, override: number | null): number {
+  const needed = Math.max(0, capital - grants);
+  if (override !== null) return Math.min(override, needed);
+  return Math.max(0, needed - equity);
+}
+
+/** Builds an option's plan; with mode 'ledger' it also returns the loan schedule in exact cents. */
+export function planOption(scenario: Scenario, option: Option, mode: PlanMode): { plan: OptionPlan; loan: LoanSchedule | null } {
+  const { herd, finance } = scenario;
+  const horizon = scenario.horizonYears;
+  const inflation = herd.growth.general;
+  const cows = cowsPerYear(herd.cows, option.herdChange, horizon);
+  let designCows = 0;
+  for (let year = 1; year <= horizon; year++) designCows = Math.max(designCows, cows[year] ?? 0);
+  const stalls = optionStalls(option, designCows);
+  const storageM3 = optionStorageM3(scenario, option, designCows, stalls);
+  const assets = capitalAssets(option.capitalLines, { stalls, storageM3, troughs: option.water.troughs });
+  const capital = capitalTotal(assets);
+  const purchases = purchaseSchedule(assets, horizon, inflation);
+  const depreciation = taxDepreciation(
+    purchases.map((p) => ({ year: p.year, cost: p.cost, lifeYears: assets[p.asset]?.lifeYears ?? 1 })),
+    horizon,
+    depreciationSchedule(scenario),
+  );
+  const grants = Math.min(finance.grants, capital);
+  const loanAmount = loanAmountFor(capital, grants, finance.equity, finance.loanAmount);
+  const equity = Math.max(0, capital - grants - loanAmount);
+
+  const interestByYear = new Array<number>(horizon + 1).fill(0);
+  const principalByYear = new Array<number>(horizon + 1).fill(0);
+  let loanBalanceAtHorizon = 0;
+  let loan: LoanSchedule | null = null;
+  const loanYears = (() => {
+    if (mode === 'ledger') {
+      loan = rememberedLoanSchedule({
+        principal: loanAmount,
+        annualRate: finance.interestRate,
+        years: finance.termYears,
+        paymentsPerYear: finance.paymentsPerYear,
+        interestOnlyMonths: finance.interestOnlyMonths,
+      });
+      return {
+        interest: loan.years.map((y) => y.interest),
+        principal: loan.years.map((y) => y.principal),
+        closingBalance: loan.years.map((y) => y.closingBalance),
+      };
+    }
+    return loanYearsFast(loanAmount, finance.interestRate, finance.termYears, finance.paymentsPerYear, finance.interestOnlyMonths);
+  })();
+  for (let year = 1; year <= horizon; year++) {
+    interestByYear[year] = loanYears.interest[year - 1] ?? 0;
+    principalByYear[year] = loanYears.principal[year - 1] ?? 0;
+  }
+  if (loanAmount > 0 && finance.termYears > horizon) loanBalanceAtHorizon = loanYears.closingBalance[horizon - 1] ?? 0;
+
+  const addedCowCost = option.herdChange.addedCowCost ?? herd.replacementHeiferCost;
+  const housedDays = effectiveHousedDays(option.housedDaysPerYear);
+  return {
+    plan: {
+      horizon,
+      cows,
+      designCows,
+      stalls,
+      housedDays,
+      grazingDays: grazingDaysPerYear(housedDays),
+      storageM3,
+      assets,
+      capitalTotal: capital,
+      replacementsByYear: replacementsByYear(purchases, horizon),
+      salvage: salvageAtHorizon(assets, purchases, horizon),
+      depreciationByYear: depreciation.byYear,
+      taxBookValueAtHorizon: depreciation.bookValueAtHorizon,
+      grants,
+      equity,
+      loanAmount,
+      interestByYear,
+      principalByYear,
+      loanBalanceAtHorizon,
+      herdPurchasesByYear: herdPurchasesByYear(cows, addedCowCost, herd.cullCowValue, inflation),
+      herdValueAtHorizon: herdValueAtHorizon(cows, herd.cullCowValue, inflation),
+    },
+    loan,
+  };
+}
+
+/** Prices the break-even search moves; absent = as in the scenario. */
+export interface ProjectionOverrides {
+  milkPricePerKg?: number;
+  lyingResponseKgPerHour?: number;
+}
+
+export interface Projection {
+  /** Project (unlevered) net cash flow per year, index = year. */
+  cashFlows: number[];
+  /** Cash available for debt service per year (operating margin − tax), index = year, [0] = 0. */
+  cashForDebtService: number[];
+  /** The yearly lines, when asked for. */
+  lines: YearLine[] | null;
+}
+
+type Rounding = (amount: number) => number;
+
+/**
+ * How money is rounded: 'ledger' rounds each line to cents with decimal.js half-up; 'fast' with
+ * its floating-point twin (same cents); 'none' not at all (the break-even search wants a smooth
+ * function).
+ */
+export type RoundingMode = 'ledger' | 'fast' | 'none';
+
+const ledgerCents: Rounding = (amount) => (amount === 0 ? 0 : toCents(amount));
+const identity: Rounding = (amount) => amount;
+
+/**
+ * A sum of amounts already in whole cents, freed of binary noise (currency). No half-cent can
+ * arise in such a sum, so this decides nothing that half-up rounding would.
+ */
+const centsTotal: Rounding = (sum) => Math.round(sum * 100) / 100;
+
+const ROUNDING: Record<RoundingMode, { line: Rounding; total: Rounding }> = {
+  ledger: { line: ledgerCents, total: centsTotal },
+  fast: { line: roundCentsFast, total: centsTotal },
+  none: { line: identity, total: identity },
+};
+
+/**
+ * The yearly flows of one option, t = 0..H (currency, nominal). Every money line is rounded to
+ * cents (see RoundingMode) before it enters a total, so net = Σ lines exactly.
+ */
+export function projectOption(
+  scenario: Scenario,
+  option: Option,
+  plan: OptionPlan,
+  currentLyingHours: number,
+  rounding: RoundingMode,
+  detail: boolean,
+  overrides: ProjectionOverrides = {},
+): Projection {
+  const { line: round, total: centsTotal } = ROUNDING[rounding];
+  const { herd, finance } = scenario;
+  const { growth } = herd;
+  const H = plan.horizon;
+  const milkPrice = overrides.milkPricePerKg ?? herd.milkPricePerKg;
+  const response = overrides.lyingResponseKgPerHour ?? herd.lyingResponseKgPerHour;
+  const { housedDays, grazingDays, stalls } = plan;
+  const labour = option.labour;
+
+  // Price-independent pieces of each line, per cow or per year in today's money.
+  let energyToday = 0;
+  for (const line of option.energyLines) energyToday += line.kwhPerYear * line.pricePerKwh;
+  const runningByGrowth = { milkPrice: 0, feed: 0, wages: 0, bedding: 0, fertiliser: 0, general: 0, none: 0 };
+  for (const line of option.runningCosts) runningByGrowth[line.growth] += line.amountPerYear;
+  const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate, plan.capitalTotal);
+  const scrapingHours = scrapingHoursPerYear(labour.scrapingPassesPerDay, labour.minutesPerScrapingPass, housedDays);
+  const bedCareHours = bedCareHoursPerYear(labour.bedCleaningsPerDay, labour.secondsPerStallCleaning, stalls, housedDays);
+  const troughHours = troughHoursPerYear(labour.troughCleaningsPerDay, labour.minutesPerTroughCleaning, option.water.troughs, housedDays);
+  const grazingHours = grazingHoursPerYear(labour.grazingHoursPerGrazingDay, grazingDays);
+  const beddingTonnes = beddingTonnesPerYear(option.bedding.kgPerStallDay, stalls, housedDays);
+  const beddingTopUpHours = beddingTopUpHoursPerYear(beddingTonnes, labour.beddingTonnesPerHour);
+  const beddingToday = beddingCostPerYear(beddingTonnes, option.bedding.pricePerTonne);
+  const beddingStoredM3 = beddingToStorageM3PerYear(beddingTonnes, option.bedding.shareToManureStorage, option.bedding.bulkDensityTonnesPerM3);
+  const labourHoursTotal = scrapingHours + bedCareHours + beddingTopUpHours + troughHours + grazingHours;
+
+  const cashFlows = new Array<number>(H + 1);
+  const cashForDebtService = new Array<number>(H + 1).fill(0);
+  const lines: YearLine[] | null = detail ? [] : null;
+
+  const capital0 = round(plan.capitalTotal);
+  const grants0 = round(plan.grants);
+  const herd0 = round(plan.herdPurchasesByYear[0] ?? 0);
+  cashFlows[0] = centsTotal(grants0 - capital0 - herd0);
+  if (lines) lines.push(yearZeroLine(plan, cashFlows[0], capital0, grants0, herd0, centsTotal(round(plan.loanAmount) + cashFlows[0])));
+
+  // Every line is linear in the cows of the year: per-cow amounts in today's money, hoisted.
+  const yieldOf = (ramp: number): number =>
+    yieldPerCowDay({
+      baselineKgPerCowDay: herd.yieldKgPerCowDay,
+      lyingResponseKgPerHour: response,
+      lyingHours: option.lyingHoursPerDay,
+      currentLyingHours,
+      systemAdjustmentKgPerCowDay: option.systemYieldAdjustment,
+      rampFraction: ramp,
+    });
+  const yieldYear1 = yieldOf(rampFraction(1, herd.lyingResponseYear1Fraction));
+  const yieldLater = yieldOf(rampFraction(2, herd.lyingResponseYear1Fraction));
+  const baselineMilkPerCow = milkSoldKgPerYear(1, herd.yieldKgPerCowDay);
+  const feedPerCow = baseFeedCostPerYear(1, housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
+  const healthPerCow = healthCostPerYear(1, option.health);
+  const cullingPerCow = cullingCostPerYear(option.health.extraCullsPer100Cows, 1, herd.replacementHeiferCost, herd.cullCowValue);
+  const manurePerCow = collectedManurePerYear(herd.manureExcretion, 1, housedDays, option.manure.collectionEfficiency);
+  const manureValuePerCow = fertiliserValue(manurePerCow, herd.nutrientAvailability, herd.fertiliserPrices);
+  const storedVolume = (cows: number): number =>
+    storedVolumeM3PerYear({
+      manureKgPerYear: manurePerCow.massKg * cows,
+      manureDensityKgPerM3: herd.manureDensityKgPerM3,
+      washWaterM3PerCowDay: option.manure.washWaterM3PerCowDay,
+      cows,
+      housedDays,
+      beddingM3PerYear: beddingStoredM3,
+      openStorageAreaM2: option.manure.openStorageAreaM2,
+      netRainMPerYear: option.manure.netRainMPerYear,
+    });
+  const storedFixedM3 = storedVolume(0);
+  const storedPerCowM3 = storedVolume(1) - storedFixedM3;
+  const handlingPerM3 = manureHandlingCostPerYear(1, option.manure.handlingCostPerM3, option.manure.sandExtraHandlingCostPerM3);
+
+  let gMilk = 1, gFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
+  let lossCarried = 0;
+  for (let t = 1; t <= H; t++) {
+    gMilk *= 1 + growth.milkPrice;
+    gFeed *= 1 + growth.feed;
+    gWage *= 1 + growth.wages;
+    gBedding *= 1 + growth.bedding;
+    gFert *= 1 + growth.fertiliser;
+    gGeneral *= 1 + growth.general;
+    const cows = plan.cows[t] ?? 0;
+    const yieldKg = t === 1 ? yieldYear1 : yieldLater;
+    const milkKg = milkSoldKgPerYear(cows, yieldKg);
+    const extraMilkKg = milkKg - baselineMilkPerCow * cows;
+
+    const milkIncome = round(milkKg * milkPrice * gMilk);
+    const feed = round((feedPerCow * cows + marginalFeedCostPerYear(extraMilkKg, herd.marginalFeedCostPerKgMilk)) * gFeed);
+    const wage = herd.wagePerHour;
+    const labourScraping = round(labourCost(scrapingHours, wage, gWage));
+    const labourBedCare = round(labourCost(bedCareHours, wage, gWage));
+    const labourBeddingTopUp = round(labourCost(beddingTopUpHours, wage, gWage));
+    const labourTroughs = round(labourCost(troughHours, wage, gWage));
+    const labourGrazing = round(labourCost(grazingHours, wage, gWage));
+    const bedding = round(beddingToday * gBedding);
+    const health = round(healthPerCow * cows * gGeneral);
+    const culling = round(cullingPerCow * cows * gGeneral);
+    const maintenance = round(maintenanceToday * gGeneral);
+    const energy = round(energyToday * gGeneral);
+    const runningCosts = round(
+      runningByGrowth.milkPrice * gMilk +
+        runningByGrowth.feed * gFeed +
+        runningByGrowth.wages * gWage +
+        runningByGrowth.bedding * gBedding +
+        runningByGrowth.fertiliser * gFert +
+        runningByGrowth.general * gGeneral +
+        runningByGrowth.none,
+    );
+    const manureValue = round(manureValuePerCow * cows * gFert);
+    const storedM3 = storedFixedM3 + storedPerCowM3 * cows;
+    const manureHandling = round(storedM3 * handlingPerM3 * gGeneral);
+    const operatingMargin = centsTotal(
+      milkIncome + manureValue - feed - labourScraping - labourBedCare - labourBeddingTopUp - labourTroughs - labourGrazing -
+        bedding - health - culling - maintenance - energy - runningCosts - manureHandling,
+    );
+
+    const last = t === H;
+    const replacements = round(plan.replacementsByYear[t] ?? 0);
+    const herdPurchases = round(plan.herdPurchasesByYear[t] ?? 0);
+    const salvage = last ? round(plan.salvage) : 0;
+    const herdValue = last ? round(plan.herdValueAtHorizon) : 0;
+    const depreciation = round(plan.depreciationByYear[t] ?? 0);
+    const interest = plan.interestByYear[t] ?? 0;
+    const principal = plan.principalByYear[t] ?? 0;
+    const disposalGain = last ? salvage - round(plan.taxBookValueAtHorizon) : 0;
+    const taxable = centsTotal(taxableIncome(operatingMargin, depreciation, interest, disposalGain));
+    const step = taxForYear(taxable, finance.taxRate, finance.lossesOffsetOtherIncome, lossCarried);
+    lossCarried = step.lossCarried;
+    const tax = round(step.tax);
+    const net = centsTotal(operatingMargin - replacements - herdPurchases - tax + salvage + herdValue);
+    cashFlows[t] = net;
+    cashForDebtService[t] = centsTotal(operatingMargin - tax);
+
+    if (lines) {
+      const repaidAtHorizon = last ? round(plan.loanBalanceAtHorizon) : 0;
+      lines.push({
+        year: t,
+        cows,
+        yieldKgPerCowDay: yieldKg,
+        milkSoldKg: milkKg,
+        milkIncome,
+        feed,
+        labourScraping,
+        labourBedCare,
+        labourBeddingTopUp,
+        labourTroughs,
+        labourGrazing,
+        bedding,
+        health,
+        culling,
+        maintenance,
+        energy,
+        runningCosts,
+        manureValue,
+        manureHandling,
+        operatingMargin,
+        capital: 0,
+        grants: 0,
+        replacements,
+        herdPurchases,
+        salvage,
+        herdValueAtHorizon: herdValue,
+        depreciation,
+        taxableIncome: taxable,
+        tax,
+        netCashFlow: net,
+        loanInterest: interest,
+        loanPrincipal: principal,
+        financedCashFlow: centsTotal(net - interest - principal - repaidAtHorizon),
+        cashAvailableForDebtService: cashForDebtService[t] ?? 0,
+        labourHours: {
+          scraping: scrapingHours,
+          bedCare: bedCareHours,
+          beddingTopUp: beddingTopUpHours,
+          troughs: troughHours,
+          grazing: grazingHours,
+          total: labourHoursTotal,
+        },
+        beddingTonnes: beddingTonnes,
+        manure: {
+          storedM3,
+          nitrogenKg: manurePerCow.nitrogenKg * cows,
+          phosphateKg: manurePerCow.phosphorusKg * cows * P_TO_P2O5,
+          potashKg: manurePerCow.potassiumKg * cows * K_TO_K2O,
+        },
+      });
+    }
+  }
+  return { cashFlows, cashForDebtService, lines };
+}
+
+function yearZeroLine(plan: OptionPlan, net: number, capital: number, grants: number, herdPurchases: number, financed: number): YearLine {
+  return {
+    year: 0,
+    cows: plan.cows[0] ?? 0,
+    yieldKgPerCowDay: 0,
+    milkSoldKg: 0,
+    milkIncome: 0,
+    feed: 0,
+    labourScraping: 0,
+    labourBedCare: 0,
+    labourBeddingTopUp: 0,
+    labourTroughs: 0,
+    labourGrazing: 0,
+    bedding: 0,
+    health: 0,
+    culling: 0,
+    maintenance: 0,
+    energy: 0,
+    runningCosts: 0,
+    manureValue: 0,
+    manureHandling: 0,
+    operatingMargin: 0,
+    capital,
+    grants,
+    replacements: 0,
+    herdPurchases,
+    salvage: 0,
+    herdValueAtHorizon: 0,
+    depreciation: 0,
+    taxableIncome: 0,
+    tax: 0,
+    netCashFlow: net,
+    loanInterest: 0,
+    loanPrincipal: 0,
+    financedCashFlow: financed,
+    cashAvailableForDebtService: 0,
+    labourHours: { scraping: 0, bedCare: 0, beddingTopUp: 0, troughs: 0, grazing: 0, total: 0 },
+    beddingTonnes: 0,
+    manure: { storedM3: 0, nitrogenKg: 0, phosphateKg: 0, potashKg: 0 },
+  };
+}

@@ -1,0 +1,155 @@
+import type { LoanSchedule } from './finance';
+import type { StallCheck, WaterCheck } from './sizing';
+
+/** Labour hours of one year by task (h/yr). */
+export interface LabourHours {
+  scraping: number;
+  bedCare: number;
+  beddingTopUp: number;
+  troughs: number;
+  grazing: number;
+  total: number;
+}
+
+/** Manure collected and stored in one year: volume (m³/yr) and nutrients (kg/yr, as N, P2O5, K2O). */
+export interface ManureYear {
+  storedM3: number;
+  nitrogenKg: number;
+  phosphateKg: number;
+  potashKg: number;
+}
+
+/**
+ * One year of one option. Money in the farm's currency, nominal, rounded to cents. Income
+ * lines (milkIncome, manureValue, salvage, herdValueAtHorizon, grants) and cost lines (all
+ * others) are both positive amounts; tax < 0 is a saving; herdPurchases < 0 is a net sale.
+ * netCashFlow = milkIncome + manureValue + salvage + herdValueAtHorizon + grants − capital −
+ * feed − labour… − bedding − health − culling − maintenance − energy − runningCosts −
+ * manureHandling − replacements − herdPurchases − tax (the project, unlevered view).
+ */
+export interface YearLine {
+  year: number;
+  cows: number;
+  yieldKgPerCowDay: number;
+  milkSoldKg: number;
+  milkIncome: number;
+  feed: number;
+  labourScraping: number;
+  labourBedCare: number;
+  labourBeddingTopUp: number;
+  labourTroughs: number;
+  labourGrazing: number;
+  bedding: number;
+  health: number;
+  culling: number;
+  maintenance: number;
+  energy: number;
+  runningCosts: number;
+  manureValue: number;
+  manureHandling: number;
+  /** Income minus operating costs, before capital, tax and debt (currency). */
+  operatingMargin: number;
+  capital: number;
+  grants: number;
+  replacements: number;
+  herdPurchases: number;
+  salvage: number;
+  herdValueAtHorizon: number;
+  depreciation: number;
+  taxableIncome: number;
+  tax: number;
+  netCashFlow: number;
+  loanInterest: number;
+  loanPrincipal: number;
+  /** Net cash flow after loan proceeds (year 0) and debt service; the balance left at H is repaid in year H. */
+  financedCashFlow: number;
+  /** Operating margin − tax: the FFSC numerator before family living (currency). */
+  cashAvailableForDebtService: number;
+  labourHours: LabourHours;
+  beddingTonnes: number;
+  manure: ManureYear;
+}
+
+export interface CoverageYear {
+  year: number;
+  /** (this option's cash for debt service − the current option's) ÷ this loan's P+I; null for the current option or when nothing is due. */
+  project: number | null;
+  /** (existing farm cash + the change above) ÷ (existing debt payments + this loan's P+I); null when nothing is due. */
+  wholeFarm: number | null;
+}
+
+export type IrrReason = 'no-sign-change' | 'multiple-roots' | 'no-root';
+
+export interface Metrics {
+  cashFlows: number[];
+  npv: number;
+  irr: number | null;
+  irrReason?: IrrReason;
+  mirr: number | null;
+  paybackYears: number | null;
+  discountedPaybackYears: number | null;
+  profitabilityIndex: number | null;
+}
+
+export interface IncrementalResult extends Metrics {
+  breakEvenMilkPrice: number | null;
+  breakEvenMilkPriceReason?: 'none-in-range';
+  breakEvenLyingResponse: number | null;
+  breakEvenLyingResponseReason?: 'none-in-range' | 'same-lying-time';
+}
+
+export interface SizingResult {
+  designCows: number;
+  stalls: number;
+  stallCheck: StallCheck;
+  waterCheck: WaterCheck;
+  manureStorageM3: number;
+}
+
+export interface OptionResult extends Metrics {
+  id: string;
+  name: string;
+  current: boolean;
+  stalls: number;
+  capitalTotal: number;
+  capitalPerStall: number | null;
+  equivalentAnnualCostPerStall: number | null;
+  /** Year-0 financing of the capital (currency). */
+  financing: { grants: number; equity: number; loanAmount: number };
+  years: YearLine[];
+  financedCashFlows: number[];
+  loan: LoanSchedule & { amount: number };
+  coverage: CoverageYear[];
+  /** Lowest whole-farm coverage and its year. */
+  lowestCoverage: { year: number; value: number } | null;
+  lowestProjectCoverage: { year: number; value: number } | null;
+  /** Years whose whole-farm coverage is below the lender's threshold. */
+  yearsBelowCoverageThreshold: number[];
+  /** Per-year arrays: index = year, [0] = year 0. */
+  labourHoursPerYear: number[];
+  beddingTonnesPerYear: number[];
+  manureFertiliserValuePerYear: number[];
+  sizing: SizingResult;
+  incremental?: IncrementalResult;
+}
+
+export interface ScenarioResults {
+  horizonYears: number;
+  currency: string;
+  currentOptionId: string;
+  options: OptionResult[];
+}
+
+/** One option from the fast path (floating point, no ledger detail). */
+export interface FastOptionResult {
+  id: string;
+  npv: number;
+  /** NPV of this option's flows minus the current option's; null for the current option. */
+  incrementalNpv: number | null;
+  irr: number | null;
+  /** Incremental IRR, only when asked for ({ incrementalIrr: true }); otherwise null. */
+  incrementalIrr: number | null;
+  /** Lowest whole-farm coverage over the horizon; null when no year has debt service. */
+  minCoverage: number | null;
+  minProjectCoverage: number | null;
+}

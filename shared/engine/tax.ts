@@ -1,0 +1,64 @@
+/**
+ * Taxable income of one year (currency): operating margin − depreciation − loan interest +
+ * gain on disposal (salvage − tax book value, in the horizon year only).
+ */
+export function taxableIncome(operatingMargin: number, depreciation: number, interest: number, disposalGain: number): number {
+  return operatingMargin - depreciation - interest + disposalGain;
+}
+
+export interface TaxStep {
+  /** Tax of the year (currency); negative = a tax saving against other farm income. */
+  tax: number;
+  /** Loss carried into the next year (currency, ≥ 0). */
+  lossCarried: number;
+}
+
+/**
+ * Tax of one year (currency) at `rate`. When losses offset other income, a negative taxable
+ * income gives a saving (negative tax) that year; otherwise the loss is carried forward and
+ * set against the next years' taxable income, and any loss left at the horizon is lost.
+ */
+export function taxForYear(taxable: number, rate: number, lossesOffsetOtherIncome: boolean, lossCarried: number): TaxStep {
+  if (rate === 0) return { tax: 0, lossCarried: 0 };
+  if (lossesOffsetOtherIncome) return { tax: rate * taxable, lossCarried: 0 };
+  if (taxable <= 0) return { tax: 0, lossCarried: lossCarried - taxable };
+  const used = Math.min(lossCarried, taxable);
+  return { tax: rate * (taxable - used), lossCarried: lossCarried - used };
+}
+
+/** Depreciation schedule for one purchase: cost and life → amounts in years 1..life after purchase (currency/yr). */
+export type DepreciationSchedule = (cost: number, lifeYears: number) => number[];
+
+export interface PurchaseForTax {
+  year: number;
+  cost: number;
+  lifeYears: number;
+}
+
+export interface TaxDepreciation {
+  /** Depreciation per year (currency), index = year (0 at year 0). */
+  byYear: number[];
+  /** Undepreciated tax book value of all purchases at the horizon (currency). */
+  bookValueAtHorizon: number;
+}
+
+/**
+ * Tax depreciation per year (currency): each purchase depreciated over its life from the year
+ * after it is bought; amounts falling after the horizon stay in the book value at H.
+ */
+export function taxDepreciation(purchases: readonly PurchaseForTax[], horizon: number, schedule: DepreciationSchedule): TaxDepreciation {
+  const byYear = new Array<number>(horizon + 1).fill(0);
+  let bookValueAtHorizon = 0;
+  for (const purchase of purchases) {
+    if (purchase.cost <= 0) continue;
+    const amounts = schedule(purchase.cost, purchase.lifeYears);
+    const last = Math.min(amounts.length, horizon - purchase.year);
+    for (let i = 0; i < last; i++) {
+      const year = purchase.year + i + 1;
+      const amount = amounts[i] ?? 0;
+      byYear[year] = (byYear[year] ?? 0) + amount;
+    }
+    for (let i = last; i < amounts.length; i++) bookValueAtHorizon += amounts[i] ?? 0;
+  }
+  return { byYear, bookValueAtHorizon };
+}

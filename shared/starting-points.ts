@@ -1,0 +1,358 @@
+import type { CapitalLine, Herd, Option, RunningCostLine, Source, StartingPoint } from './schema';
+import { stallsFor } from './engine/sizing';
+import { beddingTonnesPerYear, beddingToStorageM3PerYear } from './engine/bedding';
+import { manureStorageVolumeM3, MIN_TROUGH_PERIMETER_PER_COW_M } from './engine/sizing';
+
+// Sources of the defaults. 'reference' names a REFERENCES.md source, 'common-practice' a trade
+// rule of thumb, 'assumption' an invented planning figure the user should replace.
+const ref = (note: string): Source => ({ kind: 'reference', note });
+const practice = (note: string): Source => ({ kind: 'common-practice', note });
+const assumed = (note: string): Source => ({ kind: 'assumption', note });
+const fromHerd = (note: string): Source => ({ kind: 'user', note });
+
+const TUCKER_WEARY = 'Tucker & Weary, J. Dairy Sci. 87:2889 (2004)';
+const COOK = 'Cook et al., J. Dairy Sci. 87:2912 (2004)';
+const SAND_GUIDANCE = 'university guidance quoted in the dairy press: at least 50 lb (23 kg) sand per stall per day';
+const PENN_STATE_WATER = 'Penn State Extension, watering system design: ≥ 3 in (7.6 cm) per cow, ≥ 10 US gal/min';
+
+interface Defaults {
+  kind: Option['kind'];
+  divider: Option['divider'];
+  bed: Option['bed'];
+  manureRemoval: Option['manureRemoval'];
+  housedDaysPerYear: number;
+  lyingHoursPerDay: number;
+  health: Option['health'];
+  labour: Option['labour'];
+  bedding: Option['bedding'];
+  manure: Omit<Option['manure'], 'openStorageAreaM2'>;
+  maintenanceRate: number;
+  sources: Record<string, Source>;
+}
+
+/** Who-knows-what figures shared by every starting point. */
+const COMMON_SOURCES: Record<string, Source> = {
+  systemYieldAdjustment: assumed('0: the baseline yield already reflects the current system; enter any feeding effect here'),
+  stockingRate: practice('one cow per stall is the welfare target; above about 1.2 lying time falls'),
+  'feedCostPerCowDay.housed': fromHerd('copied from the herd baseline'),
+  'feedCostPerCowDay.grazing': fromHerd('copied from the herd baseline'),
+  'health.mastitisCostPerCase': assumed('planning figure per clinical case'),
+  'health.lamenessCostPerCase': assumed('planning figure per case (treatment, milk loss)'),
+  'health.injuryCostPerCase': assumed('planning figure per hock, knee or other injury'),
+  'health.extraCullsPer100Cows': assumed('no culls beyond the herd norm'),
+  'labour.minutesPerScrapingPass': assumed('planning figure for one tractor pass of the alleys'),
+  'labour.bedCleaningsPerDay': practice('beds cleaned and levelled once or twice a day'),
+  'labour.secondsPerStallCleaning': assumed('planning figure per stall'),
+  'labour.beddingTonnesPerHour': assumed('planning figure with a loader or bedding spreader'),
+  'labour.troughCleaningsPerDay': practice('troughs are emptied and cleaned daily or more often'),
+  'labour.minutesPerTroughCleaning': assumed('planning figure per trough'),
+  'water.troughs': ref(`${PENN_STATE_WATER}; at least 2 waterers per group`),
+  'water.troughPerimeterM': assumed('3 m of drinking edge per trough'),
+  'water.fillRateLitresPerMinute': ref(PENN_STATE_WATER),
+  'manure.collectionEfficiency': assumed('share of housed-day manure reaching the store'),
+  'manure.handlingCostPerM3': assumed('agitation, hauling and spreading by contractor'),
+  'manure.storageDays': assumed('storage period; follow local rules'),
+  'manure.washWaterM3PerCowDay': practice('parlour wash water usually joins the storage; 50 L per cow per day is a planning figure'),
+  'manure.openStorageAreaM2': assumed('open store 3 m deep, sized from the storage volume'),
+  'manure.netRainMPerYear': assumed('rain minus evaporation; replace with the local figure'),
+  'manure.freeboardM': assumed('freeboard kept empty'),
+  maintenanceRate: assumed('1 % of capital a year'),
+};
+
+const STARTING_POINTS: Record<StartingPoint, Defaults> = {
+  grazing: {
+    kind: 'grazing',
+    divider: 'steel',
+    bed: 'mattress-topdressed',
+    manureRemoval: 'tractor-scraper',
+    housedDaysPerYear: 150,
+    lyingHoursPerDay: 11,
+    health: { lamenessCasesPer100Cows: 15, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 25, mastitisCostPerCase: 250, injuriesPer100Cows: 5, injuryCostPerCase: 150, extraCullsPer100Cows: 0 },
+    labour: { scrapingPassesPerDay: 2, minutesPerScrapingPass: 15, bedCleaningsPerDay: 2, secondsPerStallCleaning: 10, beddingTonnesPerHour: 1, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 2.5 },
+    bedding: { material: 'sawdust', kgPerStallDay: 1, pricePerTonne: 60, bulkDensityTonnesPerM3: 0.25, shareToManureStorage: 1 },
+    manure: { collectionEfficiency: 0.9, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+    maintenanceRate: 0.01,
+    sources: {
+      housedDaysPerYear: assumed('winter housing period of a pasture-based herd; set to the farm\u2019s own'),
+      lyingHoursPerDay: assumed('pasture-based herd over the year, below the 12–14 h housed budget (Grant, dairy cattle extension, Table 1)'),
+      'health.lamenessCasesPer100Cows': assumed('pasture-based herds are usually less lame than housed herds'),
+      'health.mastitisCasesPer100Cows': assumed('planning figure'),
+      'health.injuriesPer100Cows': assumed('planning figure'),
+      'labour.scrapingPassesPerDay': practice('tractor or skid-steer scraping two to three times a day'),
+      'labour.grazingHoursPerGrazingDay': assumed('fetching cows, fencing, moving water'),
+      'bedding.kgPerStallDay': practice('mattresses need a light organic top-dressing'),
+      'bedding.pricePerTonne': assumed('sawdust delivered'),
+      'bedding.bulkDensityTonnesPerM3': assumed('loose sawdust'),
+      'bedding.shareToManureStorage': assumed('used top-dressing is scraped into the store'),
+      'manure.sandExtraHandlingCostPerM3': assumed('no sand'),
+    },
+  },
+  'steel-freestall': {
+    kind: 'freestall',
+    divider: 'steel',
+    bed: 'mattress',
+    manureRemoval: 'tractor-scraper',
+    housedDaysPerYear: 365,
+    lyingHoursPerDay: 12.3,
+    health: { lamenessCasesPer100Cows: 24, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 30, mastitisCostPerCase: 250, injuriesPer100Cows: 10, injuryCostPerCase: 150, extraCullsPer100Cows: 0 },
+    labour: { scrapingPassesPerDay: 2, minutesPerScrapingPass: 15, bedCleaningsPerDay: 2, secondsPerStallCleaning: 10, beddingTonnesPerHour: 1, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 0 },
+    bedding: { material: 'none', kgPerStallDay: 0, pricePerTonne: 0, bulkDensityTonnesPerM3: 0.25, shareToManureStorage: 0 },
+    manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+    maintenanceRate: 0.01,
+    sources: {
+      housedDaysPerYear: practice('a freestall herd is housed all year'),
+      lyingHoursPerDay: ref(`${TUCKER_WEARY}: 12.3 h/day on bare mattresses`),
+      'health.lamenessCasesPer100Cows': ref(`${COOK}: 24.0 % lameness prevalence in mattress herds, used as cases per 100 cows per year`),
+      'health.mastitisCasesPer100Cows': assumed('planning figure for a bare mattress'),
+      'health.injuriesPer100Cows': practice('rigid steel dividers give more injuries than flexible ones; the figure is an assumption'),
+      'labour.scrapingPassesPerDay': practice('tractor or skid-steer scraping two to three times a day'),
+      'labour.grazingHoursPerGrazingDay': practice('no grazing days'),
+      'bedding.kgPerStallDay': assumed('bare mattress without top-dressing'),
+      'bedding.pricePerTonne': assumed('no bedding bought'),
+      'bedding.bulkDensityTonnesPerM3': assumed('loose sawdust if any is added'),
+      'bedding.shareToManureStorage': assumed('no bedding'),
+      'manure.sandExtraHandlingCostPerM3': assumed('no sand'),
+    },
+  },
+  'flexible-freestall': {
+    kind: 'freestall',
+    divider: 'flexible',
+    bed: 'mattress',
+    manureRemoval: 'tractor-scraper',
+    housedDaysPerYear: 365,
+    lyingHoursPerDay: 12.3,
+    health: { lamenessCasesPer100Cows: 24, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 30, mastitisCostPerCase: 250, injuriesPer100Cows: 5, injuryCostPerCase: 150, extraCullsPer100Cows: 0 },
+    labour: { scrapingPassesPerDay: 2, minutesPerScrapingPass: 15, bedCleaningsPerDay: 2, secondsPerStallCleaning: 10, beddingTonnesPerHour: 1, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 0 },
+    bedding: { material: 'none', kgPerStallDay: 0, pricePerTonne: 0, bulkDensityTonnesPerM3: 0.25, shareToManureStorage: 0 },
+    manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+    maintenanceRate: 0.01,
+    sources: {
+      housedDaysPerYear: practice('a freestall herd is housed all year'),
+      lyingHoursPerDay: ref(`${TUCKER_WEARY}: 12.3 h/day on bare mattresses`),
+      'health.lamenessCasesPer100Cows': ref(`${COOK}: 24.0 % lameness prevalence in mattress herds, used as cases per 100 cows per year`),
+      'health.mastitisCasesPer100Cows': assumed('planning figure for a bare mattress'),
+      'health.injuriesPer100Cows': practice('flexible dividers give way when a cow hits them, so fewer injuries than steel; the figure is an assumption'),
+      'labour.scrapingPassesPerDay': practice('tractor or skid-steer scraping two to three times a day'),
+      'labour.grazingHoursPerGrazingDay': practice('no grazing days'),
+      'bedding.kgPerStallDay': assumed('bare mattress without top-dressing'),
+      'bedding.pricePerTonne': assumed('no bedding bought'),
+      'bedding.bulkDensityTonnesPerM3': assumed('loose sawdust if any is added'),
+      'bedding.shareToManureStorage': assumed('no bedding'),
+      'manure.sandExtraHandlingCostPerM3': assumed('no sand'),
+    },
+  },
+  'mattress-freestall': {
+    kind: 'freestall',
+    divider: 'flexible',
+    bed: 'mattress-topdressed',
+    manureRemoval: 'automatic-scraper',
+    housedDaysPerYear: 365,
+    lyingHoursPerDay: 13.8,
+    health: { lamenessCasesPer100Cows: 24, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 28, mastitisCostPerCase: 250, injuriesPer100Cows: 3, injuryCostPerCase: 150, extraCullsPer100Cows: 0 },
+    labour: { scrapingPassesPerDay: 0, minutesPerScrapingPass: 0, bedCleaningsPerDay: 2, secondsPerStallCleaning: 10, beddingTonnesPerHour: 1, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 0 },
+    bedding: { material: 'sawdust', kgPerStallDay: 1.5, pricePerTonne: 60, bulkDensityTonnesPerM3: 0.25, shareToManureStorage: 1 },
+    manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+    maintenanceRate: 0.012,
+    sources: {
+      housedDaysPerYear: practice('a freestall herd is housed all year'),
+      lyingHoursPerDay: ref(`${TUCKER_WEARY}: 13.8 h/day on mattresses with 7.5 kg sawdust (12.3 h bare)`),
+      'health.lamenessCasesPer100Cows': ref(`${COOK}: 24.0 % lameness prevalence in mattress herds, used as cases per 100 cows per year`),
+      'health.mastitisCasesPer100Cows': assumed('planning figure for a top-dressed mattress'),
+      'health.injuriesPer100Cows': practice('top-dressing limits hock and knee abrasions; flexible dividers give fewer injuries; the figure is an assumption'),
+      'labour.scrapingPassesPerDay': practice('an automatic alley scraper cycles every one to three hours with about no labour'),
+      'labour.grazingHoursPerGrazingDay': practice('no grazing days'),
+      'bedding.kgPerStallDay': practice('a light organic top-dressing on mattresses; 1.5 kg is an assumption'),
+      'bedding.pricePerTonne': assumed('sawdust delivered'),
+      'bedding.bulkDensityTonnesPerM3': assumed('loose sawdust'),
+      'bedding.shareToManureStorage': assumed('used top-dressing is scraped into the store'),
+      'manure.sandExtraHandlingCostPerM3': assumed('no sand'),
+      maintenanceRate: assumed('1.2 % of capital a year with an automatic scraper'),
+    },
+  },
+  'sand-freestall': {
+    kind: 'freestall',
+    divider: 'flexible',
+    bed: 'deep-sand',
+    manureRemoval: 'tractor-scraper',
+    housedDaysPerYear: 365,
+    lyingHoursPerDay: 13.5,
+    health: { lamenessCasesPer100Cows: 11.1, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 22, mastitisCostPerCase: 250, injuriesPer100Cows: 3, injuryCostPerCase: 150, extraCullsPer100Cows: 0 },
+    labour: { scrapingPassesPerDay: 3, minutesPerScrapingPass: 15, bedCleaningsPerDay: 2, secondsPerStallCleaning: 15, beddingTonnesPerHour: 4, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 0 },
+    bedding: { material: 'sand', kgPerStallDay: 23, pricePerTonne: 15, bulkDensityTonnesPerM3: 1.6, shareToManureStorage: 0.9 },
+    manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 1.5, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+    maintenanceRate: 0.015,
+    sources: {
+      housedDaysPerYear: practice('a freestall herd is housed all year'),
+      lyingHoursPerDay: practice('deep sand is the surface cows choose most; 13.5 h/day is an assumption'),
+      'health.lamenessCasesPer100Cows': ref(`${COOK}: 11.1 % lameness prevalence in sand herds, used as cases per 100 cows per year`),
+      'health.mastitisCasesPer100Cows': practice('deep sand keeps bacteria low; the figure is an assumption'),
+      'health.injuriesPer100Cows': assumed('planning figure for sand with flexible dividers'),
+      'labour.scrapingPassesPerDay': practice('tractor or skid-steer scraping two to three times a day'),
+      'labour.secondsPerStallCleaning': assumed('raking and levelling sand takes longer than a mattress'),
+      'labour.beddingTonnesPerHour': assumed('sand topped up with a loader about twice a week'),
+      'labour.grazingHoursPerGrazingDay': practice('no grazing days'),
+      'bedding.kgPerStallDay': ref(SAND_GUIDANCE),
+      'bedding.pricePerTonne': assumed('washed sand delivered'),
+      'bedding.bulkDensityTonnesPerM3': assumed('damp sand'),
+      'bedding.shareToManureStorage': practice('most sand leaves the beds with the manure and ends in the store'),
+      'manure.sandExtraHandlingCostPerM3': practice('sand-laden manure costs more to handle (wear, settling); the figure is an assumption'),
+      maintenanceRate: practice('sand wears equipment; 1.5 % of capital a year is an assumption'),
+    },
+  },
+};
+
+/** The five starting points, in the order the product lists them. */
+export const STARTING_POINT_ORDER: readonly StartingPoint[] = ['grazing', 'steel-freestall', 'flexible-freestall', 'mattress-freestall', 'sand-freestall'];
+
+/** Display names of the starting points. */
+export const STARTING_POINT_NAMES: Record<StartingPoint, string> = {
+  grazing: 'Grazing with seasonal housing',
+  'steel-freestall': 'Freestall, steel dividers',
+  'flexible-freestall': 'Freestall, flexible dividers',
+  'mattress-freestall': 'Mattress-bedded freestall',
+  'sand-freestall': 'Sand-bedded freestall',
+};
+
+// Storage depth used to turn a sized volume into an open surface area.
+const STORE_DEPTH_M = 3;
+// Building floor areas per stall: resting area, alleys and feed lane (planning figures).
+const BARN_M2_PER_STALL = 8;
+const ALLEY_M2_PER_STALL = 3.5;
+// Stalls one automatic scraper serves (one alley pair of a typical pen).
+const STALLS_PER_AUTOMATIC_SCRAPER = 60;
+// Drinking edge per trough.
+const TROUGH_PERIMETER_M = 3;
+
+interface CreateOptionSettings {
+  id: string;
+  name?: string;
+  /** The current option is the farm as it is: its housing is sunk cost, so it starts without capital lines. */
+  current?: boolean;
+}
+
+function item(
+  id: string,
+  description: string,
+  category: Extract<CapitalLine, { kind: 'item' }>['category'],
+  unit: Extract<CapitalLine, { kind: 'item' }>['unit'],
+  quantity: number | null,
+  unitCost: number,
+  lifeYears: number,
+  replaceAtEndOfLife = true,
+): CapitalLine {
+  return { kind: 'item', id, description, category, unit, quantity, unitCost, lifeYears, replaceAtEndOfLife, documentIds: [] };
+}
+
+function capitalLinesFor(startingPoint: StartingPoint, defaults: Defaults, stalls: number): { lines: CapitalLine[]; sources: Record<string, Source> } {
+  const lines: CapitalLine[] = [];
+  const sources: Record<string, Source> = {};
+  const add = (line: CapitalLine, note: string): void => {
+    lines.push(line);
+    sources[`capitalLines.${line.id}.${line.kind === 'item' ? 'unitCost' : 'rate'}`] = assumed(note);
+  };
+  if (startingPoint === 'grazing') {
+    add(item('cubicle-refit', 'Cubicle house refit for winter housing', 'building-shell', 'per-stall', null, 900, 25, false), 'invented planning cost per stall');
+    add(item('paddock-water', 'Paddock water system', 'water', 'lump-sum', null, 15000, 20), 'invented planning cost');
+    add(item('laneways', 'Cow laneways', 'site-works', 'lump-sum', null, 20000, 20), 'invented planning cost');
+  } else {
+    add(item('shell', 'Building shell', 'building-shell', 'per-m2', stalls * BARN_M2_PER_STALL, 180, 30, false), `invented cost per m², ${BARN_M2_PER_STALL} m² per stall`);
+    add(
+      item('dividers', defaults.divider === 'flexible' ? 'Flexible stall dividers' : 'Steel stall dividers', 'stall-dividers', 'per-stall', null, defaults.divider === 'flexible' ? 160 : 120, defaults.divider === 'flexible' ? 12 : 20),
+      'invented cost per stall',
+    );
+    if (defaults.bed === 'deep-sand') add(item('beds', 'Sand bed curbs and initial fill', 'beds', 'per-stall', null, 90, 30, false), 'invented cost per stall');
+    else add(item('beds', 'Stall mattresses', 'beds', 'per-stall', null, 220, 10), 'invented cost per stall');
+    add(item('alley-floor', 'Grooved concrete alleys', 'alley-floor', 'per-m2', stalls * ALLEY_M2_PER_STALL, 40, 30, false), `invented cost per m², ${ALLEY_M2_PER_STALL} m² per stall`);
+    if (defaults.manureRemoval === 'automatic-scraper') {
+      add(item('scrapers', 'Automatic alley scrapers', 'manure-removal', 'per-item', Math.max(1, Math.ceil(stalls / STALLS_PER_AUTOMATIC_SCRAPER)), 14000, 15), 'invented cost per scraper');
+    } else {
+      add(item('scraper-blade', 'Tractor scraper blade', 'manure-removal', 'lump-sum', null, 4000, 10), 'invented cost');
+    }
+    add(item('storage', 'Manure storage', 'manure-storage', 'per-m3', null, 45, 25, false), 'invented cost per m³; volume from the sizing helper');
+    add(item('troughs', 'Water troughs', 'water', 'per-item', null, 900, 15), 'invented cost per trough');
+    add(item('ventilation', 'Ventilation and lighting', 'ventilation-lighting', 'per-stall', null, 150, 15), 'invented cost per stall');
+    add(item('site-works', 'Site works', 'site-works', 'lump-sum', null, 25000, 30, false), 'invented cost');
+    add(item('fees', 'Design and planning fees', 'fees', 'lump-sum', null, 15000, 30, false), 'invented cost');
+    add({ kind: 'contingency', id: 'contingency', description: 'Contingency', rate: 0.1, lifeYears: 30 }, '10 % of the other lines');
+  }
+  return { lines, sources };
+}
+
+function runningCostsFor(defaults: Defaults): RunningCostLine[] {
+  const lines: RunningCostLine[] = [];
+  if (defaults.manureRemoval === 'tractor-scraper' && defaults.labour.scrapingPassesPerDay > 0) {
+    lines.push({ id: 'tractor-scraping', description: 'Tractor fuel and wear for scraping', amountPerYear: 1500, growth: 'general' });
+  }
+  if (defaults.bed === 'deep-sand') {
+    lines.push({ id: 'sand-wear', description: 'Extra pump and spreader wear from sand', amountPerYear: 2000, growth: 'general' });
+  }
+  return lines;
+}
+
+function energyLinesFor(defaults: Defaults, stalls: number): Option['energyLines'] {
+  const lines: Option['energyLines'] = [];
+  if (defaults.manureRemoval === 'automatic-scraper') {
+    lines.push({ id: 'scrapers', description: 'Automatic scraper drives', kwhPerYear: 1500 * Math.max(1, Math.ceil(stalls / STALLS_PER_AUTOMATIC_SCRAPER)), pricePerKwh: 0.25 });
+  }
+  if (defaults.kind === 'freestall') {
+    lines.push({ id: 'fans-lights', description: 'Fans and lighting', kwhPerYear: 120 * stalls, pricePerKwh: 0.25 });
+  }
+  lines.push({ id: 'water-pumps', description: 'Water pumps', kwhPerYear: 15 * stalls, pricePerKwh: 0.25 });
+  return lines;
+}
+
+/**
+ * A new option from a starting point for this herd: stalls sized from the herd and a stocking
+ * rate of 1, water troughs for 7.6 cm of edge per cow, the store's surface from its sized
+ * volume, and invented capital costs tagged 'assumption'. Every default carries its source.
+ */
+export function createOption(startingPoint: StartingPoint, herd: Herd, settings: CreateOptionSettings): Option {
+  const defaults = STARTING_POINTS[startingPoint];
+  const stockingRate = 1;
+  const stalls = defaults.bed === 'none' ? 0 : stallsFor(herd.cows, stockingRate);
+  const troughs = Math.max(2, Math.ceil((herd.cows * MIN_TROUGH_PERIMETER_PER_COW_M) / TROUGH_PERIMETER_M));
+  const beddingPerDay = beddingTonnesPerYear(defaults.bedding.kgPerStallDay, stalls, 1);
+  const storageWithoutRain = manureStorageVolumeM3({
+    manureM3PerDay: (herd.cows * herd.manureExcretion.massKgPerCowDay * defaults.manure.collectionEfficiency) / herd.manureDensityKgPerM3,
+    washWaterM3PerDay: defaults.manure.washWaterM3PerCowDay * herd.cows,
+    beddingM3PerDay: beddingToStorageM3PerYear(beddingPerDay, defaults.bedding.shareToManureStorage, defaults.bedding.bulkDensityTonnesPerM3),
+    netRainMPerYear: 0,
+    openStorageAreaM2: 0,
+    storageDays: defaults.manure.storageDays,
+    freeboardM: 0,
+  });
+  const capital = settings.current ? { lines: [], sources: {} } : capitalLinesFor(startingPoint, defaults, stalls);
+  return {
+    id: settings.id,
+    name: settings.name ?? STARTING_POINT_NAMES[startingPoint],
+    startingPoint,
+    current: settings.current ?? false,
+    kind: defaults.kind,
+    divider: defaults.divider,
+    bed: defaults.bed,
+    manureRemoval: defaults.manureRemoval,
+    housedDaysPerYear: defaults.housedDaysPerYear,
+    lyingHoursPerDay: defaults.lyingHoursPerDay,
+    systemYieldAdjustment: 0,
+    stockingRate,
+    feedCostPerCowDay: { ...herd.feedCostPerCowDay },
+    health: { ...defaults.health },
+    herdChange: { cowsByYear: null, addedCows: 0, addedCowCost: null },
+    labour: { ...defaults.labour },
+    water: { troughs, troughPerimeterM: TROUGH_PERIMETER_M, fillRateLitresPerMinute: 40 },
+    bedding: { ...defaults.bedding },
+    maintenanceRate: defaults.maintenanceRate,
+    energyLines: energyLinesFor(defaults, stalls),
+    manure: { ...defaults.manure, openStorageAreaM2: Math.round(storageWithoutRain / STORE_DEPTH_M) },
+    capitalLines: capital.lines,
+    runningCosts: runningCostsFor(defaults),
+    sources: {
+      ...COMMON_SOURCES,
+      ...defaults.sources,
+      ...capital.sources,
+      energyLines: assumed('invented electricity use and price'),
+      runningCosts: assumed('invented yearly running costs'),
+      ...(settings.current ? { capitalLines: assumed('the current housing is already paid for (sunk cost)') } : {}),
+    },
+  };
+}

@@ -1,0 +1,46 @@
+import type { AcceptInvitationInput, FarmRole, InviteInput } from '@shared/schema/accounts';
+import type { Session } from './auth';
+import { http } from './client';
+
+export interface FarmMember {
+  userId: number;
+  name: string;
+  email: string;
+  role: FarmRole;
+  since: string;
+}
+
+export interface PendingInvitation {
+  id: number;
+  email: string;
+  role: FarmRole;
+  expiresAt: string;
+  createdAt: string;
+}
+
+export interface InvitationPreview {
+  farmName: string;
+  role: FarmRole;
+  email: string;
+  inviterName: string | null;
+  expiresAt: string;
+  accountExists: boolean;
+}
+
+/** A farm's members and the owner's invitations. */
+export const membersApi = {
+  list: (farmId: number) => http.get<FarmMember[]>(`/farms/${farmId}/members`),
+  changeRole: (farmId: number, userId: number, role: FarmRole) => http.patch<{ userId: number; role: FarmRole }>(`/farms/${farmId}/members/${userId}`, { role }),
+  remove: (farmId: number, userId: number) => http.delete(`/farms/${farmId}/members/${userId}`),
+  invitations: (farmId: number) => http.get<PendingInvitation[]>(`/farms/${farmId}/invitations`),
+  invite: (farmId: number, input: InviteInput) => http.post<PendingInvitation>(`/farms/${farmId}/invitations`, input),
+  resend: (farmId: number, invitationId: number) => http.post<PendingInvitation>(`/farms/${farmId}/invitations/${invitationId}/resend`),
+  revoke: (farmId: number, invitationId: number) => http.delete(`/farms/${farmId}/invitations/${invitationId}`),
+};
+
+/** The invitee's side, by the token from the e-mailed link. */
+export const invitationsApi = {
+  preview: (token: string) => http.get<InvitationPreview>(`/invitations/${encodeURIComponent(token)}`),
+  accept: (token: string, input: AcceptInvitationInput) =>
+    http.post<Session & { farmId: number }>(`/invitations/${encodeURIComponent(token)}/accept`, input),
+};

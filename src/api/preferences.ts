@@ -1,0 +1,52 @@
+/** Preferences, decisions and the saved Monte Carlo result of a scenario. */
+import type { MonteCarloResult } from '@shared/engine/risk/monte-carlo';
+import type { FarmRole } from '@shared/schema/accounts';
+import { http } from './client';
+
+export interface Preference {
+  userId: number;
+  name: string;
+  role: FarmRole | null;
+  optionId: string;
+  reason: string;
+  updatedAt: string;
+}
+
+export interface Decision {
+  id: number;
+  optionId: string;
+  optionName: string;
+  decidedBy: { id: number; name: string } | null;
+  decidedAt: string;
+  note: string;
+  scenarioVersion: number;
+}
+
+export interface PreferencesView {
+  preferences: Preference[];
+  decision: Decision | null;
+  earlierDecisions: Decision[];
+}
+
+export interface SavedRiskResult {
+  result: MonteCarloResult;
+  scenarioVersion: number;
+  inputsHash: string;
+  fresh: boolean;
+  savedBy: string | null;
+  savedAt: string;
+}
+
+const base = (farmId: number, scenarioId: number) => `/farms/${farmId}/scenarios/${scenarioId}`;
+
+export const preferencesApi = {
+  get: (farmId: number, scenarioId: number) => http.get<PreferencesView>(`${base(farmId, scenarioId)}/preferences`),
+  record: (farmId: number, scenarioId: number, body: { optionId: string; reason: string }) =>
+    http.put<PreferencesView>(`${base(farmId, scenarioId)}/preferences/me`, body),
+  withdraw: (farmId: number, scenarioId: number) => http.delete<PreferencesView>(`${base(farmId, scenarioId)}/preferences/me`),
+  decide: (farmId: number, scenarioId: number, body: { optionId: string; note: string }) =>
+    http.post<PreferencesView>(`${base(farmId, scenarioId)}/decision`, body),
+  riskResult: (farmId: number, scenarioId: number) => http.get<SavedRiskResult>(`${base(farmId, scenarioId)}/risk-result`),
+  keepRiskResult: (farmId: number, scenarioId: number, body: { scenarioVersion: number; result: MonteCarloResult }) =>
+    http.put<SavedRiskResult>(`${base(farmId, scenarioId)}/risk-result`, body),
+};

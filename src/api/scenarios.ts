@@ -1,0 +1,93 @@
+/** Scenarios of one farm: list, read, save with optimistic locking, versions and their comparison. */
+import type { Scenario, ScenarioInput } from '@shared/schema';
+import type { z } from 'zod';
+import type { createScenarioBodySchema } from '@shared/scenario-api';
+import type { ScenarioResults } from '@shared/engine/results';
+import type { FieldChange } from '@shared/scenario-diff';
+import { http } from './client';
+
+export type ScenarioStatus = 'draft' | 'decided' | 'archived';
+
+export interface ScenarioListItem {
+  id: number;
+  name: string;
+  status: ScenarioStatus;
+  version: number;
+  optionCount: number;
+  /** Best option by NPV at the last save; null when nothing could be evaluated. */
+  best: { name: string; npv: number } | null;
+  updatedAt: string;
+  updatedBy: string | null;
+}
+
+/** Who saved what and when, as the server tells it alongside a scenario. */
+export interface ScenarioMeta {
+  status?: ScenarioStatus;
+  updatedAt?: string;
+  updatedBy?: string | null;
+  [extra: string]: unknown;
+}
+
+export interface ScenarioDocument {
+  scenario: Scenario;
+  version: number;
+  results: ScenarioResults | null;
+  meta?: ScenarioMeta;
+}
+
+export interface VersionListItem {
+  version: number;
+  note: string;
+  author: string | null;
+  createdAt: string;
+}
+
+export interface VersionDocument {
+  version: number;
+  scenario: Scenario;
+  note?: string;
+  author?: string | null;
+  createdAt?: string;
+  results?: ScenarioResults | null;
+}
+
+export type VersionChange = FieldChange;
+
+export interface VersionComparison {
+  from: number;
+  to: number;
+  changes: VersionChange[];
+}
+
+/** The body of a 409: a newer version saved by someone else since ours was loaded. */
+export interface VersionConflict {
+  version: number;
+  updatedBy: string | null;
+  updatedAt: string;
+}
+
+export type CreateScenarioBody = z.input<typeof createScenarioBodySchema>;
+
+const base = (farmId: number) => `/farms/${farmId}/scenarios`;
+
+export const scenariosApi = {
+  list: (farmId: number) => http.get<ScenarioListItem[]>(base(farmId)),
+  /** A new scenario from the farm baseline, with one current option from a starting point. */
+  create: (farmId: number, body: CreateScenarioBody) => http.post<ScenarioDocument & { id: number }>(base(farmId), body),
+  /** A new scenario from a whole document (an import, or "keep my copy" after a conflict). */
+  createFrom: (farmId: number, scenario: ScenarioInput, name?: string) =>
+    http.post<ScenarioDocument & { id: number }>(base(farmId), name ? { scenario, name } : { scenario }),
+  get: (farmId: number, id: number) => http.get<ScenarioDocument>(`${base(farmId)}/${id}`),
+  save: (farmId: number, id: number, body: { version: number; scenario: ScenarioInput; note?: string }) =>
+    http.put<ScenarioDocument>(`${base(farmId)}/${id}`, body),
+  duplicate: (farmId: number, id: number) => http.post<ScenarioDocument & { id: number }>(`${base(farmId)}/${id}/duplicate`),
+  archive: (farmId: number, id: number) => http.post<unknown>(`${base(farmId)}/${id}/archive`),
+  remove: (farmId: number, id: number) => http.delete(`${base(farmId)}/${id}`),
+  versions: (farmId: number, id: number) => http.get<VersionListItem[]>(`${base(farmId)}/${id}/versions`),
+  version: (farmId: number, id: number, version: number) => http.get<VersionDocument>(`${base(farmId)}/${id}/versions/${version}`),
+  compare: (farmId: number, id: number, from: number, to: number) =>
+    http.get<VersionComparison>(`${base(farmId)}/${id}/versions/compare?from=${from}&to=${to}`),
+  restore: (farmId: number, id: number, version: number) =>
+    http.post<ScenarioDocument>(`${base(farmId)}/${id}/versions/${version}/restore`),
+  exportUrl: (farmId: number, id: number) => `/api${base(farmId)}/${id}/export.json`,
+};

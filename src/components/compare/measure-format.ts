@@ -1,0 +1,47 @@
+/** How each comparison measure is written in a table cell, and why a missing value is missing. Pure. */
+import type { OptionResult } from '@shared/engine/results';
+import { formatMoney, formatNumber, formatPercent, type MoneyFormat } from '@/composables/useMoney';
+import { irrUndefinedReading } from '@/components/results/readings';
+import type { Measure } from './ranking';
+
+/** The measure's value as shown (money to the cent); null values are written by {@link missingText}. */
+export function measureText(measure: Measure, value: number, format: MoneyFormat): string {
+  switch (measure.kind) {
+    case 'money':
+      return formatMoney(value, format);
+    case 'percent':
+      return formatPercent(value, format.locale);
+    case 'years':
+      return `${formatNumber(value, format.locale, 1, true)} yr`;
+    case 'ratio':
+      return formatNumber(value, format.locale, 2, true);
+    case 'hours':
+      return `${formatNumber(value, format.locale, 0)} h`;
+    case 'tonnes':
+      return `${formatNumber(value, format.locale, 1, true)} t`;
+  }
+}
+
+/** Short text and the full reason for a measure an option lacks. */
+export function missingText(measure: Measure, option: OptionResult, horizon: number): { short: string; reason: string } {
+  switch (measure.key) {
+    case 'irr':
+      return { short: 'not defined', reason: irrUndefinedReading(option.irrReason, option.cashFlows) };
+    case 'mirr':
+      return { short: 'not defined', reason: 'MIRR needs at least one negative and one positive cash flow' };
+    case 'paybackYears':
+    case 'discountedPaybackYears':
+      return { short: `not in ${horizon} yr`, reason: `does not pay back within the ${horizon}-year horizon` };
+    case 'profitabilityIndex':
+      return { short: 'not defined', reason: 'no money is out at year 0 to divide by' };
+    case 'capitalPerStall':
+    case 'equivalentAnnualCostPerStall':
+      return { short: 'no stalls', reason: 'this option has no stalls' };
+    case 'lowestCoverage':
+      return { short: 'no debt', reason: 'no debt service falls due in any year' };
+    case 'incrementalNpv':
+      return { short: 'not defined', reason: 'no current option to compare with' };
+    default:
+      return { short: '—', reason: 'not computed for this option' };
+  }
+}

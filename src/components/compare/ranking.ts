@@ -1,0 +1,85 @@
+/**
+ * The comparison's measures and the ranking of options by one of them. Pure: takes the engine's
+ * OptionResult values as they are; a measure an option lacks (null) ranks after every option
+ * that has it, ties keep the scenario's option order.
+ */
+import type { OptionResult } from '@shared/engine/results';
+
+export type MeasureKind = 'money' | 'percent' | 'years' | 'ratio' | 'hours' | 'tonnes';
+
+export interface Measure {
+  key: MeasureKey;
+  label: string;
+  kind: MeasureKind;
+  /** True when a larger value is better for the farm. */
+  higherIsBetter: boolean;
+  /** The option's value, straight from the engine's result (year-1 figures for yearly quantities). */
+  value(option: OptionResult): number | null;
+}
+
+export type MeasureKey =
+  | 'npv'
+  | 'incrementalNpv'
+  | 'irr'
+  | 'mirr'
+  | 'paybackYears'
+  | 'discountedPaybackYears'
+  | 'profitabilityIndex'
+  | 'capitalPerStall'
+  | 'equivalentAnnualCostPerStall'
+  | 'labourHours'
+  | 'beddingTonnes'
+  | 'manureValue'
+  | 'lowestCoverage';
+
+const year1 = (values: readonly number[]): number | null => values[1] ?? null;
+
+/** Every measure the comparison shows, in table order. */
+export const MEASURES: readonly Measure[] = [
+  { key: 'npv', label: 'NPV', kind: 'money', higherIsBetter: true, value: (o) => o.npv },
+  { key: 'incrementalNpv', label: 'NPV against the current option', kind: 'money', higherIsBetter: true, value: (o) => (o.current ? 0 : (o.incremental?.npv ?? null)) },
+  { key: 'irr', label: 'IRR', kind: 'percent', higherIsBetter: true, value: (o) => o.irr },
+  { key: 'mirr', label: 'MIRR', kind: 'percent', higherIsBetter: true, value: (o) => o.mirr },
+  { key: 'paybackYears', label: 'Simple payback', kind: 'years', higherIsBetter: false, value: (o) => o.paybackYears },
+  { key: 'discountedPaybackYears', label: 'Discounted payback', kind: 'years', higherIsBetter: false, value: (o) => o.discountedPaybackYears },
+  { key: 'profitabilityIndex', label: 'Profitability index', kind: 'ratio', higherIsBetter: true, value: (o) => o.profitabilityIndex },
+  { key: 'capitalPerStall', label: 'Capital per stall', kind: 'money', higherIsBetter: false, value: (o) => o.capitalPerStall },
+  { key: 'equivalentAnnualCostPerStall', label: 'Equivalent annual cost per stall', kind: 'money', higherIsBetter: false, value: (o) => o.equivalentAnnualCostPerStall },
+  { key: 'labourHours', label: 'Labour, year 1 (h)', kind: 'hours', higherIsBetter: false, value: (o) => year1(o.labourHoursPerYear) },
+  { key: 'beddingTonnes', label: 'Bedding bought, year 1 (t)', kind: 'tonnes', higherIsBetter: false, value: (o) => year1(o.beddingTonnesPerYear) },
+  { key: 'manureValue', label: 'Manure fertiliser value, year 1', kind: 'money', higherIsBetter: true, value: (o) => year1(o.manureFertiliserValuePerYear) },
+  { key: 'lowestCoverage', label: 'Lowest whole-farm coverage', kind: 'ratio', higherIsBetter: true, value: (o) => o.lowestCoverage?.value ?? null },
+];
+
+/** The measure with this key (NPV when the key is unknown, e.g. from an old saved preference). */
+export function measureByKey(key: string): Measure {
+  return MEASURES.find((m) => m.key === key) ?? (MEASURES[0] as Measure);
+}
+
+export interface RankedOption {
+  option: OptionResult;
+  /** 1 = best; options with the same value share a rank; null when the option lacks the measure. */
+  rank: number | null;
+  value: number | null;
+}
+
+/**
+ * Options ordered best first by `measure` (direction from the measure), options without a
+ * value last; equal values share a rank (competition ranking, 1-2-2-4), ties in scenario order.
+ */
+export function rankOptions(options: readonly OptionResult[], measure: Measure): RankedOption[] {
+  const entries = options.map((option, index) => ({ option, index, value: measure.value(option) }));
+  const sign = measure.higherIsBetter ? -1 : 1;
+  entries.sort((a, b) => {
+    if (a.value === null || b.value === null) return a.value === null ? (b.value === null ? a.index - b.index : 1) : -1;
+    return sign * (a.value - b.value) || a.index - b.index;
+  });
+  const ranked: RankedOption[] = [];
+  entries.forEach((entry, position) => {
+    const previous = ranked[position - 1];
+    let rank: number | null = null;
+    if (entry.value !== null) rank = previous && previous.value === entry.value ? (previous.rank ?? position + 1) : position + 1;
+    ranked.push({ option: entry.option, rank, value: entry.value });
+  });
+  return ranked;
+}

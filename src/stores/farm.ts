@@ -1,0 +1,87 @@
+/** The farm being looked at: its details, its herd and market baseline, and its scenarios. */
+import { defineStore } from 'pinia';
+import { computed, readonly, ref } from 'vue';
+import { baselineApi, farmApi, type FarmBaseline, type FarmDetail } from '@/api/baseline';
+import { ApiError } from '@/api/client';
+import { scenariosApi, type CreateScenarioBody, type ScenarioListItem } from '@/api/scenarios';
+import type { DisplaySettings } from '@/composables/useDisplay';
+import type { Herd } from '@shared/schema';
+
+export const useFarmStore = defineStore('farm', () => {
+  const farmId = ref<number | null>(null);
+  const farm = ref<FarmDetail | null>(null);
+  const baseline = ref<FarmBaseline | null>(null);
+  const scenarios = ref<ScenarioListItem[]>([]);
+  const loadError = ref<string | null>(null);
+  const loaded = ref(false);
+  let pending: Promise<void> | null = null;
+
+  const canEdit = computed(() => farm.value !== null && farm.value.role !== 'lender');
+  const display = computed<DisplaySettings>(() => ({
+    units: baseline.value?.units ?? farm.value?.units ?? 'metric',
+    locale: baseline.value?.locale ?? farm.value?.locale ?? 'en-IE',
+    currency: baseline.value?.currency ?? farm.value?.currency ?? 'EUR',
+  }));
+
+  /** Loads farm, baseline and scenario list; concurrent callers for the same farm share one request. */
+  function load(id: number, force = false): Promise<void> {
+    if (!force && farmId.value === id && loaded.value) return Promise.resolve();
+    if (pending && farmId.value === id && !force) return pending;
+    if (farmId.value !== id) {
+      farm.value = null;
+      baseline.value = null;
+      scenarios.value = [];
+      loaded.value = false;
+    }
+    farmId.value = id;
+    loadError.value = null;
+    pending = Promise.all([farmApi.get(id), baselineApi.get(id), scenariosApi.list(id)])
+      .then(([detail, base, list]) => {
+        farm.value = detail;
+        baseline.value = base;
+        scenarios.value = list;
+        loaded.value = true;
+      })
+      .catch((error: unknown) => {
+        loadError.value = error instanceof ApiError ? error.message : 'Could not load this farm';
+      })
+      .finally(() => {
+        pending = null;
+      });
+    return pending;
+  }
+
+  async function refreshScenarios(): Promise<void> {
+    if (farmId.value === null) return;
+    scenarios.value = await scenariosApi.list(farmId.value);
+  }
+
+  /** Saves the baseline; field errors come back as ApiError.fields for the form to show. */
+  async function saveBaseline(next: FarmBaseline & { herd: Herd }): Promise<void> {
+    if (farmId.value === null) return;
+    baseline.value = await baselineApi.save(farmId.value, next);
+  }
+
+  /** Creates a scenario from the baseline; returns its id. */
+  async function createScenario(body: CreateScenarioBody): Promise<number> {
+    if (farmId.value === null) throw new Error('No farm loaded');
+    const created = await scenariosApi.create(farmId.value, body);
+    await refreshScenarios();
+    return created.id;
+  }
+
+  return {
+    farmId: readonly(farmId),
+    farm: readonly(farm),
+    baseline: computed(() => baseline.value),
+    scenarios: readonly(scenarios),
+    loadError: readonly(loadError),
+    loaded: readonly(loaded),
+    canEdit,
+    display,
+    load,
+    refreshScenarios,
+    saveBaseline,
+    createScenario,
+  };
+});

@@ -1,0 +1,319 @@
+/**
+ * The scenario being edited: the working copy (the form's model — edits go straight into it),
+ * the version it was loaded at, a dirty flag, live results recomputed in the browser with the
+ * same engine the server uses, and a save that never overwrites someone else's newer version.
+ */
+import { defineStore } from 'pinia';
+import { computed, readonly, ref, shallowRef, watch } from 'vue';
+import { scenarioSchema, type Option, type Scenario, type StartingPoint } from '@shared/schema';
+import { evaluateScenario } from '@shared/engine/evaluate';
+import type { ScenarioResults } from '@shared/engine/results';
+import { createOption, STARTING_POINT_NAMES } from '@shared/starting-points';
+import { ApiError } from '@/api/client';
+import { scenariosApi, type ScenarioMeta, type VersionConflict } from '@/api/scenarios';
+
+/** Delay after the last edit before the browser re-evaluates (ms): fast enough to feel live, slow enough not to run per keystroke. */
+export const LIVE_DELAY_MS = 150;
+
+export type SaveState = 'idle' | 'saving' | 'saved' | 'conflict' | 'invalid' | 'failed';
+
+function clone<T>(value: T): T {
+  return JSON.parse(JSON.stringify(value)) as T;
+}
+
+/** A short, unique id for a new option or line inside its list. */
+export function newId(prefix: string, taken: readonly string[]): string {
+  for (let n = 1; ; n++) {
+    const id = `${prefix}-${n}`;
+    if (!taken.includes(id)) return id;
+  }
+}
+
+/** The server names fields inside the request body ("scenario.options.0.name"); the form knows them by document path. */
+function documentPaths(fields: Record<string, string>): Record<string, string> {
+  return Object.fromEntries(Object.entries(fields).map(([path, message]) => [path.replace(/^scenario\./, ''), message]));
+}
+
+/** Messages of a failed parse keyed by dotted path (first message per path). */
+function issuesByPath(error: { issues: readonly { path: readonly PropertyKey[]; message: string }[] }): Record<string, string> {
+  const fields: Record<string, string> = {};
+  for (const issue of error.issues) {
+    const path = issue.path.map(String).join('.');
+    fields[path] ??= issue.message;
+  }
+  return fields;
+}
+
+export const useScenarioStore = defineStore('scenario', () => {
+  const farmId = ref<number | null>(null);
+  const scenarioId = ref<number | null>(null);
+  /** The working copy; null until loaded. Components bind their inputs to it. */
+  const working = ref<Scenario | null>(null);
+  const savedJson = ref('');
+  const savedVersion = ref(0);
+  const meta = ref<ScenarioMeta>({});
+  const loadError = ref<string | null>(null);
+  const loading = ref(false);
+
+  const live = shallowRef<ScenarioResults | null>(null);
+  /** Why there are no live results (invalid fields, an engine error), or null when there are. */
+  const liveReason = ref<string | null>(null);
+  /** Messages from the shared schema on the working copy, keyed by dotted path. */
+  const clientErrors = ref<Record<string, string>>({});
+  /** Messages the server sent with its last 400, until the field changes. */
+  const serverErrors = ref<Record<string, string>>({});
+  const fieldErrors = computed<Record<string, string>>(() => ({ ...clientErrors.value, ...serverErrors.value }));
+
+  const saveState = ref<SaveState>('idle');
+  const saveMessage = ref<string | null>(null);
+  const conflict = ref<VersionConflict | null>(null);
+  const selectedOptionId = ref<string | null>(null);
+
+  const dirty = computed(() => working.value !== null && JSON.stringify(working.value) !== savedJson.value);
+  const options = computed<Option[]>(() => working.value?.options ?? []);
+  const selectedOption = computed<Option | null>(
+    () => options.value.find((option) => option.id === selectedOptionId.value) ?? options.value[0] ?? null,
+  );
+  const selectedIndex = computed(() => (selectedOption.value ? options.value.indexOf(selectedOption.value) : -1));
+
+  function adopt(scenario: Scenario, version: number, nextMeta: ScenarioMeta | undefined): void {
+    working.value = clone(scenario);
+    savedJson.value = JSON.stringify(working.value);
+    savedVersion.value = version;
+    meta.value = nextMeta ?? {};
+    serverErrors.value = {};
+    conflict.value = null;
+    if (!scenario.options.some((option) => option.id === selectedOptionId.value)) {
+      selectedOptionId.value = scenario.options.find((option) => !option.current)?.id ?? scenario.options[0]?.id ?? null;
+    }
+    evaluateNow();
+  }
+
+  /** Loads a scenario of a farm, replacing the working copy (unsaved edits are the caller's to guard). */
+  async function load(nextFarmId: number, nextScenarioId: number): Promise<void> {
+    loading.value = true;
+    loadError.value = null;
+    if (scenarioId.value !== nextScenarioId) {
+      working.value = null;
+      selectedOptionId.value = null;
+    }
+    farmId.value = nextFarmId;
+    scenarioId.value = nextScenarioId;
+    saveState.value = 'idle';
+    try {
+      const document = await scenariosApi.get(nextFarmId, nextScenarioId);
+      adopt(document.scenario, document.version, document.meta);
+    } catch (error) {
+      loadError.value = error instanceof ApiError ? error.message : 'Could not load this scenario';
+    } finally {
+      loading.value = false;
+    }
+  }
+
+  /** Validates the working copy with the shared schema and evaluates it; never throws. */
+  function evaluateNow(): void {
+    const scenario = working.value;
+    if (!scenario) return;
+    const parsed = scenarioSchema.safeParse(scenario);
+    if (!parsed.success) {
+      clientErrors.value = issuesByPath(parsed.error);
+      const count = Object.keys(clientErrors.value).length;
+      live.value = null;
+      liveReason.value = `Fix ${count === 1 ? 'the highlighted field' : `${count} highlighted fields`} to see results`;
+      return;
+    }
+    clientErrors.value = {};
+    try {
+      live.value = evaluateScenario(parsed.data);
+      liveReason.value = null;
+    } catch (error) {
+      live.value = null;
+      liveReason.value = `The figures could not be evaluated: ${error instanceof Error ? error.message : String(error)}`;
+    }
+  }
+
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  let lastJson = '';
+  watch(
+    working,
+    (scenario) => {
+      const json = JSON.stringify(scenario);
+      if (json === lastJson) return;
+      const before = lastJson ? (JSON.parse(lastJson) as Scenario) : null;
+      lastJson = json;
+      if (before && scenario) dropAnsweredServerErrors(before, scenario);
+      if (saveState.value === 'saved' || saveState.value === 'invalid') saveState.value = 'idle';
+      clearTimeout(timer);
+      timer = setTimeout(evaluateNow, LIVE_DELAY_MS);
+    },
+    { deep: true },
+  );
+
+  /** A server message stays beside its field until the user changes that field. */
+  function dropAnsweredServerErrors(before: Scenario, after: Scenario): void {
+    const remaining: Record<string, string> = {};
+    for (const [path, message] of Object.entries(serverErrors.value)) {
+      if (valueAt(before, path) === valueAt(after, path)) remaining[path] = message;
+    }
+    serverErrors.value = remaining;
+  }
+
+  function valueAt(document: unknown, path: string): string {
+    let node: unknown = document;
+    for (const segment of path.split('.')) {
+      node = node !== null && typeof node === 'object' ? (node as Record<string, unknown>)[segment] : undefined;
+    }
+    return JSON.stringify(node) ?? 'undefined';
+  }
+
+  /**
+   * Saves the working copy as a new version. A 409 (someone saved since we loaded) keeps the
+   * working copy and sets `conflict`; a 400 puts each field's message beside that field.
+   */
+  async function save(note?: string): Promise<boolean> {
+    if (!working.value || farmId.value === null || scenarioId.value === null) return false;
+    saveState.value = 'saving';
+    saveMessage.value = null;
+    try {
+      const body = note ? { version: savedVersion.value, scenario: working.value, note } : { version: savedVersion.value, scenario: working.value };
+      const document = await scenariosApi.save(farmId.value, scenarioId.value, body);
+      adopt(document.scenario, document.version, document.meta);
+      saveState.value = 'saved';
+      return true;
+    } catch (error) {
+      if (error instanceof ApiError && error.status === 409) {
+        const latest = (error.body as { latest?: VersionConflict }).latest;
+        conflict.value = latest ?? { version: savedVersion.value + 1, updatedBy: null, updatedAt: '' };
+        saveState.value = 'conflict';
+      } else if (error instanceof ApiError && error.status === 400 && Object.keys(error.fields).length > 0) {
+        serverErrors.value = documentPaths(error.fields);
+        saveState.value = 'invalid';
+        saveMessage.value = error.message;
+      } else {
+        saveState.value = 'failed';
+        saveMessage.value = error instanceof ApiError ? error.message : 'Saving failed. Try again.';
+      }
+      return false;
+    }
+  }
+
+  /** After a conflict: drop the local edits and load the newer version. */
+  async function reloadLatest(): Promise<void> {
+    if (farmId.value === null || scenarioId.value === null) return;
+    await load(farmId.value, scenarioId.value);
+  }
+
+  /** After a conflict: keep the local edits as a new scenario; returns its id. */
+  async function keepAsNewScenario(): Promise<number | null> {
+    if (!working.value || farmId.value === null) return null;
+    saveState.value = 'saving';
+    try {
+      const name = `${working.value.name} (my copy)`.slice(0, 120);
+      const created = await scenariosApi.createFrom(farmId.value, { ...working.value, name }, name);
+      // The copy is saved now, so leaving this scenario loses nothing.
+      savedJson.value = JSON.stringify(working.value);
+      conflict.value = null;
+      saveState.value = 'saved';
+      return created.id;
+    } catch (error) {
+      saveState.value = 'failed';
+      saveMessage.value = error instanceof ApiError ? error.message : 'Could not keep your copy. Try again.';
+      return null;
+    }
+  }
+
+  /** Discards the local edits (back to the saved version). */
+  function revert(): void {
+    if (!savedJson.value) return;
+    working.value = JSON.parse(savedJson.value) as Scenario;
+    serverErrors.value = {};
+  }
+
+  /** Adds an option from a starting point for the scenario's herd and selects it. */
+  function addOption(startingPoint: StartingPoint, name?: string): Option | null {
+    const scenario = working.value;
+    if (!scenario) return null;
+    const id = newId(startingPoint, scenario.options.map((option) => option.id));
+    const taken = new Set(scenario.options.map((option) => option.name));
+    let optionName = name?.trim() || STARTING_POINT_NAMES[startingPoint];
+    for (let n = 2; taken.has(optionName); n++) optionName = `${name?.trim() || STARTING_POINT_NAMES[startingPoint]} ${n}`;
+    const option = createOption(startingPoint, scenario.herd, { id, name: optionName });
+    scenario.options.push(option);
+    selectedOptionId.value = id;
+    return option;
+  }
+
+  function duplicateOption(id: string): void {
+    const scenario = working.value;
+    const source = scenario?.options.find((option) => option.id === id);
+    if (!scenario || !source) return;
+    const copy = clone(source);
+    copy.id = newId(source.startingPoint, scenario.options.map((option) => option.id));
+    copy.name = `${source.name} (copy)`.slice(0, 120);
+    copy.current = false;
+    scenario.options.splice(scenario.options.indexOf(source) + 1, 0, copy);
+    selectedOptionId.value = copy.id;
+  }
+
+  function removeOption(id: string): void {
+    const scenario = working.value;
+    if (!scenario || scenario.options.length <= 1) return;
+    const index = scenario.options.findIndex((option) => option.id === id);
+    if (index < 0) return;
+    const [removed] = scenario.options.splice(index, 1);
+    if (removed?.current && scenario.options[0]) scenario.options[0].current = true;
+    if (selectedOptionId.value === id) selectedOptionId.value = scenario.options[Math.max(0, index - 1)]?.id ?? null;
+  }
+
+  function markCurrent(id: string): void {
+    working.value?.options.forEach((option) => {
+      option.current = option.id === id;
+    });
+  }
+
+  function moveOption(id: string, by: -1 | 1): void {
+    const list = working.value?.options;
+    if (!list) return;
+    const index = list.findIndex((option) => option.id === id);
+    const target = index + by;
+    if (index < 0 || target < 0 || target >= list.length) return;
+    const [moved] = list.splice(index, 1);
+    if (moved) list.splice(target, 0, moved);
+  }
+
+  function selectOption(id: string): void {
+    selectedOptionId.value = id;
+  }
+
+  return {
+    farmId: readonly(farmId),
+    scenarioId: readonly(scenarioId),
+    working,
+    savedVersion: readonly(savedVersion),
+    meta: readonly(meta),
+    loading: readonly(loading),
+    loadError: readonly(loadError),
+    live: computed(() => live.value),
+    liveReason: readonly(liveReason),
+    fieldErrors,
+    saveState: readonly(saveState),
+    saveMessage: readonly(saveMessage),
+    conflict: readonly(conflict),
+    dirty,
+    options,
+    selectedOption,
+    selectedIndex,
+    load,
+    save,
+    reloadLatest,
+    keepAsNewScenario,
+    revert,
+    evaluateNow,
+    addOption,
+    duplicateOption,
+    removeOption,
+    markCurrent,
+    moveOption,
+    selectOption,
+  };
+});

@@ -1,0 +1,43 @@
+import { describe, expect, it } from 'vitest';
+import type { OptionResult } from '../../../shared/engine/results';
+import { measureByKey, rankOptions } from '../../../src/components/compare/ranking';
+
+/** Only the fields the measures read; the rest of OptionResult does not matter to ranking. */
+function option(id: string, fields: Partial<OptionResult>): OptionResult {
+  return { id, name: id, current: false, npv: 0, irr: null, paybackYears: null, lowestCoverage: null, labourHoursPerYear: [], ...fields } as OptionResult;
+}
+
+describe('ranking options by a measure', () => {
+  it('puts the highest NPV first', () => {
+    // A larger NPV is the better investment (MODEL.md Results; common practice, no source).
+    const ranked = rankOptions([option('a', { npv: 10 }), option('b', { npv: 30 }), option('c', { npv: -5 })], measureByKey('npv'));
+    expect(ranked.map((r) => r.option.id)).toEqual(['b', 'a', 'c']);
+    expect(ranked.map((r) => r.rank)).toEqual([1, 2, 3]);
+  });
+
+  it('puts the shortest payback first and options that never pay back last, unranked', () => {
+    // A shorter payback is preferred; "not within horizon" cannot be ranked (common practice, no source).
+    const ranked = rankOptions([option('never', { paybackYears: null }), option('slow', { paybackYears: 9 }), option('fast', { paybackYears: 4.5 })], measureByKey('paybackYears'));
+    expect(ranked.map((r) => r.option.id)).toEqual(['fast', 'slow', 'never']);
+    expect(ranked[2]?.rank).toBeNull();
+  });
+
+  it('gives equal values the same rank and skips the next (1-2-2-4)', () => {
+    // Standard competition ranking ("1224"), from memory.
+    const ranked = rankOptions([option('a', { npv: 5 }), option('b', { npv: 3 }), option('c', { npv: 3 }), option('d', { npv: 1 })], measureByKey('npv'));
+    expect(ranked.map((r) => r.rank)).toEqual([1, 2, 2, 4]);
+  });
+
+  it('ranks lowest coverage highest-first, reading the engine value', () => {
+    // A higher debt-service coverage ratio is safer for the lender (common practice, no source).
+    const ranked = rankOptions(
+      [option('a', { lowestCoverage: { year: 2, value: 1.1 } }), option('b', { lowestCoverage: { year: 1, value: 1.6 } })],
+      measureByKey('lowestCoverage'),
+    );
+    expect(ranked.map((r) => r.option.id)).toEqual(['b', 'a']);
+  });
+
+  it('falls back to NPV for an unknown measure key', () => {
+    expect(measureByKey('nonsense').key).toBe('npv');
+  });
+});

@@ -1,0 +1,78 @@
+import { describe, expect, it } from 'vitest';
+import {
+  breakEvenLyingResponseReading,
+  countSignChanges,
+  coverageReading,
+  irrReading,
+  irrUndefinedReading,
+  paybackReading,
+  paybackYear,
+  profitabilityIndexReading,
+  type ReadingFormat,
+} from '../../../src/components/results/readings';
+import { formatMoney, formatNumber, formatPercent } from '../../../src/composables/useMoney';
+
+const en: ReadingFormat = {
+  money: (v) => formatMoney(v, { currency: 'EUR', locale: 'en-IE' }),
+  percent: (v) => formatPercent(v, 'en-IE'),
+  number: (v, d = 0) => formatNumber(v, 'en-IE', d, d > 0),
+};
+
+describe('payback readings', () => {
+  it('reads a payback of 6.3 years as year 7 of a 20-year horizon', () => {
+    // Wording from issue 6 ("pays back in year 7 of 20"); flows at year ends per MODEL.md conventions.
+    expect(paybackReading(6.3, 20)).toBe('pays back in year 7 of 20');
+  });
+
+  it('puts a payback of exactly 7 years in year 7, not year 8', () => {
+    // MODEL.md: cash flows fall at the end of each year, so cumulative CF ≥ 0 at t = 7 is reached in year 7.
+    expect(paybackYear(7)).toBe(7);
+    expect(paybackYear(7.0000001)).toBe(8);
+  });
+
+  it('says when the option never pays back within the horizon', () => {
+    // MODEL.md: payback is null, "not within horizon", when cumulative CF never reaches 0.
+    expect(paybackReading(null, 20, true)).toBe('does not pay back on discounted cash flows within the 20-year horizon');
+  });
+});
+
+describe('IRR readings', () => {
+  it('counts sign changes as Descartes does, skipping zeros', () => {
+    // Descartes' rule of signs counts changes between non-zero coefficients (from memory).
+    expect(countSignChanges([-100, 0, 50, -20, 0, 80])).toBe(3);
+    expect(countSignChanges([10, 20])).toBe(0);
+  });
+
+  it('says why an IRR is not defined when the flows change sign three times', () => {
+    // Wording from issue 6: "IRR not defined: cash flows change sign three times".
+    expect(irrUndefinedReading('multiple-roots', [-100, 230, -132, 5])).toContain('IRR not defined: cash flows change sign three times');
+  });
+
+  it('says the flows never change sign when there is nothing to earn a rate on', () => {
+    // MODEL.md: no sign change → IRR null with reason no-sign-change.
+    expect(irrUndefinedReading('no-sign-change', [0, 10, 10])).toMatch(/never change sign/);
+  });
+
+  it('compares a defined IRR with the discount rate in the farm locale', () => {
+    // en-IE percent format from CLDR via Intl (from memory): "8.2%".
+    expect(irrReading(0.082, undefined, [-100, 60, 60], 0.06, en)).toBe('earns 8.2% a year, above the 6.0% discount rate');
+  });
+});
+
+describe('coverage and other readings', () => {
+  it('reads the lowest coverage against the lender threshold as the issue words it', () => {
+    // Wording from issue 6: "coverage lowest in year 2 at 1.08 — below the lender's 1.25".
+    expect(coverageReading({ year: 2, value: 1.08 }, 1.25, en)).toBe("coverage lowest in year 2 at 1.08 — below the lender's 1.25");
+  });
+
+  it('treats coverage exactly at the threshold as meeting it', () => {
+    // A lender's minimum DSCR of 1.25 is met at 1.25 (common practice, no source).
+    expect(coverageReading({ year: 5, value: 1.25 }, 1.25, en)).toContain('at or above');
+  });
+
+  it('explains an undefined profitability index and break-even response', () => {
+    // MODEL.md: a metric that cannot be computed is null with a reason.
+    expect(profitabilityIndexReading(null, en)).toMatch(/^not defined: /);
+    expect(breakEvenLyingResponseReading(null, 'same-lying-time', 1, 'Grazing as today', en)).toMatch(/same lying time as Grazing as today/);
+  });
+});

@@ -1,0 +1,227 @@
+import { describe, expect, it } from 'vitest';
+import { evaluateNpvOnly, evaluateScenario, metricsOf } from '../../../shared/engine/evaluate';
+import type { OptionResult } from '../../../shared/engine/results';
+import { demoScenario } from './fixtures';
+import { handScenario } from './hand-scenario';
+
+const v = 1 / 1.06;
+
+function option(results: ReturnType<typeof evaluateScenario>, id: string): OptionResult {
+  const found = results.options.find((o) => o.id === id);
+  if (!found) throw new Error(`no option ${id}`);
+  return found;
+}
+
+describe('metric conventions', () => {
+  it('discounts year 0 by nothing (numpy / financial npv convention)', () => {
+    // Gitman (2003) p. 346 via numpy-financial npv docs (read): 8 %; −40 000, 5000, 8000, 12 000, 30 000 → 3065.22267.
+    const metrics = metricsOf([-40_000, 5000, 8000, 12_000, 30_000], 0.08, 0.08);
+    expect(metrics.npv).toBeCloseTo(3065.22267, 4);
+    // Spreadsheet NPV() would discount the first flow: 3065.22267 / 1.08 = 2838.16914 — not what we report.
+    expect(metrics.npv).not.toBeCloseTo(2838.16914, 0);
+  });
+
+  it('reports IRR and a null IRR with a reason', () => {
+    // Gitman p. 348 via numpy-financial irr docs (read): −100, 39, 59, 55, 20 → 0.28095.
+    expect(metricsOf([-100, 39, 59, 55, 20], 0.1, 0.1).irr).toBeCloseTo(0.28095, 5);
+    // All positive flows: no rate makes NPV 0 (MODEL.md: null with a reason, never a wrong number).
+    const none = metricsOf([100, 39, 59], 0.1, 0.1);
+    expect(none.irr).toBeNull();
+    expect(none.irrReason).toBe('no-sign-change');
+  });
+});
+
+describe('evaluateScenario on the hand-calculated case', () => {
+  const results = evaluateScenario(handScenario());
+  const candidate = option(results, 'candidate');
+  const current = option(results, 'current');
+
+  it('puts year 0 as −capital and no loan proceeds in the project flows', () => {
+    // Project (unlevered) view, shared/engine/README.md: year 0 = grants − capital = −100 000.
+    expect(candidate.cashFlows[0]).toBe(-100_000);
+    expect(candidate.capitalTotal).toBe(100_000);
+    expect(candidate.capitalPerStall).toBeCloseTo(100_000 / 100, 9);
+    expect(current.cashFlows[0]).toBe(0);
+  });
+
+  it('builds each yearly line from the hand calculation', () => {
+    // Year 1: yield 30 + 1.0 × 1 h × 0.5 = 30.5 kg; milk 100 × 30.5 × 365 = 1 113 250 kg × 0.40 = 445 300.00.
+    // Feed 100 × 365 × 5 = 182 500 + 0.15 × (1 113 250 − 1 095 000 = 18 250 kg) = 2737.50 → 185 237.50.
+    const year1 = candidate.years[1];
+    expect(year1?.yieldKgPerCowDay).toBeCloseTo(30.5, 12);
+    expect(year1?.milkSoldKg).toBeCloseTo(1_113_250, 6);
+    expect(year1?.milkIncome).toBe(445_300);
+    expect(year1?.feed).toBe(185_237.5);
+    // Margin 445 300 − 185 237.50 = 260 062.50; no tax; net = margin.
+    expect(year1?.operatingMargin).toBe(260_062.5);
+    expect(year1?.netCashFlow).toBe(260_062.5);
+    // Year 5 salvage: 100 000 × (20 − 5)/20 = 75 000.
+    expect(candidate.years[5]?.salvage).toBe(75_000);
+  });
+
+  it('gives the incremental flows against the current option', () => {
+    // Extra milk 100 × 0.5 × 365 = 18 250 kg × (0.40 − 0.15) = 4562.50 in year 1; 36 500 kg × 0.25 = 9125 after;
+    // year 5 adds salvage 75 000 → 84 125.
+    expect(candidate.incremental?.cashFlows).toEqual([-100_000, 4562.5, 9125, 9125, 9125, 84_125]);
+  });
+
+  it('gives NPV, payback and profitability index on those flows', () => {
+    // NPV = −100 000 + 4562.5v + 9125(v² + v³ + v⁴) + 84 125v⁵, v = 1/1.06 → −9822.06.
+    const npv = -100_000 + 4562.5 * v + 9125 * (v ** 2 + v ** 3 + v ** 4) + 84_125 * v ** 5;
+    expect(candidate.incremental?.npv).toBeCloseTo(npv, 6);
+    expect(npv).toBeCloseTo(-9822.06, 2);
+    // Payback: cumulative −68 062.50 after year 4; 4 + 68 062.50 / 84 125 = 4.80906 (MODEL.md interpolation).
+    expect(candidate.incremental?.paybackYears).toBeCloseTo(4 + 68_062.5 / 84_125, 12);
+    // Discounted payback: never (NPV < 0 at H).
+    expect(candidate.incremental?.discountedPaybackYears).toBeNull();
+    expect(candidate.incremental?.profitabilityIndex).toBeCloseTo((npv + 100_000) / 100_000, 9);
+  });
+
+  it('finds the break-even milk price', () => {
+    // NPV(p) = −100 000 + 75 000v⁵ + (p − 0.15)(18 250v + 36 500(v² + v³ + v⁴ + v⁵)) = 0
+    // → p = 0.15 + (100 000 − 75 000v⁵) / (18 250v + 36 500(v² + v³ + v⁴ + v⁵)) = 0.471938.
+    const expected = 0.15 + (100_000 - 75_000 * v ** 5) / (18_250 * v + 36_500 * (v ** 2 + v ** 3 + v ** 4 + v ** 5));
+    expect(candidate.incremental?.breakEvenMilkPrice).toBeCloseTo(expected, 7);
+    expect(expected).toBeCloseTo(0.471938, 6);
+  });
+
+  it('finds the break-even lying-time response', () => {
+    // NPV(g) = −100 000 + 75 000v⁵ + g × 1 h × 36 500 × 0.25 × (0.5v + v² + v³ + v⁴ + v⁵) = 0 → g = 1.287754 kg/h,
+    // inside the 0.9–1.6 kg/h range reported from Miner Institute research (REFERENCES.md, read, secondary).
+    const expected = (100_000 - 75_000 * v ** 5) / (9125 * (0.5 * v + v ** 2 + v ** 3 + v ** 4 + v ** 5));
+    expect(candidate.incremental?.breakEvenLyingResponse).toBeCloseTo(expected, 7);
+    expect(expected).toBeCloseTo(1.287754, 6);
+  });
+
+  it('borrows capital − equity − grants and schedules it in cents', () => {
+    // 100 000 at 5 % over 5 annual payments: 100 000 × 0.05 / (1 − 1.05⁻⁵) = 23 097.48; year-1 interest 5000.00.
+    expect(candidate.loan.amount).toBe(100_000);
+    expect(candidate.loan.years[0]?.payment).toBe(23_097.48);
+    expect(candidate.loan.years[0]?.interest).toBe(5000);
+    expect(candidate.loan.totalPrincipal).toBe(100_000);
+    expect(candidate.years[1]?.loanInterest).toBe(5000);
+    expect(candidate.years[1]?.loanPrincipal).toBe(18_097.48);
+    // Financed view: year 0 = −100 000 + loan 100 000 = 0; year 1 = 260 062.50 − 23 097.48 = 236 965.02.
+    expect(candidate.financedCashFlows[0]).toBe(0);
+    expect(candidate.financedCashFlows[1]).toBe(236_965.02);
+    expect(current.loan.amount).toBe(0);
+  });
+
+  it('gives project and whole-farm coverage (FFSC: cash for debt service ÷ P + I)', () => {
+    // Year 1: project = 4562.50 / 23 097.48 = 0.197532; whole farm = (50 000 + 4562.50) / (20 000 + 23 097.48) = 1.266040.
+    const year1 = candidate.coverage[0];
+    expect(year1?.project).toBeCloseTo(4562.5 / 23_097.48, 9);
+    expect(year1?.wholeFarm).toBeCloseTo(54_562.5 / 43_097.48, 9);
+    // Lowest whole farm is year 1 (year 2..5 carry 9125 of extra cash).
+    expect(candidate.lowestCoverage?.year).toBe(1);
+    // Below the 1.25 default threshold (common practice, no source)? 1.266 is not.
+    expect(candidate.yearsBelowCoverageThreshold).toEqual([]);
+    // The current option: no project ratio; whole farm 50 000 / 20 000 = 2.5.
+    expect(current.coverage[0]).toEqual({ year: 1, project: null, wholeFarm: 2.5 });
+  });
+
+  it('reports the sizing of the option', () => {
+    // 100 cows at 1 cow per stall → 100 stalls; 2 troughs × 4 m = 8 m ≥ 100 × 7.6 cm = 7.6 m (Penn State Extension).
+    expect(candidate.stalls).toBe(100);
+    expect(candidate.sizing.waterCheck.status).toBe('within');
+    expect(candidate.sizing.stallCheck.status).toBe('not-given');
+  });
+});
+
+describe('evaluateScenario: tax, grants and herd change', () => {
+  it('taxes each option and carries the interest and depreciation shield', () => {
+    // 25 % tax, straight line 100 000 / 20 = 5000 a year.
+    // Current year 1: margin 438 000 − 182 500 = 255 500 → tax 63 875.00.
+    // Candidate year 1: 260 062.50 − 5000 − 5000 interest = 250 062.50 × 25 % = 62 515.625 → 62 515.63 (half-up).
+    // Incremental year 1 = 4562.50 − (62 515.63 − 63 875) = 5921.87.
+    const results = evaluateScenario(handScenario((s) => (s.finance.taxRate = 0.25)));
+    const candidate = option(results, 'candidate');
+    expect(option(results, 'current').years[1]?.tax).toBe(63_875);
+    expect(candidate.years[1]?.depreciation).toBe(5000);
+    expect(candidate.years[1]?.tax).toBe(62_515.63);
+    expect(candidate.incremental?.cashFlows[1]).toBe(5921.87);
+    // Year 2 interest 5 % × 81 902.52 = 4095.126 → 4095.13; taxable 264 625 − 5000 − 4095.13 = 255 529.87 × 25 % = 63 882.4675 → 63 882.47;
+    // incremental 9125 − (63 882.47 − 63 875) = 9117.53.
+    expect(candidate.years[2]?.loanInterest).toBe(4095.13);
+    expect(candidate.incremental?.cashFlows[2]).toBe(9117.53);
+    // Year 5: salvage 75 000 equals the tax book value 100 000 − 5 × 5000, so no gain is taxed.
+    expect(candidate.years[5]?.taxableIncome).toBe(264_625 - 5000 - (candidate.years[5]?.loanInterest ?? 0));
+  });
+
+  it('carries losses forward when they may not offset other income', () => {
+    // Rate 25 %, no offset, margin cut to a loss by a 300 000 running cost: year-1 taxable < 0 → no tax (not a refund).
+    const results = evaluateScenario(
+      handScenario((s) => {
+        s.finance.taxRate = 0.25;
+        s.finance.lossesOffsetOtherIncome = false;
+        const candidate = s.options[1];
+        if (candidate) candidate.runningCosts = [{ id: 'x', description: 'Loss maker', amountPerYear: 300_000 }];
+      }),
+    );
+    const candidate = option(results, 'candidate');
+    // 260 062.50 − 300 000 − 5000 − 5000 = −49 937.50 → tax 0 (carried).
+    expect(candidate.years[1]?.taxableIncome).toBe(-49_937.5);
+    expect(candidate.years[1]?.tax).toBe(0);
+    // Year 2: taxable 264 625 − 300 000 − … < 0 again → still 0; no year pays negative tax.
+    expect(candidate.years.every((y) => y.tax >= 0)).toBe(true);
+  });
+
+  it('takes grants into year 0 and out of the loan', () => {
+    // Grants 20 000: year 0 = 20 000 − 100 000 = −80 000; loan 100 000 − 20 000 = 80 000.
+    const candidate = option(evaluateScenario(handScenario((s) => (s.finance.grants = 20_000))), 'candidate');
+    expect(candidate.cashFlows[0]).toBe(-80_000);
+    expect(candidate.loan.amount).toBe(80_000);
+    expect(candidate.financing).toEqual({ grants: 20_000, equity: 0, loanAmount: 80_000 });
+  });
+
+  it('buys added cows at year 0 and values them at cull value in year H', () => {
+    // 10 added cows × 2000 (replacement heifer cost) = 20 000 in year 0; year 5: 10 × 800 = 8000 herd value.
+    // Year-1 milk: 110 × 30.5 × 365 × 0.40 = 489 830.00.
+    const results = evaluateScenario(
+      handScenario((s) => {
+        const candidate = s.options[1];
+        if (candidate) candidate.herdChange = { addedCows: 10 };
+      }),
+    );
+    const candidate = option(results, 'candidate');
+    expect(candidate.cashFlows[0]).toBe(-120_000);
+    expect(candidate.years[0]?.herdPurchases).toBe(20_000);
+    expect(candidate.years[1]?.milkIncome).toBe(489_830);
+    expect(candidate.years[5]?.herdValueAtHorizon).toBe(8000);
+    // Stalls follow the largest herd: 110.
+    expect(candidate.stalls).toBe(110);
+  });
+});
+
+describe('fast path', () => {
+  it('agrees with the full evaluation to 0.01 on the demo scenario', () => {
+    const scenario = demoScenario();
+    const full = evaluateScenario(scenario);
+    const fast = evaluateNpvOnly(scenario, { incrementalIrr: true });
+    for (const result of full.options) {
+      const quick = fast.find((f) => f.id === result.id);
+      expect(quick).toBeDefined();
+      expect(Math.abs((quick?.npv ?? NaN) - result.npv)).toBeLessThanOrEqual(0.01);
+      if (result.incremental) expect(Math.abs((quick?.incrementalNpv ?? NaN) - result.incremental.npv)).toBeLessThanOrEqual(0.01);
+      else expect(quick?.incrementalNpv).toBeNull();
+      if (result.irr === null) expect(quick?.irr).toBeNull();
+      else expect(quick?.irr).toBeCloseTo(result.irr, 9);
+      expect(quick?.minCoverage ?? null).toBe(result.lowestCoverage?.value ?? null);
+      if (result.incremental?.irr != null) expect(quick?.incrementalIrr).toBeCloseTo(result.incremental.irr, 9);
+    }
+  });
+
+  it('evaluates 5 options well inside the Monte Carlo budget', () => {
+    // Budget from the risk engine: 10 000 draws × 5 options in about a second on one core.
+    // CPU time of this process, so other work on the machine does not count.
+    const scenario = demoScenario();
+    for (let i = 0; i < 200; i++) evaluateNpvOnly(scenario);
+    const start = process.cpuUsage();
+    const runs = 1000;
+    for (let i = 0; i < runs; i++) evaluateNpvOnly(scenario);
+    const used = process.cpuUsage(start);
+    const perScenarioMs = (used.user + used.system) / 1000 / runs;
+    // 0.5 ms per 5-option scenario = 5 s for 10 000 draws: a loose bound that still catches a slow path.
+    expect(perScenarioMs).toBeLessThan(0.5);
+  });
+});
