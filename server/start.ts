@@ -43,4 +43,5 @@ if (running.seed) {
   console.log(`Demo sign-ins (password "${running.seed.password}", for local use only):`);
   for (const a of running.seed.accounts) console.log(`  ${a.role ?? 'administrator'}: ${a.email}`);
 }
+if (!config.smtpUrl) console.log(`E-mail is not sent (no SMTP_URL): invitations and reset links land in ${running.url}/dev/outbox`);
 console.log('Press Ctrl-C to stop (MariaDB stops with it).');
