@@ -1,7 +1,7 @@
 import type { CapitalLine, Herd, Option, RunningCostLine, Source, StartingPoint } from './schema';
 import { stallsFor } from './engine/sizing';
 import { beddingTonnesPerYear, beddingToStorageM3PerYear } from './engine/bedding';
-import { manureStorageVolumeM3, MIN_TROUGH_PERIMETER_PER_COW_M } from './engine/sizing';
+import { manureStorageVolumeM3, MIN_TROUGH_PERIMETER_PER_COW_M, STALL_GUIDANCE, type Range } from './engine/sizing';
 
 // Sources of the defaults. 'reference' names a REFERENCES.md source, 'common-practice' a trade
 // rule of thumb, 'assumption' an invented planning figure the user should replace.
@@ -223,6 +223,22 @@ const STALLS_PER_AUTOMATIC_SCRAPER = 60;
 // Drinking edge per trough.
 const TROUGH_PERIMETER_M = 3;
 
+const middle = (range: Range): number => Math.round(((range.min + range.max) / 2) * 100) / 100;
+
+/** Closed-front stall dimensions (m) in the middle of the guidance for the herd's breed size, to the cm. */
+function guidanceStall(breedSize: Herd['breedSize']): NonNullable<Option['stallDimensions']> {
+  const guidance = STALL_GUIDANCE[breedSize];
+  return {
+    front: 'closed',
+    widthM: middle(guidance.widthM),
+    lengthM: middle(guidance.lengthClosedFrontM),
+    neckRailHeightM: middle(guidance.neckRailHeightM),
+    neckRailFromCurbM: middle(guidance.neckRailFromCurbM),
+    brisketLocatorFromCurbM: middle(guidance.brisketLocatorFromCurbM),
+    brisketLocatorHeightM: middle(guidance.brisketLocatorHeightM),
+  };
+}
+
 interface CreateOptionSettings {
   id: string;
   name?: string;
@@ -303,7 +319,7 @@ function energyLinesFor(defaults: Defaults, stalls: number): Option['energyLines
 
 /**
  * A new option from a starting point for this herd: stalls sized from the herd and a stocking
- * rate of 1, water troughs for 7.6 cm of edge per cow, the store's surface from its sized
+ * rate of 1, stall dimensions in the middle of the guidance for the breed size, water troughs for 7.6 cm of edge per cow, the store's surface from its sized
  * volume, and invented capital costs tagged 'assumption'. Every default carries its source.
  */
 export function createOption(startingPoint: StartingPoint, herd: Herd, settings: CreateOptionSettings): Option {
@@ -335,6 +351,7 @@ export function createOption(startingPoint: StartingPoint, herd: Herd, settings:
     lyingHoursPerDay: defaults.lyingHoursPerDay,
     systemYieldAdjustment: 0,
     stockingRate,
+    ...(defaults.bed === 'none' ? {} : { stallDimensions: guidanceStall(herd.breedSize) }),
     feedCostPerCowDay: { ...herd.feedCostPerCowDay },
     health: { ...defaults.health },
     herdChange: { cowsByYear: null, addedCows: 0, addedCowCost: null },
@@ -350,6 +367,7 @@ export function createOption(startingPoint: StartingPoint, herd: Herd, settings:
       ...COMMON_SOURCES,
       ...defaults.sources,
       ...capital.sources,
+      stallDimensions: ref('middle of the dairy cattle extension guidance "Design considerations for dairy cattle free stalls" for the breed size, closed front'),
       energyLines: assumed('invented electricity use and price'),
       runningCosts: assumed('invented yearly running costs'),
       ...(settings.current ? { capitalLines: assumed('the current housing is already paid for (sunk cost)') } : {}),

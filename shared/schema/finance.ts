@@ -24,7 +24,7 @@ export const financeSchema = z
     decliningBalanceFactor: quantity('Declining-balance factor', '', 1, 3, 'Declining-balance factor (2 = 200 % DB), switching to straight line when larger').default(2),
     lossesOffsetOtherIncome: flag('Losses offset other income', 'True: a taxable loss saves tax that year against other farm income; false: losses carry forward').default(true),
     coverageThreshold: quantity('Coverage threshold', '', 0.5, 5, "Lender's minimum debt-service coverage ratio (ratio)").default(1.25),
-  })
+  }, { error: 'Finance must be an object with its fields' })
   .superRefine((finance, ctx) => {
     // The schedule pays interest only for whole payment periods, rounded up.
     const interestOnlyPeriods = Math.ceil((finance.interestOnlyMonths * finance.paymentsPerYear) / 12);

@@ -47,10 +47,11 @@ export const herdSchema = z
     milkPricePerKg: money('Milk price', 'Milk price today (currency per kg)', 0, 100000),
     growth: growthRatesSchema.prefault({}),
     feedCostPerCowDay: z
-      .object({
+      .object(
+        {
         housed: money('Housed feed cost', 'Feed cost per cow per housed day today (currency per cow-day)', 0, 100000),
         grazing: money('Grazing feed cost', 'Feed cost per cow per grazing day today (currency per cow-day)', 0, 100000),
-      })
+      }, { error: 'Herd feed cost per cow-day must be an object with its fields' })
       .describe('Baseline feed cost per cow-day; new options copy it'),
     marginalFeedCostPerKgMilk: money('Marginal feed cost', 'Extra feed cost per extra kg of milk today (currency per kg milk)', 0, 100000),
     wagePerHour: money('Wage', 'Labour cost per hour today (currency per hour)', 0, 100000),
@@ -59,7 +60,7 @@ export const herdSchema = z
         nitrogenPerKg: money('Nitrogen price', 'Fertiliser N price today (currency per kg N)', 0, 100000),
         phosphatePerKg: money('Phosphate price', 'Fertiliser P2O5 price today (currency per kg P2O5)', 0, 100000),
         potashPerKg: money('Potash price', 'Fertiliser K2O price today (currency per kg K2O)', 0, 100000),
-      })
+      }, { error: 'Fertiliser prices must be an object with its fields' })
       .describe('Bought fertiliser prices per kg of nutrient'),
     lyingResponseKgPerHour: quantity('Lying-time milk response', 'kg/cow/day per hour', 0, 5, 'Extra milk per extra hour of lying (kg per cow per day per h); default 1.0, common practice').default(1),
     lyingResponseYear1Fraction: rate('Year-1 ramp fraction', 0, 1, 'Share of the lying-time response reached in year 1 (fraction); full from year 2').default(0.5),
@@ -70,7 +71,7 @@ export const herdSchema = z
     manureExcretion: manureExcretionSchema.prefault({}),
     nutrientAvailability: nutrientAvailabilitySchema.prefault({}),
     manureDensityKgPerM3: quantity('Manure density', 'kg/m3', 500, 2000, 'Density of liquid dairy manure (kg per m3); about 1000, from memory').default(1000),
-  })
+  }, { error: 'Herd and markets must be an object with its fields' })
   .describe('Farm and herd baseline and markets');
 
 export type Herd = z.infer<typeof herdSchema>;

@@ -126,7 +126,7 @@ export const healthSchema = z
     injuriesPer100Cows: per100('Injuries', 'Hock, knee and other housing injuries'),
     injuryCostPerCase: perCase('Injury cost', 'Cost of an injury'),
     extraCullsPer100Cows: quantity('Extra culls', 'per 100 cows per year', 0, 100, 'Culls caused by the housing beyond the herd norm (cows per 100 cows per year)'),
-  })
+  }, { error: 'Health must be an object with its fields' })
   .describe('Health rates and costs per case; grow with general inflation');
 
 export const herdChangeSchema = z
@@ -155,7 +155,7 @@ export const labourSchema = z
     troughCleaningsPerDay: quantity('Trough cleanings', 'cleanings/day', 0, 12, 'Water trough cleanings per housed day'),
     minutesPerTroughCleaning: quantity('Minutes per trough', 'min', 0, 120, 'Labour to clean one trough once (minutes)'),
     grazingHoursPerGrazingDay: quantity('Grazing work', 'h/day', 0, 48, 'Fetching cows, fencing, moving water per grazing day (hours)'),
-  })
+  }, { error: 'Labour must be an object with its fields' })
   .describe('Labour drivers');
 
 export const waterSchema = z
@@ -163,7 +163,7 @@ export const waterSchema = z
     troughs: quantity('Water troughs', 'troughs', 0, 1000, 'Water troughs in the housing (count)', { int: true }),
     troughPerimeterM: quantity('Trough perimeter', 'm', 0, 100, 'Drinking perimeter available per trough (m)'),
     fillRateLitresPerMinute: quantity('Trough fill rate', 'L/min', 0, 2000, 'Refill flow per trough (litres per minute)'),
-  })
+  }, { error: 'Water must be an object with its fields' })
   .describe('Water troughs (count, perimeter, fill rate)');
 
 export const beddingSchema = z
@@ -173,7 +173,7 @@ export const beddingSchema = z
     pricePerTonne: money('Bedding price', 'Bedding price today (currency per tonne)', 0, 1e6),
     bulkDensityTonnesPerM3: quantity('Bedding bulk density', 't/m3', 0.05, 3, 'Bulk density of the bedding as it reaches the manure store (t per m3)'),
     shareToManureStorage: rate('Bedding to storage', 0, 1, 'Share of used bedding that ends up in the manure storage (fraction)'),
-  })
+  }, { error: 'Bedding must be an object with its fields' })
   .describe('Bedding material');
 
 export const manureSchema = z
@@ -186,7 +186,7 @@ export const manureSchema = z
     openStorageAreaM2: quantity('Open storage area', 'm2', 0, 1e6, 'Surface area of the storage open to rain (m2)'),
     netRainMPerYear: quantity('Net rain', 'm/yr', 0, 10, 'Rain minus evaporation on the open storage (m per year)'),
     freeboardM: quantity('Freeboard', 'm', 0, 3, 'Freeboard depth kept empty over the open storage area (m)'),
-  })
+  }, { error: 'Manure must be an object with its fields' })
   .describe('Manure collection, handling and storage');
 
 export const optionSchema = z
@@ -208,7 +208,7 @@ export const optionSchema = z
       .object({
         housed: money('Housed feed cost', 'Feed cost per cow per housed day today (currency per cow-day)', 0, 100000),
         grazing: money('Grazing feed cost', 'Feed cost per cow per grazing day today (currency per cow-day)', 0, 100000),
-      })
+      }, { error: 'Option feed cost per cow-day must be an object with its fields' })
       .describe('Feed cost per cow-day, housed and grazing'),
     health: healthSchema,
     herdChange: herdChangeSchema.prefault({}),
@@ -221,7 +221,7 @@ export const optionSchema = z
     capitalLines: z.array(capitalLineSchema).max(100, 'Capital lines: at most 100').default([]).describe('Capital lines bought at year 0 (currency, today\'s money)'),
     runningCosts: z.array(runningCostLineSchema).max(100, 'Running costs: at most 100').default([]).describe('Other yearly running costs (currency per year)'),
     sources: sourcesSchema,
-  })
+  }, { error: 'Option must be an object with its fields' })
   .superRefine((option, ctx) => {
     const ids = new Set<string>();
     option.capitalLines.forEach((line, index) => {

@@ -30,7 +30,7 @@ export const scenarioSchema = z
     units: choice('Units', ['metric', 'us'], 'Display units only; stored values are SI').default('metric'),
     herd: herdSchema,
     options: z
-      .array(optionSchema)
+      .array(optionSchema, { error: 'Options must be a list of options' })
       .min(1, 'Options: a scenario needs at least one option')
       .max(12, 'Options: a scenario holds at most 12 options')
       .describe('Housing options (1..12), exactly one of them current'),

@@ -128,6 +128,99 @@ describe('evaluateScenario on the hand-calculated case', () => {
   });
 });
 
+describe('evaluateScenario: every named line of a year', () => {
+  // Year 2 of the candidate with wage growth 3 %, bedding, fertiliser and general growth 2 %
+  // (growth factors 1.03² = 1.0609 and 1.02² = 1.0404; MODEL.md: today's money grown to year t).
+  const results = evaluateScenario(
+    handScenario((s) => {
+      s.herd.growth = { milkPrice: 0, feed: 0, wages: 0.03, bedding: 0.02, fertiliser: 0.02, general: 0.02 };
+      s.herd.fertiliserPrices = { nitrogenPerKg: 1.1, phosphatePerKg: 0.9, potashPerKg: 0.6 };
+      const candidate = s.options[1];
+      if (!candidate) return;
+      candidate.labour = { scrapingPassesPerDay: 2, minutesPerScrapingPass: 15, bedCleaningsPerDay: 2, secondsPerStallCleaning: 10, beddingTonnesPerHour: 1, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 3 };
+      candidate.bedding = { material: 'sawdust', kgPerStallDay: 1, pricePerTonne: 60, bulkDensityTonnesPerM3: 0.25, shareToManureStorage: 1 };
+      candidate.health = { lamenessCasesPer100Cows: 24, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 0, mastitisCostPerCase: 0, injuriesPer100Cows: 0, injuryCostPerCase: 0, extraCullsPer100Cows: 2 };
+      candidate.maintenanceRate = 0.01;
+      candidate.energyLines = [{ id: 'fans', description: 'Fans', kwhPerYear: 1000, pricePerKwh: 0.25 }];
+      candidate.runningCosts = [{ id: 'misc', description: 'Sundries', amountPerYear: 500, growth: 'general' }];
+      candidate.manure = { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 120, washWaterM3PerCowDay: 0.05, openStorageAreaM2: 0, netRainMPerYear: 0, freeboardM: 0 };
+    }),
+  );
+  const year2 = option(results, 'candidate').years[2];
+
+  it('costs labour by task', () => {
+    // Scraping 2 × 15 min ÷ 60 × 365 = 182.5 h × 15.00 × 1.0609 = 2904.21375 → 2904.21.
+    expect(year2?.labourScraping).toBe(2904.21);
+    // Bed care 2 × 10 s × 100 stalls ÷ 3600 × 365 = 202.78 h × 15 × 1.0609 = 3226.904 → 3226.90.
+    expect(year2?.labourBedCare).toBe(3226.9);
+    // Troughs 1 × 5 min × 2 troughs ÷ 60 × 365 = 60.83 h × 15 × 1.0609 = 968.071 → 968.07.
+    expect(year2?.labourTroughs).toBe(968.07);
+    // Bedding top-up 36.5 t ÷ 1 t/h = 36.5 h × 15 × 1.0609 = 580.84275 → 580.84.
+    expect(year2?.labourBeddingTopUp).toBe(580.84);
+    // A freestall has no grazing days, so 3 h per grazing day costs nothing.
+    expect(year2?.labourGrazing).toBe(0);
+    expect(year2?.labourHours.total).toBeCloseTo(182.5 + 202.7777778 + 60.8333333 + 36.5, 6);
+  });
+
+  it('costs bedding, health, culling, maintenance, energy and running costs', () => {
+    // Bedding 1 kg × 100 stalls × 365 = 36.5 t × 60 = 2190 × 1.0404 = 2278.476 → 2278.48.
+    expect(year2?.bedding).toBe(2278.48);
+    expect(year2?.beddingTonnes).toBeCloseTo(36.5, 9);
+    // Lameness 24 per 100 (Cook et al. 2004 mattress prevalence) × 1 × 300 = 7200 × 1.0404 = 7490.88.
+    expect(year2?.health).toBe(7490.88);
+    // Extra culls 2 per 100 × 1 × (2000 − 800) = 2400 × 1.0404 = 2496.96.
+    expect(year2?.culling).toBe(2496.96);
+    // Maintenance 1 % × 100 000 = 1000 × 1.0404; energy 1000 kWh × 0.25 = 250 × 1.0404; sundries 500 × 1.0404.
+    expect(year2?.maintenance).toBe(1040.4);
+    expect(year2?.energy).toBe(260.1);
+    expect(year2?.runningCosts).toBe(520.2);
+  });
+
+  it('values the manure and costs its handling', () => {
+    // 100 cows × 365 × 0.95 = 34 675 cow-days. N 0.45 × 34 675 × 0.35 × 1.10 = 6007.44; P 0.078 × 34 675 × 2.2910 × 0.90 = 5576.72;
+    // K 0.10 × 34 675 × 1.2051 × 0.60 = 2507.21 (ASABE D384.2 from memory; SPES-201NP; Cornell CSS 412) → 14 091.372 × 1.0404 = 14 660.66.
+    expect(year2?.manureValue).toBe(14_660.66);
+    // Stored: 68 × 34 675 ÷ 1000 = 2357.9 m³ + wash 0.05 × 100 × 365 = 1825 + sawdust 36.5 t ÷ 0.25 t/m³ = 146 → 4328.9 m³
+    // × 2.50 = 10 822.25 × 1.0404 = 11 259.4689 → 11 259.47.
+    expect(year2?.manure.storedM3).toBeCloseTo(4328.9, 6);
+    expect(year2?.manureHandling).toBe(11_259.47);
+  });
+
+  it('sums the lines into the margin and the net cash flow exactly', () => {
+    if (!year2) throw new Error('no year 2');
+    const costs = year2.feed + year2.labourScraping + year2.labourBedCare + year2.labourBeddingTopUp + year2.labourTroughs + year2.labourGrazing +
+      year2.bedding + year2.health + year2.culling + year2.maintenance + year2.energy + year2.runningCosts + year2.manureHandling;
+    expect(year2.operatingMargin).toBeCloseTo(year2.milkIncome + year2.manureValue - costs, 9);
+    expect(year2.netCashFlow).toBeCloseTo(year2.operatingMargin - year2.replacements - year2.herdPurchases - year2.tax, 9);
+  });
+});
+
+describe('evaluateScenario: replacements and equivalent annual cost', () => {
+  it('replaces a short-lived line inside the horizon and values the last one at H', () => {
+    // Mattresses 100 stalls × 200 = 20 000, life 2, H 5, no inflation: bought at 0, again at 2 and 4; at H the
+    // year-4 set is 1 year old: 20 000 × 1/2 = 10 000 salvage, plus the barn's 75 000.
+    const candidate = option(
+      evaluateScenario(
+        handScenario((s) => {
+          s.options[1]?.capitalLines?.push({ kind: 'item', id: 'mats', description: 'Mattresses', category: 'beds', unit: 'per-stall', quantity: null, unitCost: 200, lifeYears: 2, replaceAtEndOfLife: true });
+        }),
+      ),
+      'candidate',
+    );
+    expect(candidate.years.map((y) => y.replacements)).toEqual([0, 0, 20_000, 0, 20_000, 0]);
+    expect(candidate.years[5]?.salvage).toBe(85_000);
+    expect(candidate.capitalTotal).toBe(120_000);
+  });
+
+  it('gives the equivalent annual cost per stall with the capital recovery factor', () => {
+    // (100 000 − 75 000 × 1.06⁻⁵) × CRF(6 %, 5) ÷ 100 stalls; CRF = 0.06 / (1 − 1.06⁻⁵) = 0.2373964.
+    const candidate = option(evaluateScenario(handScenario()), 'candidate');
+    const crf = 0.06 / (1 - 1.06 ** -5);
+    expect(crf).toBeCloseTo(0.2373964, 7);
+    expect(candidate.equivalentAnnualCostPerStall).toBeCloseTo(((100_000 - 75_000 * v ** 5) * crf) / 100, 2);
+  });
+});
+
 describe('evaluateScenario: tax, grants and herd change', () => {
   it('taxes each option and carries the interest and depreciation shield', () => {
     // 25 % tax, straight line 100 000 / 20 = 5000 a year.

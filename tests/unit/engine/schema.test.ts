@@ -67,6 +67,11 @@ describe('scenario schema', () => {
     expect(messages(result)).toContain('Herd size must be a number');
   });
 
+  it('names a missing group of fields', () => {
+    expect(messages(withChange((s) => delete (s as Record<string, unknown>).herd))).toContain('Herd and markets must be an object with its fields');
+    expect(messages(withChange((s) => delete (s.options[1] as Record<string, unknown>).labour))).toContain('Labour must be an object with its fields');
+  });
+
   it('refuses a scenario without exactly one current option', () => {
     const none = withChange((s) => s.options.forEach((o) => (o.current = false)));
     expect(messages(none)).toContain('Options: exactly one option must be the current option (found 0)');

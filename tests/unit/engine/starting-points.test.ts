@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { optionSchema, startingPoints } from '../../../shared/schema';
+import { checkStallDimensions } from '../../../shared/engine/sizing';
 import { createOption, STARTING_POINT_ORDER } from '../../../shared/starting-points';
 import { parsedHerd } from './fixtures';
 
@@ -56,6 +57,16 @@ describe('starting points', () => {
     // MODEL.md: no bedding for bare mattresses; an automatic scraper has ~0 labour.
     expect(createOption('steel-freestall', herd, { id: 'h' }).bedding.kgPerStallDay).toBe(0);
     expect(createOption('mattress-freestall', herd, { id: 'i' }).labour.scrapingPassesPerDay).toBe(0);
+  });
+
+  it('fills stall dimensions that pass the guidance check for the breed size', () => {
+    // Dairy cattle extension, "Design considerations for dairy cattle free stalls" (read): the middle of each range passes.
+    for (const breedSize of ['small', 'large'] as const) {
+      const option = createOption('flexible-freestall', { ...herd, breedSize }, { id: breedSize });
+      expect(checkStallDimensions(option.stallDimensions, breedSize).status).toBe('within');
+    }
+    // Large cows: width 48–52 in → middle 50 in = 1.27 m.
+    expect(createOption('sand-freestall', herd, { id: 'w' }).stallDimensions?.widthM).toBe(1.27);
   });
 
   it('starts the current option without capital lines (its housing is sunk cost)', () => {
