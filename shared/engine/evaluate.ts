@@ -30,12 +30,16 @@ export function metricsOf(cashFlows: number[], discountRate: number, financeRate
     cashFlows,
     npv: npv(discountRate, cashFlows),
     irr: irrResult.value,
-    ...(irrResult.value === null ? { irrReason: irrResult.reason } : {}),
+    ...(irrResult.value === null ? { irrReason: irrResult.reason } : { irrKind: firstNonZero(cashFlows) > 0 ? 'borrowing' : 'investment' }),
     mirr: finiteOrNull(mirr(cashFlows, financeRate, discountRate)),
     paybackYears: paybackYears(cashFlows),
     discountedPaybackYears: discountedPaybackYears(discountRate, cashFlows),
     profitabilityIndex: finiteOrNull(profitabilityIndex(discountRate, cashFlows)),
   };
+}
+
+function firstNonZero(flows: readonly number[]): number {
+  return flows.find((cf) => cf !== 0) ?? 0;
 }
 
 function finiteOrNull(value: number | null): number | null {

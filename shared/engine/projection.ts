@@ -238,11 +238,11 @@ const identity: Rounding = (amount) => amount;
  * A sum of amounts already in whole cents, freed of binary noise (currency). No half-cent can
  * arise in such a sum, so this decides nothing that half-up rounding would.
  */
-const centsTotal: Rounding = (sum) => Math.round(sum * 100) / 100;
+const noiseFreeCents: Rounding = (sum) => Math.round(sum * 100) / 100;
 
 const ROUNDING: Record<RoundingMode, { line: Rounding; total: Rounding }> = {
-  ledger: { line: ledgerCents, total: centsTotal },
-  fast: { line: roundCentsFast, total: centsTotal },
+  ledger: { line: ledgerCents, total: noiseFreeCents },
+  fast: { line: roundCentsFast, total: noiseFreeCents },
   none: { line: identity, total: identity },
 };
 

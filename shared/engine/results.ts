@@ -85,6 +85,11 @@ export interface Metrics {
   npv: number;
   irr: number | null;
   irrReason?: IrrReason;
+  /**
+   * With an IRR: 'investment' when the flows start with an outlay (a higher IRR is better);
+   * 'borrowing' when they start with a saving and cost later (the IRR is the rate paid — lower is better).
+   */
+  irrKind?: 'investment' | 'borrowing';
   mirr: number | null;
   paybackYears: number | null;
   discountedPaybackYears: number | null;

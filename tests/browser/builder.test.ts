@@ -211,13 +211,6 @@ describe('scenario builder in Chromium', () => {
       await page.getByRole('tab', { name: tab }).click();
       await page.waitForTimeout(200);
       await harness.screenshot(page, name);
-      if (tab === 'Capital') {
-        console.log(await page.evaluate(() => {
-          const out: string[] = [];
-          for (let e: Element | null = document.querySelector('.table-scroll'); e; e = e.parentElement) out.push(`${e.tagName}.${String(e.className)} w=${e.getBoundingClientRect().width} d=${getComputedStyle(e).display}`);
-          return out.join('\n');
-        }));
-      }
       expect(await sticksOut(page)).toEqual([]);
       await expectNoBrokenNumbers(page);
     }

@@ -89,9 +89,15 @@ describe('lender share in the browser', () => {
     await lender.locator('.status-picker .p-select').click();
     await lender.getByRole('option', { name: 'Questions' }).click();
     await poll(() => lender.locator('[data-status="questions"]').count()).toBeGreaterThan(0);
+    // The note is about one option and one of its lines.
+    await lender.locator('.about-pickers .p-select').first().click();
+    await lender.getByRole('option', { name: 'New barn, deep sand' }).click();
+    await lender.locator('.about-pickers .p-select').nth(1).click();
+    await lender.getByRole('option', { name: /^Capital: / }).first().click();
     await lender.getByPlaceholder('Your question or view').fill(NOTE);
     await lender.getByRole('button', { name: 'Add note' }).click();
     await poll(() => lender.locator('.thread', { hasText: NOTE }).count()).toBe(1);
+    await poll(() => lender.locator('.thread .about').textContent()).toMatch(/New barn, deep sand › Capital: /);
     await lender.evaluate(() => window.scrollTo(0, 0));
     await harness.screenshot(lender, 'lender-view-desktop');
     await lender.setViewportSize(TABLET);

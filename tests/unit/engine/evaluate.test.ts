@@ -24,6 +24,11 @@ describe('metric conventions', () => {
   it('reports IRR and a null IRR with a reason', () => {
     // Gitman p. 348 via numpy-financial irr docs (read): −100, 39, 59, 55, 20 → 0.28095.
     expect(metricsOf([-100, 39, 59, 55, 20], 0.1, 0.1).irr).toBeCloseTo(0.28095, 5);
+    expect(metricsOf([-100, 39, 59, 55, 20], 0.1, 0.1).irrKind).toBe('investment');
+    // The same flows reversed in sign are a loan taken at 28.095 %: the rate is a cost, not a return.
+    const borrowing = metricsOf([100, -39, -59, -55, -20], 0.1, 0.1);
+    expect(borrowing.irr).toBeCloseTo(0.28095, 5);
+    expect(borrowing.irrKind).toBe('borrowing');
     // All positive flows: no rate makes NPV 0 (MODEL.md: null with a reason, never a wrong number).
     const none = metricsOf([100, 39, 59], 0.1, 0.1);
     expect(none.irr).toBeNull();
