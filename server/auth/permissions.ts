@@ -9,6 +9,8 @@ import type { FarmRole } from '../db/schema/index.js';
 export const permissionTable = {
   'farm:read': ['owner', 'partner', 'consultant', 'lender'],
   'farm:update': ['owner', 'partner', 'consultant'],
+  /** The herd and market baseline and milk records: farm data a lender is not shown. */
+  'baseline:read': ['owner', 'partner', 'consultant'],
   'farm:delete': ['owner'],
   'members:read': ['owner', 'partner', 'consultant'],
   'members:manage': ['owner'],
@@ -16,6 +18,7 @@ export const permissionTable = {
   'scenario:write': ['owner', 'partner', 'consultant'],
   'scenario:share': ['owner', 'consultant'],
   'scenario:decide': ['owner'],
+  'preference:read': ['owner', 'partner', 'consultant'],
   'preference:write': ['owner', 'partner', 'consultant'],
   'review:write': ['lender'],
   'review:reply': ['owner', 'partner', 'consultant'],

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { createFarmSchema } from '../../shared/schema/accounts.js';
 import type { AppDeps } from '../app.js';
 import { farmAccess, farmRouter, requireUser } from '../auth/middleware.js';
+import { roleAllows } from '../auth/permissions.js';
 import { findFarm, insertFarmWithOwner, listFarmsOfUser } from '../db/repositories/farms.js';
 import { notFound, parseOrThrow } from '../errors.js';
 
@@ -28,7 +29,8 @@ export function farmRoutes({ db }: AppDeps): Router {
     const { farmId, role } = farmAccess(req);
     const farm = await findFarm(db, farmId);
     if (!farm) throw notFound('Farm not found');
-    res.json({ ...farm, role });
+    // A lender sees the farm's name, not its herd baseline.
+    res.json({ ...farm, baseline: roleAllows(role, 'baseline:read') ? farm.baseline : null, role });
   });
   return router;
 }

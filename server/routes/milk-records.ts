@@ -22,7 +22,7 @@ export function milkRecordRoutes({ db }: AppDeps): Router {
   );
   const { router, route } = farmRouter(db);
 
-  route('get', '/milk-records', 'farm:read', async (req, res) => {
+  route('get', '/milk-records', 'baseline:read', async (req, res) => {
     res.json(await milkRecordHistory(db, farmAccess(req).farmId));
   });
 

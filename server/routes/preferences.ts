@@ -49,7 +49,7 @@ export function preferenceRoutes({ db }: AppDeps): Router {
   const { router, route } = farmRouter(db);
   const base = '/scenarios/:scenarioId';
 
-  route('get', `${base}/preferences`, 'scenario:read', async (req, res) => {
+  route('get', `${base}/preferences`, 'preference:read', async (req, res) => {
     res.json(await preferences.readPreferences(db, actor(req), scenarioIdOf(req)));
   });
   route('put', `${base}/preferences/me`, 'preference:write', async (req, res) => {

@@ -42,7 +42,7 @@ const optionIdOf = (req: Request) => String(req.params.optionId);
 export function scenarioRoutes({ db }: AppDeps): Router {
   const { router, route } = farmRouter(db);
 
-  route('get', '/baseline', 'farm:read', async (req, res) => {
+  route('get', '/baseline', 'baseline:read', async (req, res) => {
     res.json(await readBaseline(db, farmAccess(req).farmId));
   });
   route('put', '/baseline', 'farm:update', async (req, res) => {

@@ -4,37 +4,51 @@
 // Tests pin them to the decimal originals.
 
 import Decimal from 'decimal.js';
+import { decimalLevelPayment, loanPeriods, type LoanInput, type LoanPayment, type LoanSchedule } from './finance';
 import { Money, roundCents } from './money';
 
 /**
  * Whole cents (integer) of a currency amount, half-up with ties away from zero, read as decimal.js
  * reads a number (its shortest decimal form): 1.005 → 101, 570.37499999999994 → 57037. The
  * decimal ties k ± ½ cent, divided by 100 in binary, are the doubles those decimals parse to.
+ * That holds while no other decimal of three places reads as the same double (|amount| < 2⁴²);
+ * larger amounts go through decimal.js itself.
  */
 export function wholeCents(amount: number): number {
   const magnitude = Math.abs(amount);
-  let cents = Math.round(magnitude * 100);
+  if (!(magnitude < EXACT_BELOW)) return toWholeCents(roundCents(amount));
+  const scaled = magnitude * 100;
+  let cents = Math.round(scaled);
+  // Far from a half cent the product's rounding error (under 2⁻⁵¹ of it) cannot change the answer.
+  if (Math.abs(scaled - cents) < 0.5 - scaled * NEAR_HALF_RELATIVE) return amount < 0 ? -cents : cents;
   if (magnitude < (cents - 0.5) / 100) cents -= 1;
   else if (magnitude >= (cents + 0.5) / 100) cents += 1;
   return amount < 0 ? -cents : cents;
 }
 
-/** A currency amount rounded to cents (currency), half-up with ties away from zero, in floating point. */
+// Below 2⁴² a double's spacing is under 0.001, so a three-place decimal tie has a double of its own.
+const EXACT_BELOW = 2 ** 42;
+const NEAR_HALF_RELATIVE = 2 ** -48;
+
+/** A currency amount rounded to cents (currency), half-up with ties away from zero, in floating point; equals money.ts toCents. */
 export function roundCentsFast(amount: number): number {
   return wholeCents(amount) / 100;
 }
 
 // Products of whole cents and a short decimal rate sit at least 1e-5 cents away from a half cent
-// unless they are on it, far above the float error of the product.
+// unless they are on it, far above the float error of the product. Large amounts widen the
+// window with their own rounding error (a few parts in 1e16 per operation).
 const TIE_WINDOW = 1e-6;
+const TIE_RELATIVE = 1e-14;
 
 /**
- * True when a non-negative amount in cents is a half-cent tie. There the answer depends on how
- * the ledger's 40-digit decimals fell, so the caller computes the ledger's own expression with
- * decimal.js (rare: a handful of times per thousand schedules); elsewhere Math.round is exact.
+ * True when a non-negative amount in cents is (or may be, within float error) a half-cent tie.
+ * There the answer depends on how the ledger's 40-digit decimals fell, so the caller computes
+ * the ledger's own expression with decimal.js (rare: a handful of times per thousand
+ * schedules); elsewhere Math.round is exact.
  */
-function isTie(cents: number): boolean {
-  return Math.abs(cents - Math.floor(cents) - 0.5) < TIE_WINDOW;
+function isTie(cents: number, window = Math.max(TIE_WINDOW, cents * TIE_RELATIVE)): boolean {
+  return Math.abs(cents - Math.floor(cents) - 0.5) < window;
 }
 
 const currency = (cents: number): Decimal => new Money(cents).div(100);
@@ -43,8 +57,10 @@ const toWholeCents = (amount: Decimal): number => amount.times(100).toNumber();
 /** Straight-line depreciation (currency/yr, cents), as depreciation.ts straightLine with no salvage. */
 export function straightLineFast(cost: number, life: number): number[] {
   const base = wholeCents(cost);
-  const raw = base / life;
-  const yearly = isTie(raw) ? toWholeCents(roundCents(currency(base).div(life))) : Math.round(raw);
+  // Whole cents over a whole life: a half cent there is exact in binary too (k + ½ needs only one
+  // binary place), and anything else sits at least 1/(2 × life) cents from one, so Math.round
+  // rounds exactly as decimal.js half-up does.
+  const yearly = Math.round(base / life);
   const amounts = new Array<number>(life);
   for (let i = 0; i < life - 1; i++) amounts[i] = yearly / 100;
   amounts[life - 1] = (base - yearly * (life - 1)) / 100;
@@ -88,22 +104,43 @@ function ledgerInterest(balance: number, annualRate: number, paymentsPerYear: nu
   return toWholeCents(roundCents(currency(balance).times(new Money(annualRate).div(paymentsPerYear))));
 }
 
-/**
- * Yearly interest and principal of a level-payment loan (currency, cents), as finance.ts
- * loanSchedule: interest-only periods first, the level payment rounded to cents, interest
- * rounded each period, the last payment clearing the balance.
- */
-export function loanYearsFast(principal: number, annualRate: number, years: number, paymentsPerYear: number, interestOnlyMonths: number): LoanYearsFast {
-  const interest = new Array<number>(years).fill(0);
-  const repaid = new Array<number>(years).fill(0);
-  const closingBalance = new Array<number>(years).fill(0);
-  let balance = wholeCents(principal);
-  if (balance === 0) return { interest, principal: repaid, closingBalance };
-  const totalPeriods = years * paymentsPerYear;
-  const interestOnlyPeriods = Math.ceil((interestOnlyMonths * paymentsPerYear) / 12);
+// The level payment's float formula errs by up to a few parts in 1e14 over 480 periods.
+const LEVEL_TIE_RELATIVE = 1e-12;
+
+/** finance.ts loanSchedule's level payment (whole cents) on `balance` cents over `periods`. */
+function levelPaymentCents(balance: number, annualRate: number, paymentsPerYear: number, periods: number): number {
   const rate = annualRate / paymentsPerYear;
-  const periods = totalPeriods - interestOnlyPeriods;
-  const level = Math.round(rate === 0 ? balance / periods : (balance * rate) / -Math.expm1(-periods * Math.log1p(rate)));
+  const raw = rate === 0 ? balance / periods : (balance * rate) / -Math.expm1(-periods * Math.log1p(rate));
+  if (!isTie(raw, Math.max(TIE_WINDOW, raw * LEVEL_TIE_RELATIVE))) return Math.round(raw);
+  return toWholeCents(roundCents(decimalLevelPayment(currency(balance), new Money(annualRate).div(paymentsPerYear), periods)));
+}
+
+/** One loan walked period by period in whole cents; payments only when asked for. */
+interface CentsSchedule {
+  /** Per loan year, index = year − 1 (whole cents). */
+  interest: number[];
+  principal: number[];
+  payment: number[];
+  closingBalance: number[];
+  payments: LoanPayment[] | null;
+  totalInterest: number;
+  loan: number;
+}
+
+function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPeriods: number, withPayments: boolean): CentsSchedule {
+  const { annualRate, years, paymentsPerYear } = input;
+  const interest = new Array<number>(years).fill(0);
+  const principal = new Array<number>(years).fill(0);
+  const payment = new Array<number>(years).fill(0);
+  const closingBalance = new Array<number>(years).fill(0);
+  const payments: LoanPayment[] | null = withPayments ? [] : null;
+  const loan = wholeCents(input.principal);
+  let balance = loan;
+  let totalInterest = 0;
+  if (balance === 0) return { interest, principal, payment, closingBalance, payments, totalInterest, loan };
+  const level = levelPaymentCents(balance, annualRate, paymentsPerYear, totalPeriods - interestOnlyPeriods);
+  // The balance only falls, so the first period's window covers every later one.
+  const window = Math.max(TIE_WINDOW, ((balance * annualRate) / paymentsPerYear) * TIE_RELATIVE);
   let number = 0;
   for (let year = 0; year < years; year++) {
     let yearInterest = 0;
@@ -111,18 +148,65 @@ export function loanYearsFast(principal: number, annualRate: number, years: numb
     for (let k = 0; k < paymentsPerYear; k++) {
       number++;
       const raw = (balance * annualRate) / paymentsPerYear;
-      const periodInterest = isTie(raw) ? ledgerInterest(balance, annualRate, paymentsPerYear) : Math.round(raw);
+      const periodInterest = isTie(raw, window) ? ledgerInterest(balance, annualRate, paymentsPerYear) : Math.round(raw);
       let periodPrincipal: number;
       if (number <= interestOnlyPeriods) periodPrincipal = 0;
       else if (number === totalPeriods) periodPrincipal = balance;
+      // A rounded-up level payment on a tiny loan could overpay before the last period.
       else periodPrincipal = Math.min(level - periodInterest, balance);
       balance -= periodPrincipal;
       yearInterest += periodInterest;
       yearPrincipal += periodPrincipal;
+      if (payments) payments.push({
+        number,
+        year: year + 1,
+        payment: (periodInterest + periodPrincipal) / 100,
+        interest: periodInterest / 100,
+        principal: periodPrincipal / 100,
+        balance: balance / 100,
+      });
     }
-    interest[year] = yearInterest / 100;
-    repaid[year] = yearPrincipal / 100;
-    closingBalance[year] = balance / 100;
+    interest[year] = yearInterest;
+    principal[year] = yearPrincipal;
+    payment[year] = yearInterest + yearPrincipal;
+    closingBalance[year] = balance;
+    totalInterest += yearInterest;
   }
-  return { interest, principal: repaid, closingBalance };
+  return { interest, principal, payment, closingBalance, payments, totalInterest, loan };
+}
+
+const toCurrency = (cents: readonly number[]): number[] => cents.map((c) => c / 100);
+
+/**
+ * Yearly interest and principal of a level-payment loan (currency, cents), as finance.ts
+ * loanSchedule, without the payment table; inputs as the scenario schema allows them.
+ */
+export function loanYearsFast(principal: number, annualRate: number, years: number, paymentsPerYear: 1 | 2 | 4 | 12, interestOnlyMonths: number): LoanYearsFast {
+  const input = { principal, annualRate, years, paymentsPerYear, interestOnlyMonths };
+  const { totalPeriods, interestOnlyPeriods } = loanPeriods(input);
+  const cents = scheduleInCents(input, totalPeriods, interestOnlyPeriods, false);
+  return { interest: toCurrency(cents.interest), principal: toCurrency(cents.principal), closingBalance: toCurrency(cents.closingBalance) };
+}
+
+/**
+ * finance.ts loanSchedule computed in whole cents held in doubles (currency, every amount in
+ * cents): the same payments, years and totals to the last cent, and the same RangeErrors.
+ * Interest-only periods first, the level payment rounded to cents, interest rounded each
+ * period half-up, the last payment clearing the balance; decimal.js settles half-cent ties.
+ */
+export function loanScheduleFast(input: LoanInput): LoanSchedule {
+  const { totalPeriods, interestOnlyPeriods } = loanPeriods(input);
+  const cents = scheduleInCents(input, totalPeriods, interestOnlyPeriods, true);
+  return {
+    payments: cents.payments ?? [],
+    years: cents.interest.map((interest, i) => ({
+      year: i + 1,
+      payment: (cents.payment[i] ?? 0) / 100,
+      interest: interest / 100,
+      principal: (cents.principal[i] ?? 0) / 100,
+      closingBalance: (cents.closingBalance[i] ?? 0) / 100,
+    })),
+    totalInterest: cents.totalInterest / 100,
+    totalPrincipal: cents.loan / 100,
+  };
 }

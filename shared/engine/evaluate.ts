@@ -9,8 +9,7 @@ import {
   paybackYears,
   profitabilityIndex,
 } from './finance';
-import { toCents } from './money';
-import { planOption, projectOption, type OptionPlan, type Projection, type ProjectionOverrides } from './projection';
+import { npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan, type Projection } from './projection';
 import type { CoverageYear, FastOptionResult, IncrementalResult, Metrics, OptionResult, ScenarioResults } from './results';
 import { irrFast } from './irr-fast';
 import { findRoot } from './root';
@@ -23,17 +22,31 @@ export function currentOptionOf(scenario: Scenario): Option {
   return current;
 }
 
-/** Investment metrics of a cash-flow series (flows[0] at t = 0; numpy / `financial` npv convention); rates per year as fractions. */
-export function metricsOf(cashFlows: number[], discountRate: number, financeRate: number): Metrics {
+/** Which series the metrics describe: an option's own flows, or its flows minus the current option's. */
+export type Series = 'option' | 'incremental';
+
+/**
+ * Investment metrics of a cash-flow series (flows[0] at t = 0; numpy / `financial` npv
+ * convention); rates per year as fractions. On an incremental series whose year 0 is not an
+ * outlay (flows[0] ≥ 0: the option saves capital against the current one) there is nothing to
+ * pay back, so both paybacks are null with 'no-net-investment' rather than 0.
+ */
+export function metricsOf(cashFlows: number[], discountRate: number, financeRate: number, series: Series = 'option'): Metrics {
   const irrResult = irrFast(cashFlows);
+  const noOutlay = series === 'incremental' && (cashFlows[0] ?? 0) >= 0;
+  const payback = noOutlay ? null : paybackYears(cashFlows);
+  const discountedPayback = noOutlay ? null : discountedPaybackYears(discountRate, cashFlows);
+  const paybackReason = noOutlay ? 'no-net-investment' : 'not-within-horizon';
   return {
     cashFlows,
     npv: npv(discountRate, cashFlows),
     irr: irrResult.value,
     ...(irrResult.value === null ? { irrReason: irrResult.reason } : { irrKind: firstNonZero(cashFlows) > 0 ? 'borrowing' : 'investment' }),
     mirr: finiteOrNull(mirr(cashFlows, financeRate, discountRate)),
-    paybackYears: paybackYears(cashFlows),
-    discountedPaybackYears: discountedPaybackYears(discountRate, cashFlows),
+    paybackYears: payback,
+    ...(payback === null ? { paybackReason } : {}),
+    discountedPaybackYears: discountedPayback,
+    ...(discountedPayback === null ? { discountedPaybackReason: paybackReason } : {}),
     profitabilityIndex: finiteOrNull(profitabilityIndex(discountRate, cashFlows)),
   };
 }
@@ -71,17 +84,7 @@ function equivalentAnnualCostPerStall(plan: OptionPlan, discountRate: number): n
   let present = plan.capitalTotal;
   for (let t = 1; t <= plan.horizon; t++) present += (plan.replacementsByYear[t] ?? 0) / (1 + discountRate) ** t;
   present -= plan.salvage / (1 + discountRate) ** plan.horizon;
-  return toCents((present * capitalRecoveryFactor(discountRate, plan.horizon)) / plan.stalls);
-}
-
-/** NPV (currency) of this option's flows minus the current option's, unrounded, for the break-even search. */
-function incrementalNpvAt(scenario: Scenario, option: Option, plan: OptionPlan, current: Option, currentPlan: OptionPlan, overrides: ProjectionOverrides): number {
-  const own = projectOption(scenario, option, plan, current.lyingHoursPerDay, 'none', false, overrides).cashFlows;
-  const base = projectOption(scenario, current, currentPlan, current.lyingHoursPerDay, 'none', false, overrides).cashFlows;
-  const rate = scenario.finance.discountRate;
-  let total = 0;
-  for (let t = 0; t < own.length; t++) total += ((own[t] ?? 0) - (base[t] ?? 0)) / (1 + rate) ** t;
-  return total;
+  return roundCentsFast((present * capitalRecoveryFactor(discountRate, plan.horizon)) / plan.stalls);
 }
 
 // The searches cover 0..10× today's milk price (at least 0..1 a kg) and 0..5 kg/cow/day per hour
@@ -92,29 +95,40 @@ const LYING_RESPONSE_SEARCH_MAX = 5;
 
 type BreakEvens = Pick<IncrementalResult, 'breakEvenMilkPrice' | 'breakEvenMilkPriceReason' | 'breakEvenLyingResponse' | 'breakEvenLyingResponseReason'>;
 
-function breakEvens(scenario: Scenario, option: Option, plan: OptionPlan, current: Option, currentPlan: OptionPlan): BreakEvens {
-  const base = scenario.herd.milkPricePerKg;
-  const priceHi = Math.max(base * MILK_PRICE_SEARCH_MULTIPLE, MILK_PRICE_SEARCH_FLOOR);
-  const price = findRoot(
-    (p) => incrementalNpvAt(scenario, option, plan, current, currentPlan, { milkPricePerKg: p }),
-    0,
-    priceHi,
-    { tolerance: priceHi * 1e-10 },
-  );
+/** One option as the break-even searches see it: its plan, its milk model and its year-0 flow. */
+interface SearchInput {
+  plan: OptionPlan;
+  model: MilkModel;
+  yearZero: number;
+}
+
+function searchInput(scenario: Scenario, option: Option, plan: OptionPlan, currentLyingHours: number): SearchInput {
+  const projection = projectOption(scenario, option, plan, currentLyingHours, 'none', false, true);
+  // withMilkModel = true always returns the model.
+  return { plan, model: projection.milk as MilkModel, yearZero: projection.cashFlows[0] ?? 0 };
+}
+
+/**
+ * Break-even milk price and lying-time response against the current option: Brent's method on
+ * the unrounded incremental NPV (a smooth function; at the roots the ledger's cents move NPV by
+ * cents at most), each evaluation a single pass over the years of both milk models.
+ */
+function breakEvens(scenario: Scenario, option: SearchInput, current: SearchInput, sameLyingTime: boolean): BreakEvens {
+  const { finance, herd } = scenario;
+  const npvOf = (input: SearchInput, price: number, response: number): number =>
+    npvAtMilk(input.model, input.plan, finance, input.yearZero, price, response);
+  const priceHi = Math.max(herd.milkPricePerKg * MILK_PRICE_SEARCH_MULTIPLE, MILK_PRICE_SEARCH_FLOOR);
+  const g = herd.lyingResponseKgPerHour;
+  const price = findRoot((p) => npvOf(option, p, g) - npvOf(current, p, g), 0, priceHi, { tolerance: priceHi * 1e-10 });
   const result: BreakEvens = {
     breakEvenMilkPrice: price.value,
     ...(price.value === null ? { breakEvenMilkPriceReason: 'none-in-range' as const } : {}),
     breakEvenLyingResponse: null,
   };
-  if (option.lyingHoursPerDay === current.lyingHoursPerDay) {
-    return { ...result, breakEvenLyingResponseReason: 'same-lying-time' };
-  }
-  const response = findRoot(
-    (g) => incrementalNpvAt(scenario, option, plan, current, currentPlan, { lyingResponseKgPerHour: g }),
-    0,
-    LYING_RESPONSE_SEARCH_MAX,
-    { tolerance: 1e-9 },
-  );
+  if (sameLyingTime) return { ...result, breakEvenLyingResponseReason: 'same-lying-time' };
+  // The current option's yield does not depend on the response (its lying time is the reference).
+  const currentNpv = npvOf(current, herd.milkPricePerKg, g);
+  const response = findRoot((r) => npvOf(option, herd.milkPricePerKg, r) - currentNpv, 0, LYING_RESPONSE_SEARCH_MAX, { tolerance: 1e-9 });
   return {
     ...result,
     breakEvenLyingResponse: response.value,
@@ -133,12 +147,13 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
   const { discountRate, interestRate, coverageThreshold } = scenario.finance;
   const evaluated = scenario.options.map((option) => {
     const { plan, loan } = planOption(scenario, option, 'ledger');
-    const projection = projectOption(scenario, option, plan, current.lyingHoursPerDay, 'ledger', true);
+    const projection = projectOption(scenario, option, plan, current.lyingHoursPerDay, 'cents', true);
     return { option, plan, loan, projection };
   });
   const base = evaluated.find((entry) => entry.option === current) ?? evaluated[0];
   if (!base) throw new RangeError('options must hold at least one option');
 
+  let baseSearch: SearchInput | undefined;
   const options = evaluated.map(({ option, plan, loan, projection }): OptionResult => {
     const isCurrent = option === current;
     const lines = projection.lines ?? [];
@@ -149,13 +164,13 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
       current: isCurrent,
       ...metricsOf(projection.cashFlows, discountRate, interestRate),
       stalls: plan.stalls,
-      capitalTotal: toCents(plan.capitalTotal),
-      capitalPerStall: plan.stalls > 0 ? toCents(plan.capitalTotal / plan.stalls) : null,
+      capitalTotal: roundCentsFast(plan.capitalTotal),
+      capitalPerStall: plan.stalls > 0 ? roundCentsFast(plan.capitalTotal / plan.stalls) : null,
       equivalentAnnualCostPerStall: equivalentAnnualCostPerStall(plan, discountRate),
-      financing: { grants: toCents(plan.grants), equity: toCents(plan.equity), loanAmount: toCents(plan.loanAmount) },
+      financing: { grants: roundCentsFast(plan.grants), equity: roundCentsFast(plan.equity), loanAmount: roundCentsFast(plan.loanAmount) },
       years: lines,
       financedCashFlows: lines.map((line) => line.financedCashFlow),
-      loan: { amount: toCents(plan.loanAmount), ...(loan ?? { payments: [], years: [], totalInterest: 0, totalPrincipal: 0 }) },
+      loan: { amount: roundCentsFast(plan.loanAmount), ...(loan ?? { payments: [], years: [], totalInterest: 0, totalPrincipal: 0 }) },
       coverage,
       lowestCoverage: lowestByYear(coverage.map((c) => ({ year: c.year, value: c.wholeFarm }))),
       lowestProjectCoverage: lowestByYear(coverage.map((c) => ({ year: c.year, value: c.project }))),
@@ -172,8 +187,11 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
       },
     };
     if (!isCurrent) {
-      const flows = projection.cashFlows.map((cf, t) => toCents(cf - (base.projection.cashFlows[t] ?? 0)));
-      result.incremental = { ...metricsOf(flows, discountRate, interestRate), ...breakEvens(scenario, option, plan, current, base.plan) };
+      const flows = projection.cashFlows.map((cf, t) => roundCentsFast(cf - (base.projection.cashFlows[t] ?? 0)));
+      const sameLyingTime = option.lyingHoursPerDay === current.lyingHoursPerDay;
+      baseSearch ??= searchInput(scenario, current, base.plan, current.lyingHoursPerDay);
+      const search = breakEvens(scenario, searchInput(scenario, option, plan, current.lyingHoursPerDay), baseSearch, sameLyingTime);
+      result.incremental = { ...metricsOf(flows, discountRate, interestRate, 'incremental'), ...search };
     }
     return result;
   });
@@ -183,6 +201,11 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
 export interface FastEvaluationOptions {
   /** Also solve the incremental IRR (slower when the incremental flows change sign several times). */
   incrementalIrr?: boolean;
+  /**
+   * Where each option's IRR search starts (fraction per year, index = option), e.g. the IRRs of
+   * the unperturbed scenario for a Monte Carlo draw; null or absent = 10 %. Only speed depends on it.
+   */
+  irrStart?: readonly (number | null)[];
 }
 
 function npvFast(rate: number, flows: readonly number[]): number {
@@ -206,13 +229,13 @@ export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOpti
   const { discountRate } = scenario.finance;
   const runs = scenario.options.map((option) => {
     const { plan } = planOption(scenario, option, 'fast');
-    return { option, plan, projection: projectOption(scenario, option, plan, current.lyingHoursPerDay, 'fast', false) };
+    return { option, plan, projection: projectOption(scenario, option, plan, current.lyingHoursPerDay, 'cents', false) };
   });
   const base = runs.find((run) => run.option === current) ?? runs[0];
   if (!base) return [];
   const baseNpv = npvFast(discountRate, base.projection.cashFlows);
   const { existingCashForDebtServicePerYear: existingCash, existingDebtPaymentsPerYear: existingDebt } = scenario.herd;
-  return runs.map(({ option, plan, projection }) => {
+  return runs.map(({ option, plan, projection }, index) => {
     const isCurrent = option === current;
     const flows = projection.cashFlows;
     const optionNpv = npvFast(discountRate, flows);
@@ -235,7 +258,7 @@ export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOpti
       id: option.id,
       npv: optionNpv,
       incrementalNpv: isCurrent ? null : optionNpv - baseNpv,
-      irr: irrFast(flows).value,
+      irr: irrFast(flows, settings.irrStart?.[index] ?? undefined).value,
       incrementalIrr,
       minCoverage,
       minProjectCoverage,

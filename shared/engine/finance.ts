@@ -261,8 +261,35 @@ export type LoanSchedule = {
 
 const PAYMENTS_PER_YEAR = [1, 2, 4, 12] as const;
 
-/** Decimal level payment P·r / (1 − (1 + r)^−m), or P/m at r = 0, before rounding. */
-function decimalLevelPayment(principal: Decimal, rate: Decimal, periods: number): Decimal {
+/**
+ * Checks a loan's inputs (a RangeError naming the field) and counts its payment periods: all of
+ * them, and the interest-only ones at the start (ceil(months × paymentsPerYear / 12)).
+ */
+export function loanPeriods(input: LoanInput): { totalPeriods: number; interestOnlyPeriods: number } {
+  const { principal, annualRate, years, paymentsPerYear, interestOnlyMonths = 0 } = input;
+  requireNonNegative('principal', principal);
+  requireNonNegative('annualRate', annualRate);
+  requirePositiveInteger('years', years);
+  if (!PAYMENTS_PER_YEAR.includes(paymentsPerYear)) {
+    throw new RangeError(`paymentsPerYear must be 1, 2, 4 or 12 (got ${String(paymentsPerYear)})`);
+  }
+  requireNonNegative('interestOnlyMonths', interestOnlyMonths);
+  const totalPeriods = years * paymentsPerYear;
+  // Whole months × 1, 2, 4 or 12 over 12 is exact or at least 1/12 from a whole number, so
+  // Math.ceil is exact there; other months go through decimal.js.
+  const interestOnlyPeriods = Number.isInteger(interestOnlyMonths)
+    ? Math.ceil((interestOnlyMonths * paymentsPerYear) / 12)
+    : new Money(interestOnlyMonths).times(paymentsPerYear).div(12).ceil().toNumber();
+  if (interestOnlyPeriods >= totalPeriods) {
+    throw new RangeError(
+      `interestOnlyMonths must leave at least one repayment period (got ${interestOnlyMonths} months in a ${years}-year loan)`,
+    );
+  }
+  return { totalPeriods, interestOnlyPeriods };
+}
+
+/** Decimal level payment P·r / (1 − (1 + r)^−m), or P/m at r = 0, before rounding (currency per period). */
+export function decimalLevelPayment(principal: Decimal, rate: Decimal, periods: number): Decimal {
   if (rate.isZero()) return principal.div(periods);
   return principal.times(rate).div(new Money(1).minus(rate.plus(1).pow(-periods)));
 }
@@ -276,21 +303,8 @@ function decimalLevelPayment(principal: Decimal, rate: Decimal, periods: number)
  * the loan exactly and the closing balance is 0.00. Payments fall at the end of each period.
  */
 export function loanSchedule(input: LoanInput): LoanSchedule {
-  const { principal, annualRate, years, paymentsPerYear, interestOnlyMonths = 0 } = input;
-  requireNonNegative('principal', principal);
-  requireNonNegative('annualRate', annualRate);
-  requirePositiveInteger('years', years);
-  if (!PAYMENTS_PER_YEAR.includes(paymentsPerYear)) {
-    throw new RangeError(`paymentsPerYear must be 1, 2, 4 or 12 (got ${String(paymentsPerYear)})`);
-  }
-  requireNonNegative('interestOnlyMonths', interestOnlyMonths);
-  const totalPeriods = years * paymentsPerYear;
-  const interestOnlyPeriods = new Money(interestOnlyMonths).times(paymentsPerYear).div(12).ceil().toNumber();
-  if (interestOnlyPeriods >= totalPeriods) {
-    throw new RangeError(
-      `interestOnlyMonths must leave at least one repayment period (got ${interestOnlyMonths} months in a ${years}-year loan)`,
-    );
-  }
+  const { principal, annualRate, paymentsPerYear } = input;
+  const { totalPeriods, interestOnlyPeriods } = loanPeriods(input);
 
   let balance = roundCents(principal);
   if (balance.isZero()) return { payments: [], years: [], totalInterest: 0, totalPrincipal: 0 };

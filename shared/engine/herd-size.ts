@@ -32,6 +32,7 @@ export function herdPurchasesByYear(cows: readonly number[], addedCowCost: numbe
   const byYear = new Array<number>(horizon + 1).fill(0);
   for (let year = 1; year <= horizon; year++) {
     const change = (cows[year] ?? 0) - (cows[year - 1] ?? 0);
+    if (change === 0) continue;
     const price = change >= 0 ? addedCowCost : cullValue;
     byYear[year - 1] = change * price * growthFactor(inflation, year - 1);
   }

@@ -9,10 +9,9 @@ import {
   salvageAtHorizon,
   type CapitalAsset,
 } from './capital';
-import { decliningBalanceFast, loanYearsFast, roundCentsFast, straightLineFast } from './cents';
-import { toCents } from './money';
+import { decliningBalanceFast, loanScheduleFast, loanYearsFast, roundCentsFast, straightLineFast, type LoanYearsFast } from './cents';
 import { baseFeedCostPerYear, effectiveHousedDays, grazingDaysPerYear, marginalFeedCostPerYear } from './feed';
-import { loanSchedule, type LoanInput, type LoanSchedule } from './finance';
+import type { LoanSchedule } from './finance';
 import { cullingCostPerYear, healthCostPerYear } from './health';
 import { cowsPerYear, herdPurchasesByYear, herdValueAtHorizon } from './herd-size';
 import {
@@ -55,7 +54,7 @@ export interface OptionPlan {
   herdValueAtHorizon: number;
 }
 
-/** 'ledger' also builds the decimal.js loan schedule (for display); 'fast' only its yearly totals in floating point (same cents). */
+/** 'ledger' also builds the loan's payment table (for display); 'fast' only its yearly totals (the same cents). */
 export type PlanMode = 'ledger' | 'fast';
 
 /**
@@ -87,35 +86,6 @@ function depreciationSchedule(scenario: Scenario): DepreciationSchedule {
   const { depreciation, decliningBalanceFactor } = scenario.finance;
   if (depreciation === 'declining-balance') return (cost, life) => decliningBalanceFast(cost, life, decliningBalanceFactor);
   return straightLineFast;
-}
-
-const LOAN_CACHE_SIZE = 64;
-const loanCache = new Map<string, LoanSchedule>();
-
-/**
- * finance.ts loanSchedule, remembered for the last few loans: a live preview re-evaluates every
- * option on each edit while most loans stay the same, and the decimal schedule is the costliest
- * step. Each caller gets its own copy.
- */
-function rememberedLoanSchedule(input: LoanInput): LoanSchedule {
-  const key = `${input.principal}|${input.annualRate}|${input.years}|${input.paymentsPerYear}|${input.interestOnlyMonths ?? 0}`;
-  let schedule = loanCache.get(key);
-  if (schedule) {
-    loanCache.delete(key);
-  } else {
-    schedule = loanSchedule(input);
-    if (loanCache.size >= LOAN_CACHE_SIZE) {
-      const oldest = loanCache.keys().next();
-      if (!oldest.done) loanCache.delete(oldest.value);
-    }
-  }
-  loanCache.set(key, schedule);
-  return {
-    payments: schedule.payments.map((payment) => ({ ...payment })),
-    years: schedule.years.map((year) => ({ ...year })),
-    totalInterest: schedule.totalInterest,
-    totalPrincipal: schedule.totalPrincipal,
-  };
 }
 
 /**
@@ -154,23 +124,24 @@ export function planOption(scenario: Scenario, option: Option, mode: PlanMode): 
   const principalByYear = new Array<number>(horizon + 1).fill(0);
   let loanBalanceAtHorizon = 0;
   let loan: LoanSchedule | null = null;
-  const loanYears = (() => {
-    if (mode === 'ledger') {
-      loan = rememberedLoanSchedule({
-        principal: loanAmount,
-        annualRate: finance.interestRate,
-        years: finance.termYears,
-        paymentsPerYear: finance.paymentsPerYear,
-        interestOnlyMonths: finance.interestOnlyMonths,
-      });
-      return {
-        interest: loan.years.map((y) => y.interest),
-        principal: loan.years.map((y) => y.principal),
-        closingBalance: loan.years.map((y) => y.closingBalance),
-      };
-    }
-    return loanYearsFast(loanAmount, finance.interestRate, finance.termYears, finance.paymentsPerYear, finance.interestOnlyMonths);
-  })();
+  const loanInput = {
+    principal: loanAmount,
+    annualRate: finance.interestRate,
+    years: finance.termYears,
+    paymentsPerYear: finance.paymentsPerYear,
+    interestOnlyMonths: finance.interestOnlyMonths,
+  };
+  let loanYears: LoanYearsFast;
+  if (mode === 'ledger') {
+    loan = loanScheduleFast(loanInput);
+    loanYears = {
+      interest: loan.years.map((y) => y.interest),
+      principal: loan.years.map((y) => y.principal),
+      closingBalance: loan.years.map((y) => y.closingBalance),
+    };
+  } else {
+    loanYears = loanYearsFast(loanAmount, finance.interestRate, finance.termYears, finance.paymentsPerYear, finance.interestOnlyMonths);
+  }
   for (let year = 1; year <= horizon; year++) {
     interestByYear[year] = loanYears.interest[year - 1] ?? 0;
     principalByYear[year] = loanYears.principal[year - 1] ?? 0;
@@ -207,12 +178,6 @@ export function planOption(scenario: Scenario, option: Option, mode: PlanMode): 
   };
 }
 
-/** Prices the break-even search moves; absent = as in the scenario. */
-export interface ProjectionOverrides {
-  milkPricePerKg?: number;
-  lyingResponseKgPerHour?: number;
-}
-
 export interface Projection {
   /** Project (unlevered) net cash flow per year, index = year. */
   cashFlows: number[];
@@ -220,18 +185,43 @@ export interface Projection {
   cashForDebtService: number[];
   /** The yearly lines, when asked for. */
   lines: YearLine[] | null;
+  /** The flows with milk income and feed left open, when asked for. */
+  milk: MilkModel | null;
+}
+
+/**
+ * An option's flows with milk income and feed left open: everything else per year, so the
+ * break-even searches can move the milk price or the lying-time response without projecting
+ * the whole option again (currency, unrounded; index = year).
+ */
+export interface MilkModel {
+  cows: number[];
+  /** Operating margin without milk income and feed. */
+  otherMargin: number[];
+  milkGrowth: number[];
+  feedGrowth: number[];
+  /** Base feed per cow per year in today's money, baseline milk per cow per year (kg), marginal feed cost per kg. */
+  feedPerCow: number;
+  baselineMilkPerCow: number;
+  marginalFeedCostPerKg: number;
+  /**
+   * Yield per cow-day (kg) = max(0, yieldFixed + g × yieldPerResponse…), as yield.ts
+   * yieldPerCowDay: Y + a_o, and (L_o − L_current) × ramp in year 1 and later.
+   */
+  yieldFixed: number;
+  yieldPerResponseYear1: number;
+  yieldPerResponseLater: number;
 }
 
 type Rounding = (amount: number) => number;
 
 /**
- * How money is rounded: 'ledger' rounds each line to cents with decimal.js half-up; 'fast' with
- * its floating-point twin (same cents); 'none' not at all (the break-even search wants a smooth
- * function).
+ * How money is rounded: 'cents' rounds each line to cents half-up exactly as decimal.js does
+ * (cents.ts wholeCents, pinned to toCents by property tests); 'none' not at all (for a smooth
+ * function of the inputs).
  */
-export type RoundingMode = 'ledger' | 'fast' | 'none';
+export type RoundingMode = 'cents' | 'none';
 
-const ledgerCents: Rounding = (amount) => (amount === 0 ? 0 : toCents(amount));
 const identity: Rounding = (amount) => amount;
 
 /**
@@ -241,10 +231,65 @@ const identity: Rounding = (amount) => amount;
 const noiseFreeCents: Rounding = (sum) => Math.round(sum * 100) / 100;
 
 const ROUNDING: Record<RoundingMode, { line: Rounding; total: Rounding }> = {
-  ledger: { line: ledgerCents, total: noiseFreeCents },
-  fast: { line: roundCentsFast, total: noiseFreeCents },
+  cents: { line: roundCentsFast, total: noiseFreeCents },
   none: { line: identity, total: identity },
 };
+
+/** Tax and net flows of one year, written into by {@link settleYear} (currency). */
+interface Settlement {
+  taxable: number;
+  tax: number;
+  net: number;
+  cashForDebtService: number;
+  lossCarried: number;
+  replacements: number;
+  herdPurchases: number;
+  salvage: number;
+  herdValue: number;
+  depreciation: number;
+}
+
+const emptySettlement = (): Settlement => ({ taxable: 0, tax: 0, net: 0, cashForDebtService: 0, lossCarried: 0, replacements: 0, herdPurchases: 0, salvage: 0, herdValue: 0, depreciation: 0 });
+
+/**
+ * Year t after the operating margin: tax (with losses carried from earlier years), the project's
+ * net cash flow and the cash available for debt service (currency). The disposal at the horizon
+ * is a valuation, not an operating receipt: its salvage stays out of the cash available for debt
+ * service, and so does the tax on its gain (the tax on the year's operations alone).
+ */
+function settleYear(out: Settlement, plan: OptionPlan, finance: Scenario['finance'], t: number, operatingMargin: number, lossCarried: number, round: Rounding, centsTotal: Rounding): void {
+  const last = t === plan.horizon;
+  out.replacements = round(plan.replacementsByYear[t] ?? 0);
+  out.herdPurchases = round(plan.herdPurchasesByYear[t] ?? 0);
+  out.salvage = last ? round(plan.salvage) : 0;
+  out.herdValue = last ? round(plan.herdValueAtHorizon) : 0;
+  out.depreciation = round(plan.depreciationByYear[t] ?? 0);
+  const interest = plan.interestByYear[t] ?? 0;
+  const disposalGain = last ? out.salvage - round(plan.taxBookValueAtHorizon) : 0;
+  out.taxable = centsTotal(taxableIncome(operatingMargin, out.depreciation, interest, disposalGain));
+  const step = taxForYear(out.taxable, finance.taxRate, finance.lossesOffsetOtherIncome, lossCarried);
+  out.lossCarried = step.lossCarried;
+  out.tax = round(step.tax);
+  out.net = centsTotal(operatingMargin - out.replacements - out.herdPurchases - out.tax + out.salvage + out.herdValue);
+  let operatingTax = out.tax;
+  if (disposalGain !== 0) {
+    operatingTax = round(taxForYear(centsTotal(out.taxable - disposalGain), finance.taxRate, finance.lossesOffsetOtherIncome, lossCarried).tax);
+  }
+  out.cashForDebtService = centsTotal(operatingMargin - operatingTax);
+}
+
+/** Yield per cow-day (kg) of an option at a lying-time response, with the ramp of `year`. */
+function optionYield(scenario: Scenario, option: Option, currentLyingHours: number, response: number, year: number): number {
+  const { herd } = scenario;
+  return yieldPerCowDay({
+    baselineKgPerCowDay: herd.yieldKgPerCowDay,
+    lyingResponseKgPerHour: response,
+    lyingHours: option.lyingHoursPerDay,
+    currentLyingHours,
+    systemAdjustmentKgPerCowDay: option.systemYieldAdjustment,
+    rampFraction: rampFraction(year, herd.lyingResponseYear1Fraction),
+  });
+}
 
 /**
  * The yearly flows of one option, t = 0..H (currency, nominal). Every money line is rounded to
@@ -257,14 +302,14 @@ export function projectOption(
   currentLyingHours: number,
   rounding: RoundingMode,
   detail: boolean,
-  overrides: ProjectionOverrides = {},
+  withMilkModel = false,
 ): Projection {
   const { line: round, total: centsTotal } = ROUNDING[rounding];
   const { herd, finance } = scenario;
   const { growth } = herd;
   const H = plan.horizon;
-  const milkPrice = overrides.milkPricePerKg ?? herd.milkPricePerKg;
-  const response = overrides.lyingResponseKgPerHour ?? herd.lyingResponseKgPerHour;
+  const milkPrice = herd.milkPricePerKg;
+  const response = herd.lyingResponseKgPerHour;
   const { housedDays, grazingDays, stalls } = plan;
   const labour = option.labour;
 
@@ -295,17 +340,8 @@ export function projectOption(
   if (lines) lines.push(yearZeroLine(plan, cashFlows[0], capital0, grants0, herd0, centsTotal(round(plan.loanAmount) + cashFlows[0])));
 
   // Every line is linear in the cows of the year: per-cow amounts in today's money, hoisted.
-  const yieldOf = (ramp: number): number =>
-    yieldPerCowDay({
-      baselineKgPerCowDay: herd.yieldKgPerCowDay,
-      lyingResponseKgPerHour: response,
-      lyingHours: option.lyingHoursPerDay,
-      currentLyingHours,
-      systemAdjustmentKgPerCowDay: option.systemYieldAdjustment,
-      rampFraction: ramp,
-    });
-  const yieldYear1 = yieldOf(rampFraction(1, herd.lyingResponseYear1Fraction));
-  const yieldLater = yieldOf(rampFraction(2, herd.lyingResponseYear1Fraction));
+  const yieldYear1 = optionYield(scenario, option, currentLyingHours, response, 1);
+  const yieldLater = optionYield(scenario, option, currentLyingHours, response, 2);
   const baselineMilkPerCow = milkSoldKgPerYear(1, herd.yieldKgPerCowDay);
   const feedPerCow = baseFeedCostPerYear(1, housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
   const healthPerCow = healthCostPerYear(1, option.health);
@@ -327,6 +363,21 @@ export function projectOption(
   const storedPerCowM3 = storedVolume(1) - storedFixedM3;
   const handlingPerM3 = manureHandlingCostPerYear(1, option.manure.handlingCostPerM3, option.manure.sandExtraHandlingCostPerM3);
 
+  const settled = emptySettlement();
+  const milk: MilkModel | null = withMilkModel
+    ? {
+        cows: plan.cows,
+        otherMargin: new Array<number>(H + 1).fill(0),
+        milkGrowth: new Array<number>(H + 1).fill(1),
+        feedGrowth: new Array<number>(H + 1).fill(1),
+        feedPerCow,
+        baselineMilkPerCow,
+        marginalFeedCostPerKg: herd.marginalFeedCostPerKgMilk,
+        yieldFixed: herd.yieldKgPerCowDay + option.systemYieldAdjustment,
+        yieldPerResponseYear1: (option.lyingHoursPerDay - currentLyingHours) * rampFraction(1, herd.lyingResponseYear1Fraction),
+        yieldPerResponseLater: (option.lyingHoursPerDay - currentLyingHours) * rampFraction(2, herd.lyingResponseYear1Fraction),
+      }
+    : null;
   let gMilk = 1, gFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
   let lossCarried = 0;
   for (let t = 1; t <= H; t++) {
@@ -336,6 +387,10 @@ export function projectOption(
     gBedding *= 1 + growth.bedding;
     gFert *= 1 + growth.fertiliser;
     gGeneral *= 1 + growth.general;
+    if (milk) {
+      milk.milkGrowth[t] = gMilk;
+      milk.feedGrowth[t] = gFeed;
+    }
     const cows = plan.cows[t] ?? 0;
     const yieldKg = t === 1 ? yieldYear1 : yieldLater;
     const milkKg = milkSoldKgPerYear(cows, yieldKg);
@@ -371,25 +426,17 @@ export function projectOption(
         bedding - health - culling - maintenance - energy - runningCosts - manureHandling,
     );
 
-    const last = t === H;
-    const replacements = round(plan.replacementsByYear[t] ?? 0);
-    const herdPurchases = round(plan.herdPurchasesByYear[t] ?? 0);
-    const salvage = last ? round(plan.salvage) : 0;
-    const herdValue = last ? round(plan.herdValueAtHorizon) : 0;
-    const depreciation = round(plan.depreciationByYear[t] ?? 0);
+    settleYear(settled, plan, finance, t, operatingMargin, lossCarried, round, centsTotal);
+    lossCarried = settled.lossCarried;
+    const { replacements, herdPurchases, salvage, herdValue, depreciation, taxable, tax, net } = settled;
     const interest = plan.interestByYear[t] ?? 0;
     const principal = plan.principalByYear[t] ?? 0;
-    const disposalGain = last ? salvage - round(plan.taxBookValueAtHorizon) : 0;
-    const taxable = centsTotal(taxableIncome(operatingMargin, depreciation, interest, disposalGain));
-    const step = taxForYear(taxable, finance.taxRate, finance.lossesOffsetOtherIncome, lossCarried);
-    lossCarried = step.lossCarried;
-    const tax = round(step.tax);
-    const net = centsTotal(operatingMargin - replacements - herdPurchases - tax + salvage + herdValue);
     cashFlows[t] = net;
-    cashForDebtService[t] = centsTotal(operatingMargin - tax);
+    cashForDebtService[t] = settled.cashForDebtService;
+    if (milk) milk.otherMargin[t] = operatingMargin - milkIncome + feed;
 
     if (lines) {
-      const repaidAtHorizon = last ? round(plan.loanBalanceAtHorizon) : 0;
+      const repaidAtHorizon = t === H ? round(plan.loanBalanceAtHorizon) : 0;
       lines.push({
         year: t,
         cows,
@@ -443,7 +490,7 @@ export function projectOption(
       });
     }
   }
-  return { cashFlows, cashForDebtService, lines };
+  return { cashFlows, cashForDebtService, lines, milk };
 }
 
 function yearZeroLine(plan: OptionPlan, net: number, capital: number, grants: number, herdPurchases: number, financed: number): YearLine {
@@ -487,3 +534,31 @@ function yearZeroLine(plan: OptionPlan, net: number, capital: number, grants: nu
     manure: { storedM3: 0, nitrogenKg: 0, phosphateKg: 0, potashKg: 0 },
   };
 }
+
+/**
+ * NPV (currency, flows[0] at t = 0) of an option's project flows at another milk price (currency
+ * per kg) and lying-time response (kg/cow/day per hour), from its milk model: the same sums as
+ * projectOption without rounding, in a single pass over the years.
+ */
+export function npvAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario['finance'], yearZero: number, milkPrice: number, response: number): number {
+  const factor = 1 / (1 + finance.discountRate);
+  const out = scratch;
+  let discount = factor;
+  let total = yearZero;
+  let lossCarried = 0;
+  for (let t = 1; t <= plan.horizon; t++) {
+    const cows = model.cows[t] ?? 0;
+    const yieldKg = Math.max(0, model.yieldFixed + response * (t === 1 ? model.yieldPerResponseYear1 : model.yieldPerResponseLater));
+    const milkKg = milkSoldKgPerYear(cows, yieldKg);
+    const milkIncome = milkKg * milkPrice * (model.milkGrowth[t] ?? 1);
+    const feed = (model.feedPerCow * cows + marginalFeedCostPerYear(milkKg - model.baselineMilkPerCow * cows, model.marginalFeedCostPerKg)) * (model.feedGrowth[t] ?? 1);
+    settleYear(out, plan, finance, t, (model.otherMargin[t] ?? 0) + milkIncome - feed, lossCarried, identity, identity);
+    lossCarried = out.lossCarried;
+    total += out.net * discount;
+    discount *= factor;
+  }
+  return total;
+}
+
+// npvAtMilk runs synchronously and never re-enters, so one settlement record serves every call.
+const scratch = emptySettlement();

@@ -80,6 +80,8 @@ export interface CoverageYear {
 
 export type IrrReason = 'no-sign-change' | 'multiple-roots' | 'no-root';
 
+export type PaybackReason = 'not-within-horizon' | 'no-net-investment';
+
 export interface Metrics {
   cashFlows: number[];
   npv: number;
@@ -92,7 +94,10 @@ export interface Metrics {
   irrKind?: 'investment' | 'borrowing';
   mirr: number | null;
   paybackYears: number | null;
+  /** Why paybackYears is null: never reached within the horizon, or (incremental series) no outlay at year 0 to pay back. */
+  paybackReason?: PaybackReason;
   discountedPaybackYears: number | null;
+  discountedPaybackReason?: PaybackReason;
   profitabilityIndex: number | null;
 }
 

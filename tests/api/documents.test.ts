@@ -247,6 +247,8 @@ describe('documents API on the local disk', () => {
     try {
       const agent = await signedIn(small, 'owner@byrecast.test');
       const id = await farmIdByName(agent, 'Cairnbrook Farm');
+      // An earlier test's aborted upload may still be discarding its partial file on a busy machine.
+      expect(await eventually(() => !storedFiles().some((f) => f.endsWith('.part')))).toBe(true);
       const filesBefore = storedFiles().length;
       const first = await agent.post(`/api/farms/${id}/documents`).attach('file', pdfBytes(200 * 1024), 'first.pdf');
       expect(first.status).toBe(201);

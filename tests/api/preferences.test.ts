@@ -163,6 +163,7 @@ describe('preferences, decisions and the saved risk result', () => {
   it('lets a lender without a share see nothing of the scenario', async () => {
     const lender = await signedIn(t, 'lender@byrecast.test');
     expect((await lender.get(`${base}/risk-result`)).status).toBe(404);
-    expect((await lender.get(`${base}/preferences`)).status).toBe(404);
+    // Preferences are the family's own: a lender never reads them (permission table).
+    expect((await lender.get(`${base}/preferences`)).status).toBe(403);
   });
 });

@@ -32,7 +32,8 @@ describe('scenario access and input checks', () => {
     lender = await signedIn(t, 'lender@byrecast.test');
     farmId = await farmIdByName(owner, 'Cairnbrook Farm');
     const list = await owner.get(`/api/farms/${farmId}/scenarios`);
-    scenarioId = (list.body as { id: number }[])[0]!.id;
+    // The demo shares the five-systems scenario with the lender, not this one.
+    scenarioId = (list.body as { id: number; name: string }[]).find((s) => s.name.includes('mattress or sand'))!.id;
 
     // A second farm, owned by the consultant, who is thus a member of both farms.
     const farm = await consultant.post('/api/farms').send({ name: 'Hollin Ridge (invented)', currency: 'GBP', locale: 'en-GB' });
@@ -67,11 +68,11 @@ describe('scenario access and input checks', () => {
       }
     });
 
-    it('shows a lender no scenario until one is shared with them, and refuses their writes', async () => {
+    it('shows a lender no scenario that is not shared with them, and refuses their writes', async () => {
       // PRODUCT.md: a loan officer is read-only on the scenarios shared with them, and nothing else.
       const list = await lender.get(`/api/farms/${farmId}/scenarios`);
       expect(list.status).toBe(200);
-      expect(list.body).toEqual([]);
+      expect((list.body as { id: number }[]).map((s) => s.id)).not.toContain(scenarioId);
       for (const path of ['', '/versions', '/versions/1', '/versions/compare?from=1&to=1', '/export.json']) {
         const res = await lender.get(`${scenarioPath(scenarioId)}${path}`);
         expect(res.status, path).toBe(404);
@@ -94,8 +95,13 @@ describe('scenario access and input checks', () => {
       expect((await latest(owner)).version).toBe(version);
     });
 
-    it('lets a lender read the farm baseline (farm:read) but not change it', async () => {
-      expect((await lender.get(`/api/farms/${farmId}/baseline`)).status).toBe(200);
+    it('shows a lender neither the farm baseline nor its milk records, only the farm name', async () => {
+      expect((await lender.get(`/api/farms/${farmId}/baseline`)).status).toBe(403);
+      expect((await lender.get(`/api/farms/${farmId}/milk-records`)).status).toBe(403);
+      const farm = await lender.get(`/api/farms/${farmId}`);
+      expect(farm.status).toBe(200);
+      expect(farm.body.name).toBe('Cairnbrook Farm');
+      expect(farm.body.baseline).toBeNull();
     });
   });
 

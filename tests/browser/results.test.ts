@@ -95,7 +95,7 @@ describe('results and comparison in Chromium', () => {
         const expected = measure.value(option as OptionResult);
         if (expected === null) {
           // MODEL.md: a metric that cannot be computed is null with a reason, never a number.
-          expect(text, `${option.id} ${measure.key}`).toMatch(/^(not defined|not in \d+ yr|no stalls|no debt|—)/);
+          expect(text, `${option.id} ${measure.key}`).toMatch(/^(not defined|not in \d+ yr|no stalls|no debt|no extra outlay|—)/);
           continue;
         }
         const shown = parseFormatted(text, 'en-IE');

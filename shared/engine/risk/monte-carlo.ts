@@ -145,6 +145,8 @@ export function createMonteCarloRun(scenario: Scenario, settings: MonteCarloSett
   const threshold = scenario.finance.coverageThreshold;
   let done = 0;
   let cancelled = false;
+  // Each draw's IRR search starts from the unperturbed IRR, close to where most draws land.
+  const irrStart = total > 0 ? evaluateNpvOnly(scenario).map((result) => result.irr) : [];
 
   const record = (outcomes: readonly FastOptionResult[]): void => {
     outcomes.forEach((outcome, i) => {
@@ -168,7 +170,7 @@ export function createMonteCarloRun(scenario: Scenario, settings: MonteCarloSett
     step(n: number): number {
       const end = Math.min(total, done + Math.max(0, Math.floor(n)));
       while (!cancelled && done < end) {
-        record(evaluateNpvOnly(drawScenario(scenario, settings.inputs, random)));
+        record(evaluateNpvOnly(drawScenario(scenario, settings.inputs, random), { irrStart }));
         done += 1;
       }
       return done;

@@ -24,9 +24,17 @@ export function measureText(measure: Measure, value: number, format: MoneyFormat
 
 /** Short text and the full reason for a measure an option lacks. */
 export function missingText(measure: Measure, option: OptionResult, horizon: number): { short: string; reason: string } {
+  const change = option.incremental;
+  const ofTheChange = ['irr', 'mirr', 'paybackYears', 'discountedPaybackYears', 'profitabilityIndex'].includes(measure.key);
+  if (ofTheChange && (option.current || !change)) {
+    return { short: '—', reason: 'the current option is what the others are measured against' };
+  }
+  if (ofTheChange && change && change.cashFlows[0] !== undefined && change.cashFlows[0] >= 0) {
+    return { short: 'no extra outlay', reason: 'this option needs no more capital than the current one, so there is no investment to earn a return on; read its NPV against the current option' };
+  }
   switch (measure.key) {
     case 'irr':
-      return { short: 'not defined', reason: irrUndefinedReading(option.irrReason, option.cashFlows) };
+      return { short: 'not defined', reason: irrUndefinedReading(change?.irrReason, change?.cashFlows ?? []) };
     case 'mirr':
       return { short: 'not defined', reason: 'MIRR needs at least one negative and one positive cash flow' };
     case 'paybackYears':

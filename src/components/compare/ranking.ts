@@ -34,15 +34,28 @@ export type MeasureKey =
 
 const year1 = (values: readonly number[]): number | null => values[1] ?? null;
 
+/**
+ * Each option's own flows hold the whole herd's margin, so their IRR and payback say nothing
+ * about the decision: the rate-of-return measures are taken on the change against the current
+ * option, which itself has none.
+ */
+const change = (o: OptionResult) => (o.current ? undefined : o.incremental);
+
+/** An IRR of flows that start with a saving is a borrowing rate, not a return: not ranked. */
+const investmentIrr = (o: OptionResult): number | null => {
+  const inc = change(o);
+  return inc && inc.irrKind !== 'borrowing' ? inc.irr : null;
+};
+
 /** Every measure the comparison shows, in table order. */
 export const MEASURES: readonly Measure[] = [
   { key: 'npv', label: 'NPV', kind: 'money', higherIsBetter: true, value: (o) => o.npv },
   { key: 'incrementalNpv', label: 'NPV against the current option', kind: 'money', higherIsBetter: true, value: (o) => (o.current ? 0 : (o.incremental?.npv ?? null)) },
-  { key: 'irr', label: 'IRR', kind: 'percent', higherIsBetter: true, value: (o) => o.irr },
-  { key: 'mirr', label: 'MIRR', kind: 'percent', higherIsBetter: true, value: (o) => o.mirr },
-  { key: 'paybackYears', label: 'Simple payback', kind: 'years', higherIsBetter: false, value: (o) => o.paybackYears },
-  { key: 'discountedPaybackYears', label: 'Discounted payback', kind: 'years', higherIsBetter: false, value: (o) => o.discountedPaybackYears },
-  { key: 'profitabilityIndex', label: 'Profitability index', kind: 'ratio', higherIsBetter: true, value: (o) => o.profitabilityIndex },
+  { key: 'irr', label: 'IRR of the change', kind: 'percent', higherIsBetter: true, value: (o) => investmentIrr(o) },
+  { key: 'mirr', label: 'MIRR of the change', kind: 'percent', higherIsBetter: true, value: (o) => change(o)?.mirr ?? null },
+  { key: 'paybackYears', label: 'Payback of the change', kind: 'years', higherIsBetter: false, value: (o) => change(o)?.paybackYears ?? null },
+  { key: 'discountedPaybackYears', label: 'Discounted payback of the change', kind: 'years', higherIsBetter: false, value: (o) => change(o)?.discountedPaybackYears ?? null },
+  { key: 'profitabilityIndex', label: 'Profitability index of the change', kind: 'ratio', higherIsBetter: true, value: (o) => change(o)?.profitabilityIndex ?? null },
   { key: 'capitalPerStall', label: 'Capital per stall', kind: 'money', higherIsBetter: false, value: (o) => o.capitalPerStall },
   { key: 'equivalentAnnualCostPerStall', label: 'Equivalent annual cost per stall', kind: 'money', higherIsBetter: false, value: (o) => o.equivalentAnnualCostPerStall },
   { key: 'labourHours', label: 'Labour, year 1 (h)', kind: 'hours', higherIsBetter: false, value: (o) => year1(o.labourHoursPerYear) },

@@ -17,9 +17,21 @@ describe('ranking options by a measure', () => {
 
   it('puts the shortest payback first and options that never pay back last, unranked', () => {
     // A shorter payback is preferred; "not within horizon" cannot be ranked (common practice, no source).
-    const ranked = rankOptions([option('never', { paybackYears: null }), option('slow', { paybackYears: 9 }), option('fast', { paybackYears: 4.5 })], measureByKey('paybackYears'));
+    const change = (paybackYears: number | null) => ({ incremental: { paybackYears, cashFlows: [-1, 1] } }) as Partial<OptionResult>;
+    const ranked = rankOptions([option('never', change(null)), option('slow', change(9)), option('fast', change(4.5))], measureByKey('paybackYears'));
     expect(ranked.map((r) => r.option.id)).toEqual(['fast', 'slow', 'never']);
     expect(ranked[2]?.rank).toBeNull();
+  });
+
+  it('takes rates of return and payback on the change against the current option, never the whole-herd flows', () => {
+    // MODEL.md: the decision figures are the incremental ones; the current option is the yardstick.
+    const current = option('today', { current: true, irr: 0.5, paybackYears: 1 });
+    const barn = option('barn', { irr: 0.6, paybackYears: 1.2, incremental: { irr: 0.04, irrKind: 'investment', paybackYears: 14, cashFlows: [-100, 10] } as OptionResult['incremental'] });
+    expect(measureByKey('irr').value(barn)).toBe(0.04);
+    expect(measureByKey('paybackYears').value(barn)).toBe(14);
+    expect(measureByKey('irr').value(current)).toBeNull();
+    const saving = option('cheaper', { incremental: { irr: 0.6, irrKind: 'borrowing', cashFlows: [50, -10] } as OptionResult['incremental'] });
+    expect(measureByKey('irr').value(saving)).toBeNull();
   });
 
   it('gives equal values the same rank and skips the next (1-2-2-4)', () => {
