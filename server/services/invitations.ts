@@ -4,7 +4,6 @@
  * Accepting adds the membership to the signed-in account with that address, or signs the
  * invitee up when the address has no account yet.
  */
-import bcrypt from 'bcryptjs';
 import type { AcceptInvitationInput, InviteInput } from '../../shared/schema/accounts.js';
 import { hashToken, newEmailToken } from '../auth/tokens.js';
 import type { Database } from '../db/client.js';
@@ -20,12 +19,12 @@ import {
   revokeOpenInvitationsTo,
   type Invitation,
 } from '../db/repositories/invitations.js';
-import { findMembership, findUserByEmail, findUserById, insertUser, type User } from '../db/repositories/users.js';
+import { findMembership, findUserByEmail, insertUser, type User } from '../db/repositories/users.js';
 import type { FarmRole } from '../db/schema/index.js';
 import { AppError, conflict, notFound } from '../errors.js';
 import type { Mailer } from '../mail/mailer.js';
 import { invitationMail } from '../mail/templates.js';
-import { assertPasswordNotEmail } from './accounts.js';
+import { assertAddressee, insertedUser, invalidLink, prepareLinkAccount } from './link-accounts.js';
 
 export const INVITATION_LIFETIME_DAYS = 7;
 const DAY_MS = 24 * 60 * 60 * 1000;
@@ -102,7 +101,7 @@ const INVALID = {
 } as const;
 
 function invalidInvitation(reason: keyof typeof INVALID): AppError {
-  return new AppError(400, 'invalid_token', INVALID[reason], { token: INVALID[reason] }, { reason });
+  return invalidLink(INVALID, reason);
 }
 
 async function openInvitationByToken(db: Parameters<typeof findInvitationByTokenHash>[0], token: string, now: Date) {
@@ -152,9 +151,7 @@ export async function acceptInvitation(
 ): Promise<{ user: User; farmId: number; created: boolean }> {
   const invitation = await openInvitationByToken(db, token, now);
   if (caller) {
-    if (caller.email !== invitation.email) {
-      throw new AppError(403, 'wrong_account', `This invitation is for ${invitation.email}. Sign out and open the link again, or sign in with that address.`);
-    }
+    assertAddressee(caller, invitation.email, 'invitation');
     await db.transaction(async (tx) => {
       if (!(await claimInvitation(tx, invitation.id, now))) throw invalidInvitation('used');
       if (!(await findMembership(tx, invitation.farmId, caller.id))) await upsertMembership(tx, invitation.farmId, caller.id, invitation.role);
@@ -162,24 +159,12 @@ export async function acceptInvitation(
     return { user: caller, farmId: invitation.farmId, created: false };
   }
 
-  if (await findUserByEmail(db, invitation.email)) {
-    throw new AppError(409, 'sign_in_required', `An account for ${invitation.email} already exists. Sign in, then open the link again.`);
-  }
-  const fields: Record<string, string> = {};
-  if (!input.name) fields.name = 'Name is required';
-  if (!input.password) fields.password = 'Password is required';
-  const [firstField] = Object.keys(fields);
-  if (firstField) throw new AppError(400, 'invalid_input', `${firstField}: ${fields[firstField]}`, fields);
-  const { name, password } = input as Required<AcceptInvitationInput>;
-  assertPasswordNotEmail(password, invitation.email);
-  const passwordHash = await bcrypt.hash(password, cost);
+  const { name, passwordHash } = await prepareLinkAccount(db, invitation.email, input, cost);
   const userId = await db.transaction(async (tx) => {
     if (!(await claimInvitation(tx, invitation.id, now))) throw invalidInvitation('used');
     const id = await insertUser(tx, { email: invitation.email, name, passwordHash });
     await upsertMembership(tx, invitation.farmId, id, invitation.role);
     return id;
   });
-  const user = await findUserById(db, userId);
-  if (!user) throw new Error('user vanished after insert');
-  return { user, farmId: invitation.farmId, created: true };
+  return { user: await insertedUser(db, userId), farmId: invitation.farmId, created: true };
 }

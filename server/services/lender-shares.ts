@@ -5,7 +5,6 @@
  * the share is revoked or its expiry date comes. Sharing a newer version is a new share; the old
  * one keeps pointing at the version it was given.
  */
-import bcrypt from 'bcryptjs';
 import type { AcceptInvitationInput } from '../../shared/schema/accounts.js';
 import { MAX_SHARE_DAYS, utcDate, utcDatePlusDays, type ReviewStatusValue } from '../../shared/schema/lender.js';
 import type { z } from 'zod';
@@ -15,13 +14,13 @@ import type { Database } from '../db/client.js';
 import { findFarm, listMembers, upsertMembership } from '../db/repositories/farms.js';
 import { claimShareToken, findShare, findShareByTokenHash, findOpenShareTo, insertShare, listShares, revokeShare, type ShareRecord } from '../db/repositories/lender.js';
 import { findScenario, findVersion } from '../db/repositories/scenarios.js';
-import { findMembership, findUserByEmail, findUserById, insertUser, type User } from '../db/repositories/users.js';
+import { findMembership, findUserByEmail, insertUser, type User } from '../db/repositories/users.js';
 import { AppError, notFound } from '../errors.js';
 import { lenderShareMail } from '../mail/lender-templates.js';
 import type { Mailer } from '../mail/mailer.js';
-import { assertPasswordNotEmail } from './accounts.js';
 import { recordAudit } from './audit.js';
 import { liveSharesOf, shareState, type ShareState } from './lender-access.js';
+import { assertAddressee, insertedUser, invalidLink, prepareLinkAccount } from './link-accounts.js';
 
 export interface LenderContext {
   db: Database;
@@ -176,7 +175,7 @@ const INVALID = {
 } as const;
 
 function invalidShareLink(reason: keyof typeof INVALID): AppError {
-  return new AppError(400, 'invalid_token', INVALID[reason], { token: INVALID[reason] }, { reason });
+  return invalidLink(INVALID, reason);
 }
 
 async function openShareByToken(db: Database, token: string, now: Date) {
@@ -233,9 +232,7 @@ export async function acceptShare(
   const result = { farmId: share.farmId, scenarioId: share.scenarioId, shareId: share.id };
 
   if (caller) {
-    if (caller.email !== share.lenderEmail) {
-      throw new AppError(403, 'wrong_account', `This share is for ${share.lenderEmail}. Sign out and open the link again, or sign in with that address.`);
-    }
+    assertAddressee(caller, share.lenderEmail, 'share');
     await db.transaction(async (tx) => {
       if (!(await claimShareToken(tx, share.id, caller.id, now))) throw invalidShareLink('used');
       if (!(await findMembership(tx, share.farmId, caller.id))) await upsertMembership(tx, share.farmId, caller.id, 'lender');
@@ -244,17 +241,7 @@ export async function acceptShare(
     return { user: caller, ...result, created: false };
   }
 
-  if (await findUserByEmail(db, share.lenderEmail)) {
-    throw new AppError(409, 'sign_in_required', `An account for ${share.lenderEmail} already exists. Sign in, then open the link again.`);
-  }
-  const fields: Record<string, string> = {};
-  if (!input.name) fields.name = 'Name is required';
-  if (!input.password) fields.password = 'Password is required';
-  const [firstField] = Object.keys(fields);
-  if (firstField) throw new AppError(400, 'invalid_input', `${firstField}: ${fields[firstField]}`, fields);
-  const { name, password } = input as Required<AcceptInvitationInput>;
-  assertPasswordNotEmail(password, share.lenderEmail);
-  const passwordHash = await bcrypt.hash(password, bcryptCost);
+  const { name, passwordHash } = await prepareLinkAccount(db, share.lenderEmail, input, bcryptCost);
   const userId = await db.transaction(async (tx) => {
     const id = await insertUser(tx, { email: share.lenderEmail, name, passwordHash });
     if (!(await claimShareToken(tx, share.id, id, now))) throw invalidShareLink('used');
@@ -262,7 +249,5 @@ export async function acceptShare(
     await audit(tx, { id, name });
     return id;
   });
-  const user = await findUserById(db, userId);
-  if (!user) throw new Error('user vanished after insert');
-  return { user, ...result, created: true };
+  return { user: await insertedUser(db, userId), ...result, created: true };
 }

@@ -1,14 +1,7 @@
 import type { Option, Scenario } from '../schema';
 import { roundCentsFast } from './cents';
 import { coverageRatio, lowestByYear } from './coverage';
-import {
-  capitalRecoveryFactor,
-  discountedPaybackYears,
-  mirr,
-  npv,
-  paybackYears,
-  profitabilityIndex,
-} from './finance';
+import { capitalRecoveryFactor, discount, mirr, paybackYears } from './finance';
 import { npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan, type Projection } from './projection';
 import type { CoverageYear, FastOptionResult, IncrementalResult, Metrics, OptionResult, ScenarioResults } from './results';
 import { irrFast } from './irr-fast';
@@ -33,13 +26,18 @@ export type Series = 'option' | 'incremental';
  */
 export function metricsOf(cashFlows: number[], discountRate: number, financeRate: number, series: Series = 'option'): Metrics {
   const irrResult = irrFast(cashFlows);
-  const noOutlay = series === 'incremental' && (cashFlows[0] ?? 0) >= 0;
+  // finance.ts discount: the present values npv, discounted payback and the index share.
+  const presentValues = discount(discountRate, cashFlows);
+  let presentValue = 0;
+  for (const pv of presentValues) presentValue += pv;
+  const outlay = cashFlows[0] ?? 0;
+  const noOutlay = series === 'incremental' && outlay >= 0;
   const payback = noOutlay ? null : paybackYears(cashFlows);
-  const discountedPayback = noOutlay ? null : discountedPaybackYears(discountRate, cashFlows);
+  const discountedPayback = noOutlay ? null : paybackYears(presentValues);
   const paybackReason = noOutlay ? 'no-net-investment' : 'not-within-horizon';
   return {
     cashFlows,
-    npv: npv(discountRate, cashFlows),
+    npv: presentValue,
     irr: irrResult.value,
     ...(irrResult.value === null ? { irrReason: irrResult.reason } : { irrKind: firstNonZero(cashFlows) > 0 ? 'borrowing' : 'investment' }),
     mirr: finiteOrNull(mirr(cashFlows, financeRate, discountRate)),
@@ -47,7 +45,8 @@ export function metricsOf(cashFlows: number[], discountRate: number, financeRate
     ...(payback === null ? { paybackReason } : {}),
     discountedPaybackYears: discountedPayback,
     ...(discountedPayback === null ? { discountedPaybackReason: paybackReason } : {}),
-    profitabilityIndex: finiteOrNull(profitabilityIndex(discountRate, cashFlows)),
+    // finance.ts profitabilityIndex from the present value above: PV of flows[1..] ÷ the year-0 outlay.
+    profitabilityIndex: outlay < 0 ? finiteOrNull((presentValue - outlay) / -outlay) : null,
   };
 }
 
@@ -102,16 +101,11 @@ interface SearchInput {
   yearZero: number;
 }
 
-function searchInput(scenario: Scenario, option: Option, plan: OptionPlan, currentLyingHours: number): SearchInput {
-  const projection = projectOption(scenario, option, plan, currentLyingHours, 'none', false, true);
-  // withMilkModel = true always returns the model.
-  return { plan, model: projection.milk as MilkModel, yearZero: projection.cashFlows[0] ?? 0 };
-}
-
 /**
  * Break-even milk price and lying-time response against the current option: Brent's method on
- * the unrounded incremental NPV (a smooth function; at the roots the ledger's cents move NPV by
- * cents at most), each evaluation a single pass over the years of both milk models.
+ * the incremental NPV with milk, feed and tax unrounded (a smooth function of the price and the
+ * response; at the roots the ledger's cents move NPV by cents at most), each evaluation a single
+ * pass over the years of both milk models.
  */
 function breakEvens(scenario: Scenario, option: SearchInput, current: SearchInput, sameLyingTime: boolean): BreakEvens {
   const { finance, herd } = scenario;
@@ -147,14 +141,15 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
   const { discountRate, interestRate, coverageThreshold } = scenario.finance;
   const evaluated = scenario.options.map((option) => {
     const { plan, loan } = planOption(scenario, option, 'ledger');
-    const projection = projectOption(scenario, option, plan, current.lyingHoursPerDay, 'cents', true);
-    return { option, plan, loan, projection };
+    const projection = projectOption(scenario, option, plan, current.lyingHoursPerDay, 'cents', true, true);
+    // withMilkModel = true always returns the model.
+    const search: SearchInput = { plan, model: projection.milk as MilkModel, yearZero: projection.cashFlows[0] ?? 0 };
+    return { option, plan, loan, projection, search };
   });
   const base = evaluated.find((entry) => entry.option === current) ?? evaluated[0];
   if (!base) throw new RangeError('options must hold at least one option');
 
-  let baseSearch: SearchInput | undefined;
-  const options = evaluated.map(({ option, plan, loan, projection }): OptionResult => {
+  const options = evaluated.map(({ option, plan, loan, projection, search }): OptionResult => {
     const isCurrent = option === current;
     const lines = projection.lines ?? [];
     const coverage = coverageOf(scenario, plan, projection, base.projection, isCurrent);
@@ -189,9 +184,7 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
     if (!isCurrent) {
       const flows = projection.cashFlows.map((cf, t) => roundCentsFast(cf - (base.projection.cashFlows[t] ?? 0)));
       const sameLyingTime = option.lyingHoursPerDay === current.lyingHoursPerDay;
-      baseSearch ??= searchInput(scenario, current, base.plan, current.lyingHoursPerDay);
-      const search = breakEvens(scenario, searchInput(scenario, option, plan, current.lyingHoursPerDay), baseSearch, sameLyingTime);
-      result.incremental = { ...metricsOf(flows, discountRate, interestRate, 'incremental'), ...search };
+      result.incremental = { ...metricsOf(flows, discountRate, interestRate, 'incremental'), ...breakEvens(scenario, search, base.search, sameLyingTime) };
     }
     return result;
   });

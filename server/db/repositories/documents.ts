@@ -3,6 +3,7 @@
  * MariaDB as strings and JSON columns as text: both are converted here, once.
  */
 import { and, desc, eq, isNotNull, sql, type SQL } from 'drizzle-orm';
+import type { MySqlColumn } from 'drizzle-orm/mysql-core';
 import type { Database } from '../client.js';
 import { documentsTable, farmsTable, milkRecordImportsTable, usersTable } from '../schema/index.js';
 
@@ -29,16 +30,19 @@ export type NewDocument = Omit<DocumentRecord, 'id' | 'quoteAmount' | 'uploadedB
 
 const decimalOrNull = (value: string | null): number | null => (value === null ? null : Number(value));
 
-function selectDocuments(db: Executor) {
-  return db
-    .select({ row: documentsTable, uploaderName: usersTable.name })
-    .from(documentsTable)
-    .leftJoin(usersTable, eq(usersTable.id, documentsTable.uploadedBy));
+/** The user a row points at, with their name; null when the column is empty or the user is gone. */
+const userOrNull = (id: number | null, name: string | null): { id: number; name: string } | null => (id !== null && name !== null ? { id, name } : null);
+
+/** Rows of `table` with the name of the user in `userColumn` (null when none), for the mappers below. */
+function selectWithUserName<T extends typeof documentsTable | typeof milkRecordImportsTable>(db: Executor, table: T, userColumn: MySqlColumn) {
+  return db.select({ row: table, userName: usersTable.name }).from(table).leftJoin(usersTable, eq(usersTable.id, userColumn));
 }
+
+const selectDocuments = (db: Executor) => selectWithUserName(db, documentsTable, documentsTable.uploadedBy);
 
 type DocumentSelectRow = Awaited<ReturnType<ReturnType<typeof selectDocuments>['execute']>>[number];
 
-function toDocument({ row, uploaderName }: DocumentSelectRow): DocumentRecord {
+function toDocument({ row, userName }: DocumentSelectRow): DocumentRecord {
   return {
     id: row.id,
     farmId: row.farmId,
@@ -50,7 +54,7 @@ function toDocument({ row, uploaderName }: DocumentSelectRow): DocumentRecord {
     sha256: row.sha256,
     storageKey: row.storageKey,
     quoteAmount: decimalOrNull(row.quoteAmount),
-    uploadedBy: row.uploadedBy !== null && uploaderName !== null ? { id: row.uploadedBy, name: uploaderName } : null,
+    uploadedBy: userOrNull(row.uploadedBy, userName),
     createdAt: row.createdAt,
   };
 }
@@ -183,16 +187,11 @@ export interface MilkImportRecord {
 
 const yieldText = (value: number | null): string | null => (value === null ? null : value.toFixed(2));
 
-function selectImports(db: Executor) {
-  return db
-    .select({ row: milkRecordImportsTable, confirmerName: usersTable.name })
-    .from(milkRecordImportsTable)
-    .leftJoin(usersTable, eq(usersTable.id, milkRecordImportsTable.confirmedBy));
-}
+const selectImports = (db: Executor) => selectWithUserName(db, milkRecordImportsTable, milkRecordImportsTable.confirmedBy);
 
 type ImportSelectRow = Awaited<ReturnType<ReturnType<typeof selectImports>['execute']>>[number];
 
-function toImport({ row, confirmerName }: ImportSelectRow): MilkImportRecord {
+function toImport({ row, userName }: ImportSelectRow): MilkImportRecord {
   return {
     id: row.id,
     farmId: row.farmId,
@@ -208,7 +207,7 @@ function toImport({ row, confirmerName }: ImportSelectRow): MilkImportRecord {
     summary: typeof row.summary === 'string' ? JSON.parse(row.summary) : row.summary,
     previousHerdSize: row.previousHerdSize,
     previousYieldKgPerCowDay: decimalOrNull(row.previousYieldKgPerCowDay),
-    confirmedBy: row.confirmedBy !== null && confirmerName !== null ? { id: row.confirmedBy, name: confirmerName } : null,
+    confirmedBy: userOrNull(row.confirmedBy, userName),
     confirmedAt: row.confirmedAt,
     expiresAt: row.expiresAt,
     createdAt: row.createdAt,
@@ -329,3 +328,4 @@ export async function deleteExpiredMilkPreviews(db: Executor, now: Date): Promis
     .delete(milkRecordImportsTable)
     .where(and(eq(milkRecordImportsTable.status, 'preview'), sql`${milkRecordImportsTable.expiresAt} <= ${now}`));
 }
+
