@@ -1,4 +1,4 @@
-import type { CapitalLine, Herd, Option, RunningCostLine, Source, StartingPoint } from './schema';
+import { LINE_ID_MAX_LENGTH, type CapitalLine, type Herd, type Option, type RunningCostLine, type Source, type StartingPoint } from './schema';
 import { stallsFor } from './engine/sizing';
 import { beddingTonnesPerYear, beddingToStorageM3PerYear } from './engine/bedding';
 import { manureStorageVolumeM3, MIN_TROUGH_PERIMETER_PER_COW_M, STALL_GUIDANCE, type Range } from './engine/sizing';
@@ -318,9 +318,45 @@ function energyLinesFor(defaults: Defaults, stalls: number): Option['energyLines
 }
 
 /**
+ * A line id unique in the scenario: the option's id, a dot and the line's own name
+ * ("sand-freestall.shell"), the option part shortened when the whole would pass the schema's limit.
+ */
+export function scopedLineId(optionId: string, name: string): string {
+  const room = LINE_ID_MAX_LENGTH - name.length - 1;
+  return room > 0 ? `${optionId.slice(0, room)}.${name}` : name.slice(0, LINE_ID_MAX_LENGTH);
+}
+
+/**
+ * The option under a new id with its capital, energy and running-cost lines re-id'd to match:
+ * a line named under the option's old id ("steel.shell") keeps its own name ("steel-2.shell"),
+ * any other id is put under the new one; source tags keyed by a capital line follow their line.
+ */
+export function withOptionId(option: Option, optionId: string): Option {
+  const oldPrefix = `${option.id}.`;
+  const rename = (id: string): string => scopedLineId(optionId, id.startsWith(oldPrefix) ? id.slice(oldPrefix.length) : id);
+  const capitalIds = new Map(option.capitalLines.map((line) => [line.id, rename(line.id)]));
+  const sources: Option['sources'] = {};
+  for (const [key, source] of Object.entries(option.sources)) {
+    const match = /^capitalLines\.(.+)\.(unitCost|rate)$/.exec(key);
+    const renamed = match?.[1] === undefined ? undefined : capitalIds.get(match[1]);
+    sources[renamed === undefined ? key : `capitalLines.${renamed}.${match?.[2] ?? ''}`] = source;
+  }
+  return {
+    ...option,
+    id: optionId,
+    capitalLines: option.capitalLines.map((line) => ({ ...line, id: capitalIds.get(line.id) ?? rename(line.id) })),
+    energyLines: option.energyLines.map((line) => ({ ...line, id: rename(line.id) })),
+    runningCosts: option.runningCosts.map((line) => ({ ...line, id: rename(line.id) })),
+    sources,
+  };
+}
+
+/**
  * A new option from a starting point for this herd: stalls sized from the herd and a stocking
  * rate of 1, stall dimensions in the middle of the guidance for the breed size, water troughs for 7.6 cm of edge per cow, the store's surface from its sized
  * volume, and invented capital costs tagged 'assumption'. Every default carries its source.
+ * Line ids are put under the option id ("sand-freestall.shell", "sand-freestall.fans-lights"), so
+ * capital line ids are unique in a scenario of options with distinct ids.
  */
 export function createOption(startingPoint: StartingPoint, herd: Herd, settings: CreateOptionSettings): Option {
   const defaults = STARTING_POINTS[startingPoint];
@@ -338,7 +374,7 @@ export function createOption(startingPoint: StartingPoint, herd: Herd, settings:
     freeboardM: 0,
   });
   const capital = settings.current ? { lines: [], sources: {} } : capitalLinesFor(startingPoint, defaults, stalls);
-  return {
+  const option: Option = {
     id: settings.id,
     name: settings.name ?? STARTING_POINT_NAMES[startingPoint],
     startingPoint,
@@ -373,4 +409,5 @@ export function createOption(startingPoint: StartingPoint, herd: Herd, settings:
       ...(settings.current ? { capitalLines: assumed('the current housing is already paid for (sunk cost)') } : {}),
     },
   };
+  return withOptionId(option, settings.id);
 }

@@ -51,13 +51,18 @@ function moneyFormatter(locale: string, currency: string): (amount: number) => s
 const percent = (rate: number | null, reason?: string): string =>
   rate === null ? `n/a${reason ? ` (${reason})` : ''}` : `${(rate * 100).toFixed(2)} %`;
 
-const years = (value: number | null): string => (value === null ? 'not within horizon' : `${value.toFixed(1)} years`);
+const years = (value: number | null, reason?: string): string =>
+  value !== null ? `${value.toFixed(1)} years` : reason === 'no-net-investment' ? 'n/a (no outlay at year 0 to pay back)' : 'not within horizon';
+
+// A borrowing IRR is the rate the change costs (it saves money first and pays it back later): lower is better.
+const irrKindNote = (metrics: OptionResult | IncrementalResult): string =>
+  metrics.irrKind === 'borrowing' ? ' (a borrowing rate: saves first, costs later; lower is better)' : '';
 
 function metricLines(metrics: OptionResult | IncrementalResult, money: (amount: number) => string, indent: string): string[] {
   return [
     `${indent}NPV             ${money(metrics.npv)}`,
-    `${indent}IRR             ${percent(metrics.irr, metrics.irrReason)}`,
-    `${indent}Payback         ${years(metrics.paybackYears)}`,
+    `${indent}IRR             ${percent(metrics.irr, metrics.irrReason)}${irrKindNote(metrics)}`,
+    `${indent}Payback         ${years(metrics.paybackYears, metrics.paybackReason)}`,
   ];
 }
 

@@ -9,8 +9,8 @@ import { evaluateScenario } from '../../shared/engine/evaluate.js';
 import type { ScenarioResults } from '../../shared/engine/results.js';
 import { diffScenarios, type FieldChange, type Json } from '../../shared/scenario-diff.js';
 import type { createScenarioBodySchema } from '../../shared/scenario-api.js';
-import { herdSchema, scenarioSchema, type Finance, type Option, type Scenario, type ScenarioInput, type StartingPoint } from '../../shared/schema/index.js';
-import { createOption } from '../../shared/starting-points.js';
+import { DEFAULT_FINANCE, herdSchema, scenarioSchema, type Option, type Scenario, type ScenarioInput, type StartingPoint } from '../../shared/schema/index.js';
+import { createOption, withOptionId } from '../../shared/starting-points.js';
 import type { UnitSystem } from '../../shared/units.js';
 import type { Database } from '../db/client.js';
 import { findFarmBaseline } from '../db/repositories/farm-baseline.js';
@@ -67,23 +67,6 @@ async function asSharedVersion(db: Executor, record: ScenarioRecord, versions: r
 function assertVersionVisible(grants: Map<number, number[]> | null, scenarioId: number, version: number): void {
   if (grants && !(grants.get(scenarioId) ?? []).includes(version)) throw notFound(`Version ${version} not found`);
 }
-
-/** Finance terms of a new scenario before the user enters the farm's own (planning assumptions, editable). */
-const NEW_SCENARIO_FINANCE: Finance = {
-  equity: 0,
-  grants: 0,
-  loanAmount: null,
-  interestRate: 0.055,
-  termYears: 20,
-  paymentsPerYear: 12,
-  interestOnlyMonths: 0,
-  discountRate: 0.06,
-  taxRate: 0,
-  depreciation: 'straight-line',
-  decliningBalanceFactor: 2,
-  lossesOffsetOtherIncome: true,
-  coverageThreshold: 1.25,
-};
 
 export interface ScenarioView {
   id: number;
@@ -238,7 +221,7 @@ export async function createFromBaseline(
     units: farm.units,
     herd: herd.data,
     options: [current],
-    finance: NEW_SCENARIO_FINANCE,
+    finance: DEFAULT_FINANCE,
   } satisfies ScenarioInput);
   return createScenario(db, actor, document, 'Created from the farm baseline');
 }
@@ -322,7 +305,8 @@ export function duplicateOption(db: Database, actor: ScenarioActor, scenarioId: 
   return saveChange(db, actor, scenarioId, version, `Duplicated option "${optionId}"`, (latest) => {
     const index = optionIndex(latest, optionId);
     const original = latest.options[index] as Option;
-    const copy: Option = { ...structuredClone(original), id: freeOptionId(latest, original.id), name: name ?? `${original.name} (copy)`, current: false };
+    // The copy's lines get ids of their own: documents attach to scenarioId + capital line id.
+    const copy: Option = { ...withOptionId(structuredClone(original), freeOptionId(latest, original.id)), name: name ?? `${original.name} (copy)`, current: false };
     const options = [...latest.options];
     options.splice(index + 1, 0, copy);
     return { ...latest, options };

@@ -12,7 +12,7 @@ import { Money, roundCents } from './money';
  * reads a number (its shortest decimal form): 1.005 → 101, 570.37499999999994 → 57037. The
  * decimal ties k ± ½ cent, divided by 100 in binary, are the doubles those decimals parse to.
  * That holds while no other decimal of three places reads as the same double (|amount| < 2⁴²);
- * larger amounts go through decimal.js itself.
+ * larger amounts go through decimal.js itself (exact while the cents stay below 2⁵³).
  */
 export function wholeCents(amount: number): number {
   const magnitude = Math.abs(amount);
@@ -32,7 +32,8 @@ const NEAR_HALF_RELATIVE = 2 ** -48;
 
 /** A currency amount rounded to cents (currency), half-up with ties away from zero, in floating point; equals money.ts toCents. */
 export function roundCentsFast(amount: number): number {
-  return wholeCents(amount) / 100;
+  // Past 2⁴² the cents themselves may pass 2⁵³, where a double no longer holds every whole number.
+  return Math.abs(amount) < EXACT_BELOW ? wholeCents(amount) / 100 : roundCents(amount).toNumber();
 }
 
 // Products of whole cents and a short decimal rate sit at least 1e-5 cents away from a half cent
@@ -106,23 +107,27 @@ function ledgerInterest(balance: number, annualRate: number, paymentsPerYear: nu
 
 // The level payment's float formula errs by up to a few parts in 1e14 over 480 periods.
 const LEVEL_TIE_RELATIVE = 1e-12;
+const TINY_RATE = 1e-9;
 
 /** finance.ts loanSchedule's level payment (whole cents) on `balance` cents over `periods`. */
 function levelPaymentCents(balance: number, annualRate: number, paymentsPerYear: number, periods: number): number {
   const rate = annualRate / paymentsPerYear;
   const raw = rate === 0 ? balance / periods : (balance * rate) / -Math.expm1(-periods * Math.log1p(rate));
-  if (!isTie(raw, Math.max(TIE_WINDOW, raw * LEVEL_TIE_RELATIVE))) return Math.round(raw);
+  // Below a rate of 1e-9 the 40-digit (1 + r)^−m is no longer distinct from 1 the way a double's is.
+  const tinyRate = annualRate > 0 && annualRate < TINY_RATE;
+  if (!tinyRate && !isTie(raw, Math.max(TIE_WINDOW, raw * LEVEL_TIE_RELATIVE))) return Math.round(raw);
   return toWholeCents(roundCents(decimalLevelPayment(currency(balance), new Money(annualRate).div(paymentsPerYear), periods)));
 }
 
 /** One loan walked period by period in whole cents; payments only when asked for. */
 interface CentsSchedule {
-  /** Per loan year, index = year − 1 (whole cents). */
+  /** Per loan year, index = year − 1 (currency, whole cents). */
   interest: number[];
   principal: number[];
   payment: number[];
   closingBalance: number[];
   payments: LoanPayment[] | null;
+  /** Whole cents. */
   totalInterest: number;
   loan: number;
 }
@@ -147,8 +152,12 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
     let yearPrincipal = 0;
     for (let k = 0; k < paymentsPerYear; k++) {
       number++;
+      // isTie inlined: this loop runs for every period of every loan of every Monte Carlo draw.
       const raw = (balance * annualRate) / paymentsPerYear;
-      const periodInterest = isTie(raw, window) ? ledgerInterest(balance, annualRate, paymentsPerYear) : Math.round(raw);
+      const whole = Math.floor(raw);
+      const fraction = raw - whole;
+      const periodInterest =
+        fraction - 0.5 < window && 0.5 - fraction < window ? ledgerInterest(balance, annualRate, paymentsPerYear) : fraction > 0.5 ? whole + 1 : whole;
       let periodPrincipal: number;
       if (number <= interestOnlyPeriods) periodPrincipal = 0;
       else if (number === totalPeriods) periodPrincipal = balance;
@@ -157,25 +166,25 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
       balance -= periodPrincipal;
       yearInterest += periodInterest;
       yearPrincipal += periodPrincipal;
-      if (payments) payments.push({
-        number,
-        year: year + 1,
-        payment: (periodInterest + periodPrincipal) / 100,
-        interest: periodInterest / 100,
-        principal: periodPrincipal / 100,
-        balance: balance / 100,
-      });
+      if (payments) {
+        payments.push({
+          number,
+          year: year + 1,
+          payment: (periodInterest + periodPrincipal) / 100,
+          interest: periodInterest / 100,
+          principal: periodPrincipal / 100,
+          balance: balance / 100,
+        });
+      }
     }
-    interest[year] = yearInterest;
-    principal[year] = yearPrincipal;
-    payment[year] = yearInterest + yearPrincipal;
-    closingBalance[year] = balance;
+    interest[year] = yearInterest / 100;
+    principal[year] = yearPrincipal / 100;
+    payment[year] = (yearInterest + yearPrincipal) / 100;
+    closingBalance[year] = balance / 100;
     totalInterest += yearInterest;
   }
   return { interest, principal, payment, closingBalance, payments, totalInterest, loan };
 }
-
-const toCurrency = (cents: readonly number[]): number[] => cents.map((c) => c / 100);
 
 /**
  * Yearly interest and principal of a level-payment loan (currency, cents), as finance.ts
@@ -184,8 +193,8 @@ const toCurrency = (cents: readonly number[]): number[] => cents.map((c) => c / 
 export function loanYearsFast(principal: number, annualRate: number, years: number, paymentsPerYear: 1 | 2 | 4 | 12, interestOnlyMonths: number): LoanYearsFast {
   const input = { principal, annualRate, years, paymentsPerYear, interestOnlyMonths };
   const { totalPeriods, interestOnlyPeriods } = loanPeriods(input);
-  const cents = scheduleInCents(input, totalPeriods, interestOnlyPeriods, false);
-  return { interest: toCurrency(cents.interest), principal: toCurrency(cents.principal), closingBalance: toCurrency(cents.closingBalance) };
+  const { interest, principal: repaid, closingBalance } = scheduleInCents(input, totalPeriods, interestOnlyPeriods, false);
+  return { interest, principal: repaid, closingBalance };
 }
 
 /**
@@ -197,14 +206,15 @@ export function loanYearsFast(principal: number, annualRate: number, years: numb
 export function loanScheduleFast(input: LoanInput): LoanSchedule {
   const { totalPeriods, interestOnlyPeriods } = loanPeriods(input);
   const cents = scheduleInCents(input, totalPeriods, interestOnlyPeriods, true);
+  if (cents.loan === 0) return { payments: [], years: [], totalInterest: 0, totalPrincipal: 0 };
   return {
     payments: cents.payments ?? [],
     years: cents.interest.map((interest, i) => ({
       year: i + 1,
-      payment: (cents.payment[i] ?? 0) / 100,
-      interest: interest / 100,
-      principal: (cents.principal[i] ?? 0) / 100,
-      closingBalance: (cents.closingBalance[i] ?? 0) / 100,
+      payment: cents.payment[i] ?? 0,
+      interest,
+      principal: cents.principal[i] ?? 0,
+      closingBalance: cents.closingBalance[i] ?? 0,
     })),
     totalInterest: cents.totalInterest / 100,
     totalPrincipal: cents.loan / 100,

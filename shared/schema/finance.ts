@@ -1,5 +1,9 @@
 import { z } from 'zod';
 import { choice, flag, money, quantity, rate } from './fields';
+import type { Source } from './option';
+
+/** Lender's minimum debt-service coverage when the farm has not entered its lender's (ratio; common practice, no source). */
+export const DEFAULT_COVERAGE_THRESHOLD = 1.25;
 
 export const financeSchema = z
   .object({
@@ -23,7 +27,7 @@ export const financeSchema = z
     depreciation: choice('Depreciation method', ['straight-line', 'declining-balance'], 'Tax depreciation of capital lines over each life').default('straight-line'),
     decliningBalanceFactor: quantity('Declining-balance factor', '', 1, 3, 'Declining-balance factor (2 = 200 % DB), switching to straight line when larger').default(2),
     lossesOffsetOtherIncome: flag('Losses offset other income', 'True: a taxable loss saves tax that year against other farm income; false: losses carry forward').default(true),
-    coverageThreshold: quantity('Coverage threshold', '', 0.5, 5, "Lender's minimum debt-service coverage ratio (ratio)").default(1.25),
+    coverageThreshold: quantity('Coverage threshold', '', 0.5, 5, "Lender's minimum debt-service coverage ratio (ratio)").default(DEFAULT_COVERAGE_THRESHOLD),
   }, { error: 'Finance must be an object with its fields' })
   .superRefine((finance, ctx) => {
     // The schedule pays interest only for whole payment periods, rounded up.
@@ -39,3 +43,42 @@ export const financeSchema = z
   .describe('Finance, discounting and tax');
 
 export type Finance = z.infer<typeof financeSchema>;
+
+/**
+ * Finance terms of a new scenario before the farm enters its own (rates as fractions per year,
+ * term in years): planning assumptions, each tagged in DEFAULT_FINANCE_SOURCES.
+ */
+export const DEFAULT_FINANCE: Finance = {
+  equity: 0,
+  grants: 0,
+  loanAmount: null,
+  interestRate: 0.055,
+  termYears: 20,
+  paymentsPerYear: 12,
+  interestOnlyMonths: 0,
+  discountRate: 0.06,
+  taxRate: 0,
+  depreciation: 'straight-line',
+  decliningBalanceFactor: 2,
+  lossesOffsetOtherIncome: true,
+  coverageThreshold: DEFAULT_COVERAGE_THRESHOLD,
+};
+
+const assumption = (note: string): Source => ({ kind: 'assumption', note });
+
+/** Where each default finance term comes from. */
+export const DEFAULT_FINANCE_SOURCES: Record<keyof Finance, Source> = {
+  equity: assumption('no own cash put in until the farm enters it'),
+  grants: assumption('no grant until the farm enters one'),
+  loanAmount: assumption('borrow what the capital needs after equity and grants'),
+  interestRate: assumption('a planning rate for a farm building loan, 5.5 % a year'),
+  termYears: assumption('a 20-year building loan'),
+  paymentsPerYear: assumption('monthly payments'),
+  interestOnlyMonths: assumption('repayments start at once'),
+  discountRate: assumption('a planning discount rate of 6 % a year, above the loan rate'),
+  taxRate: assumption('pre-tax analysis until the farm enters its tax rate'),
+  depreciation: assumption('straight line over each line’s life'),
+  decliningBalanceFactor: assumption('200 % declining balance when that method is chosen'),
+  lossesOffsetOtherIncome: assumption('a loss on the project saves tax on other farm income'),
+  coverageThreshold: { kind: 'common-practice', note: 'lenders commonly ask for a debt-service coverage of at least 1.25; common practice, no source' },
+};

@@ -28,6 +28,9 @@ export const capitalCategories = [
 
 export const capitalUnits = ['per-stall', 'per-m2', 'per-m3', 'per-item', 'lump-sum'] as const;
 
+/** Longest id of a capital, energy or running-cost line (characters; the documents table stores capital line ids). */
+export const LINE_ID_MAX_LENGTH = 60;
+
 export const sourceSchema = z
   .object({
     kind: choice('Source kind', ['reference', 'common-practice', 'assumption', 'user'], 'Where a default comes from'),
@@ -45,7 +48,7 @@ export const sourcesSchema = z
 const capitalItemSchema = z
   .object({
     kind: z.literal('item').describe('An ordinary capital line: quantity × unit cost'),
-    id: text('Capital line id', 'Stable id of the line within its option', 60),
+    id: text('Capital line id', 'Stable id of the line, unique in the scenario (e.g. "sand-freestall.shell")', LINE_ID_MAX_LENGTH),
     description: text('Capital line description', 'What is bought'),
     category: choice('Capital line category', capitalCategories, 'Kind of investment'),
     quantity: quantity('Capital line quantity', '', 0, 1e7, 'How many units')
@@ -63,7 +66,7 @@ const capitalItemSchema = z
 const contingencyLineSchema = z
   .object({
     kind: z.literal('contingency').describe('A contingency allowance: a share of the other lines'),
-    id: text('Contingency line id', 'Stable id of the line within its option', 60),
+    id: text('Contingency line id', 'Stable id of the line, unique in the scenario (e.g. "sand-freestall.contingency")', LINE_ID_MAX_LENGTH),
     description: text('Contingency line description', 'Label of the allowance').default('Contingency'),
     rate: rate('Contingency rate', 0, 0.5, 'Share of the sum of the other lines at year 0 (fraction, 0.1 = 10 %)'),
     lifeYears: quantity('Contingency life', 'years', 1, 60, 'Years over which the allowance is depreciated and valued at salvage (years)', { int: true }).default(25),
@@ -81,7 +84,7 @@ export type ContingencyLine = z.infer<typeof contingencyLineSchema>;
 
 export const runningCostLineSchema = z
   .object({
-    id: text('Running cost id', 'Stable id of the line within its option', 60),
+    id: text('Running cost id', 'Stable id of the line within its option, by default under the option id', LINE_ID_MAX_LENGTH),
     description: text('Running cost description', 'What the cost is for'),
     amountPerYear: money('Running cost amount', 'Cost per year today; negative = a saving (currency per year)', -1e9, 1e9),
     growth: choice('Running cost growth', growthKeys, 'Which price group the line grows with').default('general'),
@@ -91,7 +94,7 @@ export type RunningCostLine = z.infer<typeof runningCostLineSchema>;
 
 export const energyLineSchema = z
   .object({
-    id: text('Energy line id', 'Stable id of the line within its option', 60),
+    id: text('Energy line id', 'Stable id of the line within its option, by default under the option id', LINE_ID_MAX_LENGTH),
     description: text('Energy line description', 'What uses the energy (scraper, fans, pumps, lights)'),
     kwhPerYear: quantity('Energy use', 'kWh/yr', 0, 1e8, 'Electricity used (kWh per year)'),
     pricePerKwh: money('Electricity price', 'Price today (currency per kWh)', 0, 1000),

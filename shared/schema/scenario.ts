@@ -46,6 +46,22 @@ export const scenarioSchema = z
         message: `Options: exactly one option must be the current option (found ${currents})`,
       });
     }
+    // Documents are attached to scenarioId + capital line id, so a line id names one line in the whole scenario.
+    const lineAt = new Map<string, string>();
+    scenario.options.forEach((option, index) => {
+      option.capitalLines.forEach((line, lineIndex) => {
+        const path = `options.${index}.capitalLines.${lineIndex}.id`;
+        const first = lineAt.get(line.id);
+        if (first === undefined) lineAt.set(line.id, path);
+        else if (!first.startsWith(`options.${index}.`)) {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['options', index, 'capitalLines', lineIndex, 'id'],
+            message: `Capital line id "${line.id}" at ${path} is already used at ${first}: capital line ids must be unique in the scenario`,
+          });
+        }
+      });
+    });
     const ids = new Set<string>();
     scenario.options.forEach((option, index) => {
       if (ids.has(option.id)) {

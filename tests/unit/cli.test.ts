@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, describe, expect, it } from 'vitest';
 import { evaluateScenario } from '../../shared/engine/evaluate';
-import { riskScenario, riskScenarioInput } from './risk/fixture';
+import { riskScenario, riskScenarioInput } from './engine/fixtures';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const dir = mkdtempSync(join(tmpdir(), 'byrecast-cli-'));

@@ -3,7 +3,7 @@
  * a metric is not defined. Pure: the numbers come in, the words go out; formatting is passed in
  * so the farm's locale and currency are used.
  */
-import type { IrrReason } from '@shared/engine/results';
+import type { IrrReason, PaybackReason } from '@shared/engine/results';
 
 /** Formatters the readings use: money to the cent, percentages, plain numbers. */
 export interface ReadingFormat {
@@ -41,8 +41,9 @@ export function paybackYear(years: number): number {
 }
 
 /** Reading of a simple or discounted payback in years (null = never within the horizon). */
-export function paybackReading(years: number | null, horizon: number, discounted = false): string {
+export function paybackReading(years: number | null, horizon: number, discounted = false, reason?: PaybackReason): string {
   const how = discounted ? ' on discounted cash flows' : '';
+  if (reason === 'no-net-investment') return 'nothing to pay back: the change saves money at year 0';
   if (years === null) return `does not pay back${how} within the ${horizon}-year horizon`;
   if (years === 0) return 'nothing to pay back: no money is out at year 0';
   return `pays back${how} in year ${paybackYear(years)} of ${horizon}`;
@@ -63,6 +64,7 @@ export function irrUndefinedReading(reason: IrrReason | undefined, flows: readon
 /** Reading of an IRR against the discount rate. */
 export function irrReading(irr: number | null, reason: IrrReason | undefined, flows: readonly number[], discountRate: number, f: ReadingFormat): string {
   if (irr === null) return irrUndefinedReading(reason, flows);
+  if ((flows.find((cf) => cf !== 0) ?? 0) > 0) return `a borrowing rate of ${f.percent(irr)} a year: the change saves money first and pays it back later, so lower is better`;
   const compare = irr > discountRate ? 'above' : irr < discountRate ? 'below' : 'equal to';
   return `earns ${f.percent(irr)} a year, ${compare} the ${f.percent(discountRate)} discount rate`;
 }

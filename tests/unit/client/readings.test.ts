@@ -34,6 +34,11 @@ describe('payback readings', () => {
     // MODEL.md: payback is null, "not within horizon", when cumulative CF never reaches 0.
     expect(paybackReading(null, 20, true)).toBe('does not pay back on discounted cash flows within the 20-year horizon');
   });
+
+  it('says there is nothing to pay back when the change saves money at year 0', () => {
+    // shared/engine/README.md: an incremental series with flows[0] ≥ 0 has payback null, reason no-net-investment.
+    expect(paybackReading(null, 20, false, 'no-net-investment')).toBe('nothing to pay back: the change saves money at year 0');
+  });
 });
 
 describe('IRR readings', () => {
@@ -56,6 +61,13 @@ describe('IRR readings', () => {
   it('compares a defined IRR with the discount rate in the farm locale', () => {
     // en-IE percent format from CLDR via Intl (from memory): "8.2%".
     expect(irrReading(0.082, undefined, [-100, 60, 60], 0.06, en)).toBe('earns 8.2% a year, above the 6.0% discount rate');
+  });
+
+  it('reads the IRR of flows that start with a saving as a borrowing rate', () => {
+    // shared/engine/results.ts irrKind 'borrowing': saving first and paying later, the IRR is a rate paid.
+    expect(irrReading(0.6194, undefined, [75_000, -50_000, -52_000], 0.06, en)).toBe(
+      'a borrowing rate of 61.9% a year: the change saves money first and pays it back later, so lower is better',
+    );
   });
 });
 

@@ -1,9 +1,9 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { decliningBalanceFast, loanYearsFast, roundCentsFast, straightLineFast } from '../../../shared/engine/cents';
+import { decliningBalanceFast, loanScheduleFast, loanYearsFast, roundCentsFast, straightLineFast } from '../../../shared/engine/cents';
 import { decliningBalance, straightLine } from '../../../shared/engine/depreciation';
 import { irr, loanSchedule } from '../../../shared/engine/finance';
-import { irrFast } from '../../../shared/engine/irr-fast';
+import { atMostOneIrr, irrFast } from '../../../shared/engine/irr-fast';
 import { toCents } from '../../../shared/engine/money';
 
 // The fast path's floating-point twins must give the decimal.js ledger's cents.
@@ -105,5 +105,66 @@ describe('floating-point twins of the ledger functions', () => {
     // −100, 230, −132 has roots 10 % and 20 % (textbook multiple-IRR example, recomputes exactly).
     expect(irrFast([-100, 230, -132])).toEqual(irr([-100, 230, -132]));
     expect(irrFast([-100, 230, -132]).value).toBeNull();
+  });
+
+  it('round amounts beyond 2^42 through decimal.js, still equal to toCents', () => {
+    // money.ts toCents is the reference (decimal.js half-up); 5e12 + 0.005 is a decimal tie.
+    expect(roundCentsFast(5e12 + 0.005)).toBe(toCents(5e12 + 0.005));
+    fc.assert(
+      fc.property(fc.double({ min: 2 ** 41, max: 1e15, noNaN: true }), (amount) => {
+        expect(roundCentsFast(amount) === toCents(amount)).toBe(true);
+        expect(roundCentsFast(-amount) === toCents(-amount)).toBe(true);
+      }),
+      { numRuns: 2000 },
+    );
+  });
+
+  it('build the whole loan schedule in integer cents, equal to the decimal.js schedule', () => {
+    // finance.ts loanSchedule (decimal.js, half-up, MODEL.md) is the reference. Rates with short
+    // decimals (0.06 / 12 = 0.005) put half cents on many periods, so ties are exercised too.
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 0, max: 1_000_000_000 }),
+        fc.oneof(
+          fc.integer({ min: 0, max: 300 }).map((bp) => bp / 1000),
+          fc.integer({ min: 0, max: 3000 }).map((bp) => bp / 10_000),
+          fc.double({ min: 0, max: 0.3, noNaN: true }),
+        ),
+        fc.integer({ min: 1, max: 40 }),
+        fc.constantFrom(1 as const, 2 as const, 4 as const, 12 as const),
+        fc.integer({ min: 0, max: 60 }),
+        (principalCents, annualRate, years, paymentsPerYear, interestOnlyMonths) => {
+          fc.pre(Math.ceil((interestOnlyMonths * paymentsPerYear) / 12) < years * paymentsPerYear);
+          const input = { principal: principalCents / 100, annualRate, years, paymentsPerYear, interestOnlyMonths };
+          expect(loanScheduleFast(input)).toEqual(loanSchedule(input));
+        },
+      ),
+      { numRuns: 1500 },
+    );
+    // The same errors, naming the field.
+    expect(() => loanScheduleFast({ principal: -1, annualRate: 0.05, years: 10, paymentsPerYear: 12 })).toThrow(/principal/);
+    expect(() => loanScheduleFast({ principal: 1000, annualRate: 0.05, years: 1, paymentsPerYear: 12, interestOnlyMonths: 12 })).toThrow(/interestOnlyMonths/);
+  });
+
+  it('find the only IRR of flows that change sign several times when the running sums allow one root', () => {
+    // Norstrom (1972), from memory: one sign change in the running sums → one IRR above 0; a late
+    // replacement year (−20) changes the flows' sign twice more but not their running sums.
+    const flows = [-100, 40, 40, -20, 40, 40, 30];
+    expect(atMostOneIrr(flows)).toBe(true);
+    const reference = irr(flows);
+    expect(reference.value).not.toBeNull();
+    expect(irrFast(flows).value).toBeCloseTo(reference.value ?? NaN, 9);
+    // −100, 230, −132 has roots 10 % and 20 %: the criterion must not claim a single root.
+    expect(atMostOneIrr([-100, 230, -132])).toBe(false);
+    fc.assert(
+      fc.property(fc.array(fc.integer({ min: -50_000, max: 100_000 }), { minLength: 2, maxLength: 41 }), fc.double({ min: -0.5, max: 2, noNaN: true }), (flows, start) => {
+        const reference = irr(flows);
+        const fast = irrFast(flows, start);
+        if (reference.value === null) expect(fast.value).toBeNull();
+        else expect(fast.value).toBeCloseTo(reference.value, 9);
+        if (fast.value === null && reference.value === null) expect('reason' in fast ? fast.reason : undefined).toBe(reference.reason);
+      }),
+      { numRuns: 1000 },
+    );
   });
 });

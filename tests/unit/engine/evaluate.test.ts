@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { evaluateNpvOnly, evaluateScenario, metricsOf } from '../../../shared/engine/evaluate';
+import { npvAtMilk, planOption, projectOption } from '../../../shared/engine/projection';
+import { scenarioSchema, type Scenario } from '../../../shared/schema';
 import type { OptionResult } from '../../../shared/engine/results';
 import { demoScenario } from './fixtures';
 import { handScenario } from './hand-scenario';
@@ -321,5 +323,80 @@ describe('fast path', () => {
     const perScenarioMs = (used.user + used.system) / 1000 / runs;
     // 0.5 ms per 5-option scenario = 5 s for 10 000 draws: a loose bound that still catches a slow path.
     expect(perScenarioMs).toBeLessThan(0.5);
+  });
+});
+
+describe('payback on an incremental series without an outlay', () => {
+  it('is null with no-net-investment, not 0', () => {
+    // MODEL.md payback: the first year cumulative CF ≥ 0. A change that saves 50 at year 0 and costs 10 a
+    // year after has nothing to pay back; shared/engine/README.md states the rule.
+    const saving = metricsOf([50, -10, -10, -10], 0.06, 0.06, 'incremental');
+    expect(saving.paybackYears).toBeNull();
+    expect(saving.paybackReason).toBe('no-net-investment');
+    expect(saving.discountedPaybackYears).toBeNull();
+    expect(saving.discountedPaybackReason).toBe('no-net-investment');
+    // The same flows of an option's own project keep finance.ts paybackYears (0 when flows[0] ≥ 0).
+    expect(metricsOf([50, -10, -10, -10], 0.06, 0.06).paybackYears).toBe(0);
+    // Never reached: null with not-within-horizon.
+    const never = metricsOf([-100, 10, 10], 0.06, 0.06, 'incremental');
+    expect(never.paybackYears).toBeNull();
+    expect(never.paybackReason).toBe('not-within-horizon');
+  });
+});
+
+describe('coverage in the horizon year', () => {
+  it('leaves the salvage and the tax on its gain out of the cash available for debt service', () => {
+    // FFSC: cash available for debt service = operating margin − tax on the year's operations; the salvage at H
+    // is a valuation, not an operating receipt. 200 % declining balance over 20 years leaves a tax book value of
+    // 100 000 × 0.9⁵ = 59 049 at year 5 against 75 000 salvage, so the year's tax includes 25 % × 15 951 of gain.
+    const results = evaluateScenario(
+      handScenario((s) => {
+        s.finance.taxRate = 0.25;
+        s.finance.depreciation = 'declining-balance';
+      }),
+    );
+    const year5 = option(results, 'candidate').years[5];
+    if (!year5) throw new Error('no year 5');
+    const operatingTaxable = year5.operatingMargin - year5.depreciation - year5.loanInterest;
+    expect(year5.taxableIncome).toBeCloseTo(operatingTaxable + 75_000 - 59_049, 6);
+    expect(year5.cashAvailableForDebtService).toBeCloseTo(year5.operatingMargin - Math.round(0.25 * operatingTaxable * 100) / 100, 6);
+    expect(year5.cashAvailableForDebtService).toBeGreaterThan(year5.operatingMargin - year5.tax);
+  });
+});
+
+describe('break-evens from the unrounded search', () => {
+  const scenario = demoScenario();
+  const results = evaluateScenario(scenario);
+  const H = scenario.horizonYears;
+  // Each year ≈ 25 lines in two options, each rounded to the cent (± 0.005), over H + 1 years.
+  const centsNoise = 0.005 * 25 * 2 * (H + 1);
+
+  it('gives an incremental NPV of about 0 on the ledger path at the break-even milk price and response', () => {
+    // MODEL.md: the break-even milk price is the price at which incremental NPV = 0.
+    let checked = 0;
+    for (const result of results.options) {
+      const price = result.incremental?.breakEvenMilkPrice;
+      if (price === null || price === undefined) continue;
+      const atPrice = evaluateScenario(scenarioSchema.parse({ ...scenario, herd: { ...scenario.herd, milkPricePerKg: price } }));
+      expect(Math.abs(option(atPrice, result.id).incremental?.npv ?? NaN)).toBeLessThanOrEqual(centsNoise);
+      const response = result.incremental?.breakEvenLyingResponse;
+      if (response === null || response === undefined) continue;
+      const atResponse = evaluateScenario(scenarioSchema.parse({ ...scenario, herd: { ...scenario.herd, lyingResponseKgPerHour: response } }));
+      expect(Math.abs(option(atResponse, result.id).incremental?.npv ?? NaN)).toBeLessThanOrEqual(centsNoise);
+      checked++;
+    }
+    expect(checked).toBeGreaterThan(0);
+  });
+
+  it('models each option’s NPV from its milk model as the projection does', () => {
+    const current = scenario.options.find((o) => o.current) as Scenario['options'][number];
+    for (const candidate of scenario.options) {
+      const { plan } = planOption(scenario, candidate, 'fast');
+      const projection = projectOption(scenario, candidate, plan, current.lyingHoursPerDay, 'cents', false, true);
+      if (!projection.milk) throw new Error('no milk model');
+      const modelled = npvAtMilk(projection.milk, plan, scenario.finance, projection.cashFlows[0] ?? 0, scenario.herd.milkPricePerKg, scenario.herd.lyingResponseKgPerHour);
+      // Milk, feed and tax are unrounded in the model: three lines a year at ± 0.005.
+      expect(Math.abs(modelled - option(results, candidate.id).npv)).toBeLessThanOrEqual(0.005 * 3 * (H + 1));
+    }
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
-import { optionSchema, scenarioSchema } from '../../../shared/schema';
+import { DEFAULT_FINANCE, DEFAULT_FINANCE_SOURCES, financeSchema, optionSchema, scenarioSchema } from '../../../shared/schema';
 import { demoScenarioInput } from './fixtures';
 
 type Mutable = Record<string, unknown> & { herd: Record<string, unknown>; finance: Record<string, unknown>; options: Record<string, unknown>[] };
@@ -87,6 +87,31 @@ describe('scenario schema', () => {
       for (let i = 0; i < 8; i++) s.options.push({ ...extra, id: `extra-${i}` });
     });
     expect(messages(many)).toContain('Options: a scenario holds at most 12 options');
+  });
+
+  it('refuses a capital line id used in two options, naming both paths', () => {
+    // Documents attach to scenarioId + capital line id (README, documents API), so a line id must name one line.
+    const result = withChange((s) => {
+      const lines = (s.options[2] as { capitalLines: { id: string }[] }).capitalLines;
+      const first = (s.options[1] as { capitalLines: { id: string }[] }).capitalLines[0];
+      if (lines[0] && first) lines[0].id = first.id;
+    });
+    expect(result.success).toBe(false);
+    const issue = result.success ? undefined : result.error.issues.find((i) => i.message.includes('unique in the scenario'));
+    expect(issue?.path).toEqual(['options', 2, 'capitalLines', 0, 'id']);
+    expect(issue?.message).toBe('Capital line id "steel.shell" at options.2.capitalLines.0.id is already used at options.1.capitalLines.0.id: capital line ids must be unique in the scenario');
+  });
+
+  it('holds default finance terms that validate, each with its source', () => {
+    expect(financeSchema.parse(DEFAULT_FINANCE)).toEqual(DEFAULT_FINANCE);
+    // REFERENCES.md: the lender's 1.25 coverage threshold is common practice, no source.
+    expect(DEFAULT_FINANCE.coverageThreshold).toBe(1.25);
+    expect(DEFAULT_FINANCE_SOURCES.coverageThreshold.kind).toBe('common-practice');
+    expect(financeSchema.parse({ interestRate: 0.05, termYears: 10, discountRate: 0.05 }).coverageThreshold).toBe(DEFAULT_FINANCE.coverageThreshold);
+    for (const key of Object.keys(DEFAULT_FINANCE) as (keyof typeof DEFAULT_FINANCE)[]) {
+      expect(DEFAULT_FINANCE_SOURCES[key].note.length, key).toBeGreaterThan(0);
+      if (key !== 'coverageThreshold') expect(DEFAULT_FINANCE_SOURCES[key].kind, key).toBe('assumption');
+    }
   });
 
   it('refuses an interest-only period that leaves no repayment', () => {

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { optionSchema, startingPoints } from '../../../shared/schema';
+import { optionSchema, scenarioSchema, startingPoints } from '../../../shared/schema';
 import { checkStallDimensions } from '../../../shared/engine/sizing';
-import { createOption, STARTING_POINT_ORDER } from '../../../shared/starting-points';
+import { createOption, scopedLineId, STARTING_POINT_ORDER, withOptionId } from '../../../shared/starting-points';
+import { demoScenarioInput } from './fixtures';
 import { parsedHerd } from './fixtures';
 
 const herd = parsedHerd();
@@ -36,7 +37,7 @@ describe('starting points', () => {
     const option = createOption('sand-freestall', herd, { id: 'sand' });
     expect(option.stockingRate).toBe(1);
     expect(option.water.troughs).toBe(4);
-    const shell = option.capitalLines.find((line) => line.id === 'shell');
+    const shell = option.capitalLines.find((line) => line.id === 'sand.shell');
     expect(shell?.kind === 'item' ? shell.quantity : null).toBe(120 * 8);
   });
 
@@ -75,5 +76,37 @@ describe('starting points', () => {
     expect(current.capitalLines).toEqual([]);
     expect(current.name).toBe('Grazing with seasonal housing');
     expect(createOption('grazing', herd, { id: 'x', name: 'Our grazing' }).name).toBe('Our grazing');
+  });
+
+  it('puts every line id under the option id, so capital lines are unique in a scenario', () => {
+    // A document is attached to scenarioId + capital line id (README, documents API): two options must not share one.
+    const sand = createOption('sand-freestall', herd, { id: 'sand-freestall' });
+    const steel = createOption('steel-freestall', herd, { id: 'steel-freestall' });
+    expect(sand.capitalLines.map((line) => line.id)).toContain('sand-freestall.shell');
+    expect(steel.capitalLines.map((line) => line.id)).toContain('steel-freestall.shell');
+    for (const line of [...sand.capitalLines, ...sand.energyLines, ...sand.runningCosts]) expect(line.id.startsWith('sand-freestall.')).toBe(true);
+    expect(sand.sources['capitalLines.sand-freestall.shell.unitCost']?.kind).toBe('assumption');
+    const ids = [...sand.capitalLines, ...steel.capitalLines].map((line) => line.id);
+    expect(new Set(ids).size).toBe(ids.length);
+  });
+
+  it('re-ids a copied option’s lines under the copy’s id', () => {
+    const sand = createOption('sand-freestall', herd, { id: 'sand' });
+    const copy = withOptionId({ ...sand, capitalLines: [...sand.capitalLines, { kind: 'item', id: 'line-1', description: 'Gate', category: 'other', unit: 'lump-sum', quantity: null, unitCost: 500, lifeYears: 20, replaceAtEndOfLife: true, documentIds: [] }] }, 'sand-2');
+    expect(copy.id).toBe('sand-2');
+    expect(copy.capitalLines.map((line) => line.id)).toContain('sand-2.shell');
+    // A line the user added under no option prefix goes under the copy's id too.
+    expect(copy.capitalLines.map((line) => line.id)).toContain('sand-2.line-1');
+    expect(copy.energyLines.every((line) => line.id.startsWith('sand-2.'))).toBe(true);
+    expect(copy.sources['capitalLines.sand-2.shell.unitCost']).toEqual(sand.sources['capitalLines.sand.shell.unitCost']);
+    expect(copy.sources['capitalLines.sand.shell.unitCost']).toBeUndefined();
+    // The ids stay within the schema's 60 characters, the option part shortened.
+    expect(scopedLineId('x'.repeat(60), 'shell')).toHaveLength(60);
+    expect(scopedLineId('x'.repeat(60), 'shell').endsWith('.shell')).toBe(true);
+    const input = demoScenarioInput();
+    const [, steel] = input.options;
+    if (!steel) throw new Error('no second option');
+    const both = scenarioSchema.safeParse({ ...input, options: [...input.options, { ...withOptionId(steel as Parameters<typeof withOptionId>[0], 'steel-copy'), current: false }] });
+    expect(both.success).toBe(true);
   });
 });

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { evaluateNpvOnly } from '../../../shared/engine/evaluate';
 import { perturb } from '../../../shared/engine/risk/perturb';
 import { createMonteCarloRun, runMonteCarlo, type MonteCarloSettings } from '../../../shared/engine/risk/monte-carlo';
-import { riskScenario } from './fixture';
+import { riskScenario } from '../engine/fixtures';
 
 const scenario = riskScenario();
 const settings = (changes: Partial<MonteCarloSettings> = {}): MonteCarloSettings => ({ ...scenario.risk.monteCarlo, draws: 300, ...changes });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { riskInputKeys, type Scenario } from '../../../shared/schema';
 import { applyMultipliers, perturb } from '../../../shared/engine/risk/perturb';
-import { riskScenario } from './fixture';
+import { riskScenario } from '../engine/fixtures';
 
 function deepFreeze<T>(value: T): T {
   if (value && typeof value === 'object') {

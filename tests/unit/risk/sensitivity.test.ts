@@ -4,7 +4,7 @@ import { riskInputKeys } from '../../../shared/schema';
 import { evaluateNpvOnly } from '../../../shared/engine/evaluate';
 import { perturb } from '../../../shared/engine/risk/perturb';
 import { sensitivity, type InputSwing } from '../../../shared/engine/risk/sensitivity';
-import { riskScenario } from './fixture';
+import { riskScenario } from '../engine/fixtures';
 
 const isSortedBySwing = (swings: readonly InputSwing[]): boolean => swings.every((s, i) => i === 0 || (swings[i - 1]?.swing ?? Infinity) >= s.swing);
 
