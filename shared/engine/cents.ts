@@ -32,9 +32,20 @@ const NEAR_HALF_RELATIVE = 2 ** -48;
 
 /** A currency amount rounded to cents (currency), half-up with ties away from zero, in floating point; equals money.ts toCents. */
 export function roundCentsFast(amount: number): number {
+  // The common case inline (this runs for every line of every year of every Monte Carlo draw):
+  // below 2³⁶ the product errs by under 0.005 cents, so an amount more than 0.025 cents away
+  // from a half cent rounds as Math.round says.
+  const magnitude = amount < 0 ? -amount : amount;
+  const scaled = magnitude * 100;
+  const cents = Math.round(scaled);
+  const off = scaled - cents;
+  if (magnitude < QUICK_BELOW && off < QUICK_MARGIN && off > -QUICK_MARGIN) return (amount < 0 ? -cents : cents) / 100;
   // Past 2⁴² the cents themselves may pass 2⁵³, where a double no longer holds every whole number.
-  return Math.abs(amount) < EXACT_BELOW ? wholeCents(amount) / 100 : roundCents(amount).toNumber();
+  return magnitude < EXACT_BELOW ? wholeCents(amount) / 100 : roundCents(amount).toNumber();
 }
+
+const QUICK_BELOW = 2 ** 36;
+const QUICK_MARGIN = 0.475;
 
 // Products of whole cents and a short decimal rate sit at least 1e-5 cents away from a half cent
 // unless they are on it, far above the float error of the product. Large amounts widen the

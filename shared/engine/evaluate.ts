@@ -141,7 +141,7 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
   const { discountRate, interestRate, coverageThreshold } = scenario.finance;
   const evaluated = scenario.options.map((option) => {
     const { plan, loan } = planOption(scenario, option, 'ledger');
-    const projection = projectOption(scenario, option, plan, current.lyingHoursPerDay, 'cents', true, true);
+    const projection = projectOption(scenario, option, plan, current.lyingHoursPerDay, true, true);
     // withMilkModel = true always returns the model.
     const search: SearchInput = { plan, model: projection.milk as MilkModel, yearZero: projection.cashFlows[0] ?? 0 };
     return { option, plan, loan, projection, search };
@@ -222,7 +222,7 @@ export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOpti
   const { discountRate } = scenario.finance;
   const runs = scenario.options.map((option) => {
     const { plan } = planOption(scenario, option, 'fast');
-    return { option, plan, projection: projectOption(scenario, option, plan, current.lyingHoursPerDay, 'cents', false) };
+    return { option, plan, projection: projectOption(scenario, option, plan, current.lyingHoursPerDay, false) };
   });
   const base = runs.find((run) => run.option === current) ?? runs[0];
   if (!base) return [];

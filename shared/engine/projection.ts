@@ -215,13 +215,6 @@ export interface MilkModel {
 
 type Rounding = (amount: number) => number;
 
-/**
- * How money is rounded: 'cents' rounds each line to cents half-up exactly as decimal.js does
- * (cents.ts wholeCents, pinned to toCents by property tests); 'none' not at all (for a smooth
- * function of the inputs).
- */
-export type RoundingMode = 'cents' | 'none';
-
 const identity: Rounding = (amount) => amount;
 
 /**
@@ -229,11 +222,6 @@ const identity: Rounding = (amount) => amount;
  * arise in such a sum, so this decides nothing that half-up rounding would.
  */
 const noiseFreeCents: Rounding = (sum) => Math.round(sum * 100) / 100;
-
-const ROUNDING: Record<RoundingMode, { line: Rounding; total: Rounding }> = {
-  cents: { line: roundCentsFast, total: noiseFreeCents },
-  none: { line: identity, total: identity },
-};
 
 /** Tax and net flows of one year, written into by {@link settleYear} (currency). */
 interface Settlement {
@@ -293,18 +281,20 @@ function optionYield(scenario: Scenario, option: Option, currentLyingHours: numb
 
 /**
  * The yearly flows of one option, t = 0..H (currency, nominal). Every money line is rounded to
- * cents (see RoundingMode) before it enters a total, so net = Σ lines exactly.
+ * cents half-up exactly as decimal.js does (cents.ts roundCentsFast) before it enters a total, so
+ * net = Σ lines exactly. With `withMilkModel` it also returns the option's milk model for the
+ * break-even searches.
  */
 export function projectOption(
   scenario: Scenario,
   option: Option,
   plan: OptionPlan,
   currentLyingHours: number,
-  rounding: RoundingMode,
   detail: boolean,
   withMilkModel = false,
 ): Projection {
-  const { line: round, total: centsTotal } = ROUNDING[rounding];
+  const round = roundCentsFast;
+  const centsTotal = noiseFreeCents;
   const { herd, finance } = scenario;
   const { growth } = herd;
   const H = plan.horizon;

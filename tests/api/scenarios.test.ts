@@ -198,7 +198,11 @@ describe('scenario API', () => {
       const dup = await owner.post(`${base}/scenarios/${id}/options/sand-freestall/duplicate`).send({ version: 2 });
       expect(dup.status).toBe(200);
       expect(dup.body.scenario.options.map((o: { id: string }) => o.id)).toEqual(['grazing', 'sand-freestall', 'sand-freestall-2']);
-      expect(dup.body.scenario.options[2]).toMatchObject({ name: 'Sand beds (copy)', current: false, capitalLines: add.body.scenario.options[1].capitalLines });
+      // The copy's lines are the original's under the copy's id: documents attach to scenario + capital line id.
+      const originalLines = add.body.scenario.options[1].capitalLines as { id: string }[];
+      const copiedLines = originalLines.map((line) => ({ ...line, id: line.id.replace(/^sand-freestall\./, 'sand-freestall-2.') }));
+      expect(copiedLines.every((line) => line.id.startsWith('sand-freestall-2.'))).toBe(true);
+      expect(dup.body.scenario.options[2]).toMatchObject({ name: 'Sand beds (copy)', current: false, capitalLines: copiedLines });
 
       const reordered = await owner.post(`${base}/scenarios/${id}/options/reorder`).send({ version: 3, order: ['sand-freestall-2', 'grazing', 'sand-freestall'] });
       expect(reordered.body.scenario.options.map((o: { id: string }) => o.id)).toEqual(['sand-freestall-2', 'grazing', 'sand-freestall']);

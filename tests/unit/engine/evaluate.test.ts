@@ -392,7 +392,7 @@ describe('break-evens from the unrounded search', () => {
     const current = scenario.options.find((o) => o.current) as Scenario['options'][number];
     for (const candidate of scenario.options) {
       const { plan } = planOption(scenario, candidate, 'fast');
-      const projection = projectOption(scenario, candidate, plan, current.lyingHoursPerDay, 'cents', false, true);
+      const projection = projectOption(scenario, candidate, plan, current.lyingHoursPerDay, false, true);
       if (!projection.milk) throw new Error('no milk model');
       const modelled = npvAtMilk(projection.milk, plan, scenario.finance, projection.cashFlows[0] ?? 0, scenario.herd.milkPricePerKg, scenario.herd.lyingResponseKgPerHour);
       // Milk, feed and tax are unrounded in the model: three lines a year at ± 0.005.
