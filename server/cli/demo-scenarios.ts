@@ -25,6 +25,22 @@ const CAIRNBROOK_FINANCE: ScenarioInput['finance'] = {
   coverageThreshold: 1.25,
 } satisfies Partial<Finance>;
 
+/**
+ * The family's own view of what could move (invented for the demo, multipliers on the figures
+ * entered): milk price swings most, building quotes tend to run over, the lying-time response
+ * is the least certain figure in the case.
+ */
+const CAIRNBROOK_UNCERTAINTY: NonNullable<NonNullable<ScenarioInput['risk']>['monteCarlo']> = {
+  draws: 5000,
+  seed: 2026,
+  inputs: [
+    { key: 'milkPrice', distribution: 'triangular', min: 0.8, mode: 1, max: 1.15 },
+    { key: 'capitalCost', distribution: 'triangular', min: 0.95, mode: 1.05, max: 1.3 },
+    { key: 'yieldResponse', distribution: 'normal', mean: 1, sd: 0.3, min: 0.2, max: 1.8 },
+    { key: 'wage', distribution: 'triangular', min: 0.95, mode: 1, max: 1.2 },
+  ],
+};
+
 function scenario(farm: DemoFarm['farm'], herd: Herd, name: string, description: string, options: Option[]): Scenario {
   return scenarioSchema.parse({
     schemaVersion: 1,
@@ -37,6 +53,7 @@ function scenario(farm: DemoFarm['farm'], herd: Herd, name: string, description:
     herd,
     options,
     finance: CAIRNBROOK_FINANCE,
+    risk: { monteCarlo: CAIRNBROOK_UNCERTAINTY },
   } satisfies ScenarioInput);
 }
 

@@ -8,7 +8,7 @@ import { computed, readonly, ref, shallowRef, watch } from 'vue';
 import { scenarioSchema, type Option, type Scenario, type StartingPoint } from '@shared/schema';
 import { evaluateScenario } from '@shared/engine/evaluate';
 import type { ScenarioResults } from '@shared/engine/results';
-import { createOption, STARTING_POINT_NAMES } from '@shared/starting-points';
+import { createOption, STARTING_POINT_NAMES, withOptionId } from '@shared/starting-points';
 import { ApiError } from '@/api/client';
 import { scenariosApi, type ScenarioMeta, type VersionConflict } from '@/api/scenarios';
 
@@ -247,8 +247,8 @@ export const useScenarioStore = defineStore('scenario', () => {
     const scenario = working.value;
     const source = scenario?.options.find((option) => option.id === id);
     if (!scenario || !source) return;
-    const copy = clone(source);
-    copy.id = newId(source.startingPoint, scenario.options.map((option) => option.id));
+    // Line ids are unique across the scenario: the copy's lines take the new option id.
+    const copy = withOptionId(clone(source), newId(source.startingPoint, scenario.options.map((option) => option.id)));
     copy.name = `${source.name} (copy)`.slice(0, 120);
     copy.current = false;
     scenario.options.splice(scenario.options.indexOf(source) + 1, 0, copy);
