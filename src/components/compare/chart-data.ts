@@ -9,6 +9,7 @@ import type { OptionResult, ScenarioResults } from '@shared/engine/results';
 import type { Scenario } from '@shared/schema';
 import { optionColour, optionDash } from '@/composables/useOptionColours';
 import { sumCents } from '@/components/results/projection-rows';
+import { CAPITAL_CATEGORY_LABELS } from '@/components/capital-categories';
 
 export interface ChartSeries {
   name: string;
@@ -62,21 +63,6 @@ export function incrementalCashFlowChart(scenario: Scenario, results: ScenarioRe
   };
 }
 
-const CATEGORY_LABELS: Record<string, string> = {
-  'building-shell': 'Building shell',
-  'stall-dividers': 'Stall dividers',
-  beds: 'Beds',
-  'alley-floor': 'Alley floor',
-  'manure-removal': 'Manure removal',
-  'manure-storage': 'Manure storage',
-  water: 'Water',
-  'ventilation-lighting': 'Ventilation and lighting',
-  'site-works': 'Site works',
-  fees: 'Fees',
-  equipment: 'Equipment',
-  other: 'Other',
-  contingency: 'Contingency',
-};
 
 /** Year-0 capital per category for one option (currency, to the cent), costed as the engine costs it. */
 export function capitalByCategory(scenario: Scenario, result: OptionResult): Map<string, number> {
@@ -96,13 +82,13 @@ export function capitalByCategory(scenario: Scenario, result: OptionResult): Map
 /** Capital make-up, stacked by category, one bar per option (currency). */
 export function capitalMakeUpChart(scenario: Scenario, results: ScenarioResults): ChartData {
   const perOption = results.options.map((o) => capitalByCategory(scenario, o));
-  const used = Object.keys(CATEGORY_LABELS).filter((c) => perOption.some((m) => (m.get(c) ?? 0) !== 0));
+  const used = (Object.keys(CAPITAL_CATEGORY_LABELS) as (keyof typeof CAPITAL_CATEGORY_LABELS)[]).filter((c) => perOption.some((m) => (m.get(c) ?? 0) !== 0));
   return {
     categories: results.options.map((o) => o.name),
     categoryTitle: 'Option',
     unit: 'money',
     series: used.map((c, i) => ({
-      name: CATEGORY_LABELS[c] ?? c,
+      name: CAPITAL_CATEGORY_LABELS[c] ?? c,
       data: perOption.map((m) => m.get(c) ?? 0),
       colour: CATEGORY_COLOURS[i % CATEGORY_COLOURS.length] ?? '#7f786a',
     })),
