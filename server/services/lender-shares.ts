@@ -6,7 +6,7 @@
  * one keeps pointing at the version it was given.
  */
 import type { AcceptInvitationInput } from '../../shared/schema/accounts.js';
-import { MAX_SHARE_DAYS, utcDate, utcDatePlusDays, type ReviewStatusValue } from '../../shared/schema/lender.js';
+import { MAX_SHARE_DAYS, utcDate, utcDatePlusDays, type ReviewStatusValue, type SharePreview } from '../../shared/schema/lender.js';
 import type { z } from 'zod';
 import type { createShareSchema } from '../../shared/schema/lender.js';
 import { hashToken, newEmailToken } from '../auth/tokens.js';
@@ -188,16 +188,6 @@ async function openShareByToken(db: Database, token: string, now: Date) {
   return share;
 }
 
-export interface SharePreview {
-  farmName: string;
-  scenarioName: string;
-  version: number;
-  email: string;
-  sharedBy: string | null;
-  expiresOn: string;
-  /** True when the address has an account (the lender signs in instead of signing up). */
-  accountExists: boolean;
-}
 
 /** What the accept page shows for a link; only someone holding the link learns it. */
 export async function previewShare(db: Database, token: string, now = new Date()): Promise<SharePreview> {

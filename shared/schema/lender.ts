@@ -13,6 +13,18 @@ export const REVIEW_STATUS_LABELS: Record<ReviewStatusValue, string> = {
   'not-supported': 'Not supported',
 };
 
+/** What the accept page shows for a share link (the API's answer, typed once for both sides). */
+export interface SharePreview {
+  farmName: string;
+  scenarioName: string;
+  version: number;
+  email: string;
+  sharedBy: string | null;
+  expiresOn: string;
+  /** True when the address has an account (the lender signs in instead of signing up). */
+  accountExists: boolean;
+}
+
 /** Longest a share may run before it must be renewed (a lender's review rarely takes longer). */
 export const MAX_SHARE_DAYS = 366;
 

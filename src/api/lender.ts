@@ -1,5 +1,7 @@
 /** Lender shares: share a scenario version, list and revoke shares, the lender's own shares, the share link, the audit log. */
-import type { ReviewStatusValue } from '@shared/schema/lender';
+import type { ReviewStatusValue, SharePreview } from '@shared/schema/lender';
+
+export type { SharePreview };
 import type { AcceptInvitationInput } from '@shared/schema/accounts';
 import type { Session } from './auth';
 import { http } from './client';
@@ -32,15 +34,6 @@ export interface CreateShareBody {
   message?: string;
 }
 
-export interface SharePreview {
-  farmName: string;
-  scenarioName: string;
-  version: number;
-  email: string;
-  sharedBy: string | null;
-  expiresOn: string;
-  accountExists: boolean;
-}
 
 export interface AcceptedShare extends Session {
   farmId: number;
