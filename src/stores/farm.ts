@@ -35,7 +35,10 @@ export const useFarmStore = defineStore('farm', () => {
     }
     farmId.value = id;
     loadError.value = null;
-    pending = Promise.all([farmApi.get(id), baselineApi.get(id), scenariosApi.list(id)])
+    // A lender is not shown the herd baseline (the API refuses it): ask only for what they may see.
+    pending = farmApi
+      .get(id)
+      .then((detail) => Promise.all([detail, detail.role === 'lender' ? null : baselineApi.get(id), scenariosApi.list(id)]))
       .then(([detail, base, list]) => {
         farm.value = detail;
         baseline.value = base;
