@@ -11,6 +11,8 @@ import type { ScenarioResults } from '@shared/engine/results';
 import { createOption, STARTING_POINT_NAMES, withOptionId } from '@shared/starting-points';
 import { ApiError } from '@/api/client';
 import { scenariosApi, type ScenarioMeta, type VersionConflict } from '@/api/scenarios';
+import { documentsApi } from '@/api/documents';
+import type { CapitalLineQuotes } from '@shared/schema/documents';
 
 /** Delay after the last edit before the browser re-evaluates (ms): fast enough to feel live, slow enough not to run per keystroke. */
 export const LIVE_DELAY_MS = 150;
@@ -103,10 +105,24 @@ export const useScenarioStore = defineStore('scenario', () => {
     try {
       const document = await scenariosApi.get(nextFarmId, nextScenarioId);
       adopt(document.scenario, document.version, document.meta);
+      void loadQuotes(nextFarmId, nextScenarioId);
     } catch (error) {
       loadError.value = error instanceof ApiError ? error.message : 'Could not load this scenario';
     } finally {
       loading.value = false;
+    }
+  }
+
+  /** Which capital lines a contractor's quote backs (documents on the line with an amount). */
+  const quotes = shallowRef<ReadonlyMap<string, CapitalLineQuotes>>(new Map());
+
+  async function loadQuotes(forFarm: number, forScenario: number): Promise<void> {
+    try {
+      const { lines } = await documentsApi.quotes(forFarm, forScenario);
+      if (scenarioId.value === forScenario) quotes.value = new Map(lines.map((l) => [l.capitalLineId, l]));
+    } catch {
+      // Without the quotes every line simply reads as an estimate.
+      quotes.value = new Map();
     }
   }
 
@@ -286,6 +302,7 @@ export const useScenarioStore = defineStore('scenario', () => {
   }
 
   return {
+    quotes,
     farmId: readonly(farmId),
     scenarioId: readonly(scenarioId),
     working,

@@ -27,13 +27,16 @@ describe('documents and milk records in Chromium', () => {
     const scenarios = (await (await page.request.get(`/api/farms/${farmId}/scenarios`)).json()) as { id: number }[];
     const scenario = scenarios[0];
     let lineLabel = 'Farm';
+    let quotedLineId = '';
     if (scenario) {
       const doc = (await (await page.request.get(`/api/farms/${farmId}/scenarios/${scenario.id}`)).json()) as {
-        scenario: { options: { capitalLines: { id: string; description: string }[] }[] };
+        scenario: { options: { current: boolean; capitalLines: { id: string; description: string }[] }[] };
       };
-      const line = doc.scenario.options.flatMap((o) => o.capitalLines)[0];
+      // A line of the first option that is not the current one: the one the capital table opens on.
+      const line = doc.scenario.options.find((o) => !o.current)?.capitalLines[0];
       expect(line, 'the demo scenario has a capital line').toBeDefined();
       lineLabel = line?.description ?? '';
+      quotedLineId = line?.id ?? '';
       await page.goto(`/farms/${farmId}/documents?scenarioId=${scenario.id}&capitalLineId=${encodeURIComponent(line?.id ?? '')}`);
       await expect.poll(() => page.getByRole('heading', { level: 2 }).first().textContent()).toContain(lineLabel);
     } else {
@@ -62,6 +65,21 @@ describe('documents and milk records in Chromium', () => {
       expect(await quoted.textContent()).toMatch(/182,450\.00/);
     }
     await harness.screenshot(page, 'documents-quote-listed');
+
+    if (scenario) {
+      // The capital table tells the quoted line from the estimates.
+      const docsUrl = page.url();
+      await page.goto(`/farms/${farmId}/scenarios/${scenario.id}`);
+      await page.getByRole('tab', { name: 'Capital' }).click();
+      const rows = page.locator('tr[data-line-id]');
+      await rows.first().waitFor();
+      const quotedLine = page.locator(`tr[data-line-id="${quotedLineId}"] [data-backing]`);
+      await expect.poll(() => quotedLine.textContent()).toMatch(/Quote €182,450\b/);
+      expect(await page.locator('[data-backing="estimate"]').count()).toBeGreaterThan(0);
+      await harness.screenshot(page, 'capital-table-quote');
+      await page.goto(docsUrl);
+      await link.waitFor();
+    }
 
     const [download] = await Promise.all([page.waitForEvent('download'), link.click()]);
     expect(download.suggestedFilename()).toBe('steel-frame quote.pdf');
