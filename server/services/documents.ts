@@ -4,7 +4,7 @@
  * delete, and the quote amounts the capital table reads.
  */
 import { createHash } from 'node:crypto';
-import { Transform, pipeline, type Readable, type TransformCallback } from 'node:stream';
+import { Transform, type Readable, type TransformCallback } from 'node:stream';
 import { fileTypeFromBuffer } from 'file-type';
 import type { Request } from 'express';
 import type multer from 'multer';
@@ -255,8 +255,15 @@ export function documentStorageEngine(db: Database, storage: FileStorage, quotaB
         const inspector = new UploadInspector(fileName, remaining, () => new QuotaExceededError(quotaBytes));
         // busboy ends a stream cut at the size limit normally; turn that into a failure so the partial file goes.
         file.stream.once('limit', () => inspector.destroy(new AppError(413, 'payload_too_large', 'The file is larger than 15 MB')));
-        const piped = pipeline(file.stream, inspector, () => undefined);
-        const storageKey = await storage.put(piped as Readable);
+        // Not pipeline(): a refused file must not tear down the request stream, or multer would
+        // answer before the partial file is gone. The rest of the body is drained instead.
+        file.stream.once('error', (error) => inspector.destroy(error));
+        inspector.once('error', () => {
+          file.stream.unpipe(inspector);
+          file.stream.resume();
+        });
+        file.stream.pipe(inspector);
+        const storageKey = await storage.put(inspector as unknown as Readable);
         if (!inspector.mediaType) throw new Error('upload stored without a sniffed type');
         return { storageKey, fileName: nameForType(fileName, inspector.mediaType), mediaType: inspector.mediaType, sizeBytes: inspector.size, sha256: inspector.digest() };
       };
