@@ -7,6 +7,7 @@ import type { CoverageYear, FastOptionResult, IncrementalResult, Metrics, Option
 import { irrFast } from './irr-fast';
 import { findRoot } from './root';
 import { checkStallDimensions, checkWater } from './sizing';
+import { scenarioWarnings } from './warnings';
 
 /** The current option (the schema guarantees exactly one; the first option otherwise). */
 export function currentOptionOf(scenario: Scenario): Option {
@@ -188,7 +189,7 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
     }
     return result;
   });
-  return { horizonYears: scenario.horizonYears, currency: scenario.currency, currentOptionId: current.id, options };
+  return { horizonYears: scenario.horizonYears, currency: scenario.currency, currentOptionId: current.id, options, warnings: scenarioWarnings(scenario) };
 }
 
 export interface FastEvaluationOptions {

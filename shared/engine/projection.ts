@@ -23,6 +23,7 @@ import {
   troughHoursPerYear,
 } from './labour';
 import { collectedManurePerYear, fertiliserValue, K_TO_K2O, manureHandlingCostPerYear, P_TO_P2O5, storedVolumeM3PerYear } from './manure';
+import { resolvedGrowth } from './growth';
 import type { YearLine } from './results';
 import { manureStorageVolumeM3, stallsFor } from './sizing';
 import { taxableIncome, taxDepreciation, taxForYear, type DepreciationSchedule } from './tax';
@@ -296,7 +297,7 @@ export function projectOption(
   const round = roundCentsFast;
   const centsTotal = noiseFreeCents;
   const { herd, finance } = scenario;
-  const { growth } = herd;
+  const growth = resolvedGrowth(herd.growth);
   const H = plan.horizon;
   const milkPrice = herd.milkPricePerKg;
   const response = herd.lyingResponseKgPerHour;

@@ -1,22 +1,28 @@
 import { z } from 'zod';
 import { choice, money, quantity, rate } from './fields';
 
-/** Yearly growth of one price or cost line, a fraction per year (nominal). */
-const growth = (label: string, fallback: number) =>
-  rate(label, -0.2, 0.3, `${label}: nominal growth per year (fraction, 0.02 = 2 %/yr)`).default(
-    fallback,
-  );
+const growthRate = (label: string) => rate(label, -0.2, 0.3, `${label}: nominal growth per year (fraction, 0.02 = 2 %/yr)`);
+
+/**
+ * Yearly growth of one price group; null (the default) = it follows general inflation, so no
+ * group drifts from another unless the farm enters its own rate.
+ */
+const groupGrowth = (label: string) =>
+  growthRate(label)
+    .nullable()
+    .default(null)
+    .describe(`${label}: nominal growth per year (fraction, 0.02 = 2 %/yr); null = general inflation`);
 
 export const growthRatesSchema = z
   .object({
-    milkPrice: growth('Milk price growth', 0.01),
-    feed: growth('Feed cost growth', 0.02),
-    wages: growth('Wage growth', 0.03),
-    bedding: growth('Bedding price growth', 0.02),
-    fertiliser: growth('Fertiliser price growth', 0.02),
-    general: growth('General inflation', 0.02),
+    milkPrice: groupGrowth('Milk price growth'),
+    feed: groupGrowth('Feed cost growth'),
+    wages: groupGrowth('Wage growth'),
+    bedding: groupGrowth('Bedding price growth'),
+    fertiliser: groupGrowth('Fertiliser price growth'),
+    general: growthRate('General inflation').default(0.02),
   })
-  .describe('Nominal yearly growth of each price group (fractions per year)');
+  .describe('Nominal yearly growth of each price group (fractions per year); a group left empty follows general inflation');
 
 /** The price groups a running-cost line can follow. */
 export const growthKeys = ['milkPrice', 'feed', 'wages', 'bedding', 'fertiliser', 'general', 'none'] as const;
