@@ -12,7 +12,7 @@ import {
 import { decliningBalanceFast, loanScheduleFast, loanYearsFast, roundCentsFast, straightLineFast, type LoanYearsFast } from './cents';
 import { baseFeedCostPerYear, effectiveHousedDays, grazingDaysPerYear, marginalFeedCostPerYear } from './feed';
 import type { LoanSchedule } from './finance';
-import { cullingCostPerYear, healthCostPerYear } from './health';
+import { cullingCostPerYear, extraCullsPer100Cows, healthCostPerYear } from './health';
 import { cowsPerYear, herdPurchasesByYear, herdValueAtHorizon } from './herd-size';
 import {
   bedCareHoursPerYear,
@@ -27,7 +27,7 @@ import { resolvedGrowth } from './growth';
 import type { YearLine } from './results';
 import { manureStorageVolumeM3, stallsFor } from './sizing';
 import { taxableIncome, taxDepreciation, taxForYear, type DepreciationSchedule } from './tax';
-import { milkSoldKgPerYear, rampFraction, yieldPerCowDay } from './yield';
+import { cappedLyingHours, lactatingShare, milkSoldKgPerYear, rampFraction, stockedLyingHours, yieldPerCowDay } from './yield';
 
 /** Everything about an option that does not change with prices: herd, sizing, capital, tax depreciation, loan. */
 export interface OptionPlan {
@@ -267,16 +267,25 @@ function settleYear(out: Settlement, plan: OptionPlan, finance: Scenario['financ
   out.cashForDebtService = centsTotal(operatingMargin - operatingTax);
 }
 
+/**
+ * The lying time of an option that earns milk (h/day): its expected lying time, less what
+ * overstocking costs, up to the herd's cap. The current option's is the reference L_current.
+ */
+export function milkingLyingHours(herd: Scenario['herd'], option: Option): number {
+  return cappedLyingHours(stockedLyingHours(option.lyingHoursPerDay, option.stockingRate, herd.lyingLossPer10PctOverstocking), herd.lyingResponseCapHours);
+}
+
 /** Yield per cow-day (kg) of an option at a lying-time response, with the ramp of `year`. */
 function optionYield(scenario: Scenario, option: Option, currentLyingHours: number, response: number, year: number): number {
   const { herd } = scenario;
   return yieldPerCowDay({
     baselineKgPerCowDay: herd.yieldKgPerCowDay,
     lyingResponseKgPerHour: response,
-    lyingHours: option.lyingHoursPerDay,
+    lyingHours: milkingLyingHours(herd, option),
     currentLyingHours,
     systemAdjustmentKgPerCowDay: option.systemYieldAdjustment,
     rampFraction: rampFraction(year, herd.lyingResponseYear1Fraction),
+    lactatingShare: lactatingShare(herd.dryDaysPerCowYear),
   });
 }
 
@@ -336,7 +345,7 @@ export function projectOption(
   const baselineMilkPerCow = milkSoldKgPerYear(1, herd.yieldKgPerCowDay);
   const feedPerCow = baseFeedCostPerYear(1, housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
   const healthPerCow = healthCostPerYear(1, option.health);
-  const cullingPerCow = cullingCostPerYear(option.health.extraCullsPer100Cows, 1, herd.replacementHeiferCost, herd.cullCowValue);
+  const cullingPerCow = cullingCostPerYear(extraCullsPer100Cows(option.health), 1, herd.replacementHeiferCost, herd.cullCowValue);
   const manurePerCow = collectedManurePerYear(herd.manureExcretion, 1, housedDays, option.manure.collectionEfficiency);
   const manureValuePerCow = fertiliserValue(manurePerCow, herd.nutrientAvailability, herd.fertiliserPrices);
   const storedVolume = (cows: number): number =>
@@ -355,6 +364,7 @@ export function projectOption(
   const handlingPerM3 = manureHandlingCostPerYear(1, option.manure.handlingCostPerM3, option.manure.sandExtraHandlingCostPerM3);
 
   const settled = emptySettlement();
+  const lyingGain = (milkingLyingHours(herd, option) - currentLyingHours) * lactatingShare(herd.dryDaysPerCowYear);
   const milk: MilkModel | null = withMilkModel
     ? {
         cows: plan.cows,
@@ -365,8 +375,8 @@ export function projectOption(
         baselineMilkPerCow,
         marginalFeedCostPerKg: herd.marginalFeedCostPerKgMilk,
         yieldFixed: herd.yieldKgPerCowDay + option.systemYieldAdjustment,
-        yieldPerResponseYear1: (option.lyingHoursPerDay - currentLyingHours) * rampFraction(1, herd.lyingResponseYear1Fraction),
-        yieldPerResponseLater: (option.lyingHoursPerDay - currentLyingHours) * rampFraction(2, herd.lyingResponseYear1Fraction),
+        yieldPerResponseYear1: lyingGain * rampFraction(1, herd.lyingResponseYear1Fraction),
+        yieldPerResponseLater: lyingGain * rampFraction(2, herd.lyingResponseYear1Fraction),
       }
     : null;
   let gMilk = 1, gFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;

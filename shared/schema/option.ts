@@ -122,13 +122,14 @@ const perCase = (label: string, what: string) =>
 
 export const healthSchema = z
   .object({
-    lamenessCasesPer100Cows: per100('Lameness cases', 'Lameness cases'),
+    lamenessCasesPer100Cows: per100('Lameness cases', 'New lameness cases, yearly incidence (not prevalence)'),
     lamenessCostPerCase: perCase('Lameness cost', 'Cost of a lameness case'),
     mastitisCasesPer100Cows: per100('Clinical mastitis cases', 'Clinical mastitis cases'),
     mastitisCostPerCase: perCase('Mastitis cost', 'Cost of a clinical mastitis case'),
     injuriesPer100Cows: per100('Injuries', 'Hock, knee and other housing injuries'),
     injuryCostPerCase: perCase('Injury cost', 'Cost of an injury'),
     extraCullsPer100Cows: quantity('Extra culls', 'per 100 cows per year', 0, 100, 'Culls caused by the housing beyond the herd norm (cows per 100 cows per year)'),
+    lamenessCullsPerCase: quantity('Culls per lameness case', 'culls per case', 0, 1, 'Extra culls caused by each lameness case (cows per case)').default(0),
   }, { error: 'Health must be an object with its fields' })
   .describe('Health rates and costs per case; grow with general inflation');
 
