@@ -18,6 +18,8 @@ const MATTRESS_LAMENESS_INCIDENCE = 35;
 const SAND_LAMENESS_INCIDENCE = Math.round(((MATTRESS_LAMENESS_INCIDENCE * 11.1) / 24) * 10) / 10;
 const LAMENESS_CULLS_PER_CASE = 0.05;
 const LAMENESS_MATTRESS_SOURCE = assumed(`new cases a year (incidence); ${COOK} measured 24.0 % of cows lame in mattress herds on the day (prevalence, read), and a year sees more cases than are lame on one day`);
+/** Share of the collected N lost from a slurry store before spreading. */
+const STORAGE_N_LOSS = 0.25;
 const PENN_STATE_WATER = 'Penn State Extension, watering system design: ≥ 3 in (7.6 cm) per cow, ≥ 10 US gal/min';
 
 interface Defaults {
@@ -58,7 +60,10 @@ const COMMON_SOURCES: Record<string, Source> = {
   'manure.collectionEfficiency': assumed('share of housed-day manure reaching the store'),
   'manure.handlingCostPerM3': assumed('agitation, hauling and spreading by contractor'),
   'manure.storageDays': assumed('storage period; follow local rules'),
-  'manure.washWaterM3PerCowDay': practice('parlour wash water usually joins the storage; 50 L per cow per day is a planning figure'),
+  'manure.washWaterM3PerCowDay': practice('parlour wash water usually joins the storage on every milking day, grazing or housed; 50 L per cow per day is a planning figure'),
+  'manure.washWaterDiverted': practice('parlour wash water usually joins the storage'),
+  'manure.storageNitrogenLoss': assumed('a quarter of the N lost from a slurry store before spreading; stored liquid manure commonly loses 20–40 % (from memory); replace with the local figure'),
+  'manure.pastureDungCredit': assumed('dung dropped on pasture is not valued'),
   'manure.openStorageAreaM2': assumed('open store 3 m deep, sized from the storage volume'),
   'manure.netRainMPerYear': assumed('rain minus evaporation; replace with the local figure'),
   'manure.freeboardM': assumed('freeboard kept empty'),
@@ -76,7 +81,7 @@ const STEEL_FREESTALL: Defaults = {
   health: { lamenessCasesPer100Cows: MATTRESS_LAMENESS_INCIDENCE, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 30, mastitisCostPerCase: 250, injuriesPer100Cows: 10, injuryCostPerCase: 150, extraCullsPer100Cows: 0, lamenessCullsPerCase: LAMENESS_CULLS_PER_CASE },
   labour: { scrapingPassesPerDay: 2, minutesPerScrapingPass: 15, bedCleaningsPerDay: 2, secondsPerStallCleaning: 10, beddingTonnesPerHour: 1, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 0 },
   bedding: { material: 'none', kgPerStallDay: 0, pricePerTonne: 0, bulkDensityTonnesPerM3: 0.25, shareToManureStorage: 0 },
-  manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+  manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, washWaterDiverted: false, storageNitrogenLoss: STORAGE_N_LOSS, pastureDungCredit: 0, netRainMPerYear: 0.4, freeboardM: 0.3 },
   maintenanceRate: 0.01,
   sources: {
     housedDaysPerYear: practice('a freestall herd is housed all year'),
@@ -105,7 +110,7 @@ const STARTING_POINTS: Record<StartingPoint, Defaults> = {
     health: { lamenessCasesPer100Cows: 20, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 25, mastitisCostPerCase: 250, injuriesPer100Cows: 5, injuryCostPerCase: 150, extraCullsPer100Cows: 0, lamenessCullsPerCase: LAMENESS_CULLS_PER_CASE },
     labour: { scrapingPassesPerDay: 2, minutesPerScrapingPass: 15, bedCleaningsPerDay: 2, secondsPerStallCleaning: 10, beddingTonnesPerHour: 1, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 2.5 },
     bedding: { material: 'sawdust', kgPerStallDay: 1, pricePerTonne: 60, bulkDensityTonnesPerM3: 0.25, shareToManureStorage: 1 },
-    manure: { collectionEfficiency: 0.9, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+    manure: { collectionEfficiency: 0.9, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, washWaterDiverted: false, storageNitrogenLoss: STORAGE_N_LOSS, pastureDungCredit: 0, netRainMPerYear: 0.4, freeboardM: 0.3 },
     maintenanceRate: 0.01,
     sources: {
       housedDaysPerYear: assumed('winter housing period of a pasture-based herd; set to the farm\u2019s own'),
@@ -142,7 +147,7 @@ const STARTING_POINTS: Record<StartingPoint, Defaults> = {
     health: { lamenessCasesPer100Cows: MATTRESS_LAMENESS_INCIDENCE, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 28, mastitisCostPerCase: 250, injuriesPer100Cows: 3, injuryCostPerCase: 150, extraCullsPer100Cows: 0, lamenessCullsPerCase: LAMENESS_CULLS_PER_CASE },
     labour: { scrapingPassesPerDay: 0, minutesPerScrapingPass: 0, bedCleaningsPerDay: 2, secondsPerStallCleaning: 10, beddingTonnesPerHour: 1, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 0 },
     bedding: { material: 'sawdust', kgPerStallDay: 2.5, pricePerTonne: 60, bulkDensityTonnesPerM3: 0.25, shareToManureStorage: 1 },
-    manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+    manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, washWaterDiverted: false, storageNitrogenLoss: STORAGE_N_LOSS, pastureDungCredit: 0, netRainMPerYear: 0.4, freeboardM: 0.3 },
     maintenanceRate: 0.012,
     sources: {
       housedDaysPerYear: practice('a freestall herd is housed all year'),
@@ -170,7 +175,7 @@ const STARTING_POINTS: Record<StartingPoint, Defaults> = {
     health: { lamenessCasesPer100Cows: SAND_LAMENESS_INCIDENCE, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 22, mastitisCostPerCase: 250, injuriesPer100Cows: 3, injuryCostPerCase: 150, extraCullsPer100Cows: 0, lamenessCullsPerCase: LAMENESS_CULLS_PER_CASE },
     labour: { scrapingPassesPerDay: 3, minutesPerScrapingPass: 15, bedCleaningsPerDay: 2, secondsPerStallCleaning: 15, beddingTonnesPerHour: 4, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 0 },
     bedding: { material: 'sand', kgPerStallDay: 23, pricePerTonne: 15, bulkDensityTonnesPerM3: 1.6, shareToManureStorage: 0.9 },
-    manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 1.5, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+    manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 1.5, storageDays: 150, washWaterM3PerCowDay: 0.05, washWaterDiverted: false, storageNitrogenLoss: STORAGE_N_LOSS, pastureDungCredit: 0, netRainMPerYear: 0.4, freeboardM: 0.3 },
     maintenanceRate: 0.015,
     sources: {
       housedDaysPerYear: practice('a freestall herd is housed all year'),

@@ -22,12 +22,12 @@ import {
   scrapingHoursPerYear,
   troughHoursPerYear,
 } from './labour';
-import { collectedManurePerYear, fertiliserValue, K_TO_K2O, manureHandlingCostPerYear, P_TO_P2O5, storedVolumeM3PerYear } from './manure';
+import { collectedManurePerYear, creditedNutrients, creditedValue, cropNeedCap, K_TO_K2O, manureHandlingCostPerYear, P_TO_P2O5, scaleManure, storedVolumeM3PerYear } from './manure';
 import { resolvedGrowth } from './growth';
 import type { YearLine } from './results';
 import { manureStorageVolumeM3, stallsFor } from './sizing';
 import { taxableIncome, taxDepreciation, taxForYear, type DepreciationSchedule } from './tax';
-import { cappedLyingHours, lactatingShare, milkSoldKgPerYear, rampFraction, stockedLyingHours, yieldPerCowDay } from './yield';
+import { cappedLyingHours, lactatingShare, MILK_DAYS_PER_YEAR, milkSoldKgPerYear, rampFraction, stockedLyingHours, yieldPerCowDay } from './yield';
 
 /** Everything about an option that does not change with prices: herd, sizing, capital, tax depreciation, loan. */
 export interface OptionPlan {
@@ -68,7 +68,7 @@ export function optionStorageM3(scenario: Scenario, option: Option, designCows: 
   const beddingTonnesPerDay = beddingTonnesPerYear(option.bedding.kgPerStallDay, stalls, 1);
   return manureStorageVolumeM3({
     manureM3PerDay: manureKgPerDay / herd.manureDensityKgPerM3,
-    washWaterM3PerDay: option.manure.washWaterM3PerCowDay * designCows,
+    washWaterM3PerDay: option.manure.washWaterDiverted ? 0 : option.manure.washWaterM3PerCowDay * designCows,
     beddingM3PerDay: beddingToStorageM3PerYear(beddingTonnesPerDay, option.bedding.shareToManureStorage, option.bedding.bulkDensityTonnesPerM3),
     netRainMPerYear: option.manure.netRainMPerYear,
     openStorageAreaM2: option.manure.openStorageAreaM2,
@@ -347,14 +347,24 @@ export function projectOption(
   const healthPerCow = healthCostPerYear(1, option.health);
   const cullingPerCow = cullingCostPerYear(extraCullsPer100Cows(option.health), 1, herd.replacementHeiferCost, herd.cullCowValue);
   const manurePerCow = collectedManurePerYear(herd.manureExcretion, 1, housedDays, option.manure.collectionEfficiency);
-  const manureValuePerCow = fertiliserValue(manurePerCow, herd.nutrientAvailability, herd.fertiliserPrices);
+  // Dung dropped on grazing days, of which the credited share counts as fertiliser saved.
+  const pasturePerCow = collectedManurePerYear(herd.manureExcretion, 1, grazingDays, option.manure.pastureDungCredit);
+  const nutrientCap = {
+    phosphateKg: cropNeedCap(herd.land.phosphateNeedKgPerHa, herd.land.hectares),
+    potashKg: cropNeedCap(herd.land.potashNeedKgPerHa, herd.land.hectares),
+  };
+  const manureValueToday = (cows: number): number =>
+    creditedValue(
+      creditedNutrients(scaleManure(manurePerCow, cows), scaleManure(pasturePerCow, cows), option.manure.storageNitrogenLoss, herd.nutrientAvailability, nutrientCap),
+      herd.fertiliserPrices,
+    );
   const storedVolume = (cows: number): number =>
     storedVolumeM3PerYear({
       manureKgPerYear: manurePerCow.massKg * cows,
       manureDensityKgPerM3: herd.manureDensityKgPerM3,
       washWaterM3PerCowDay: option.manure.washWaterM3PerCowDay,
       cows,
-      housedDays,
+      washWaterDays: option.manure.washWaterDiverted ? 0 : MILK_DAYS_PER_YEAR,
       beddingM3PerYear: beddingStoredM3,
       openStorageAreaM2: option.manure.openStorageAreaM2,
       netRainMPerYear: option.manure.netRainMPerYear,
@@ -419,7 +429,7 @@ export function projectOption(
         runningByGrowth.general * gGeneral +
         runningByGrowth.none,
     );
-    const manureValue = round(manureValuePerCow * cows * gFert);
+    const manureValue = round(manureValueToday(cows) * gFert);
     const storedM3 = storedFixedM3 + storedPerCowM3 * cows;
     const manureHandling = round(storedM3 * handlingPerM3 * gGeneral);
     const operatingMargin = centsTotal(

@@ -45,6 +45,18 @@ export const nutrientAvailabilitySchema = z
   })
   .describe('Share of each collected nutrient that replaces bought fertiliser (fractions)');
 
+const optionalPerHa = (label: string, what: string) =>
+  quantity(label, 'kg/ha/yr', 0, 2000, `${what} (kg per hectare per year)`).nullable().default(null).describe(`${what} (kg per hectare per year); null = not entered`);
+
+export const landSchema = z
+  .object({
+    hectares: quantity('Land for manure', 'ha', 0, 1e6, 'Hectares the manure is spread on (ha)').nullable().default(null).describe('Hectares the manure is spread on; null = not entered (no cap, no check)'),
+    phosphateNeedKgPerHa: optionalPerHa('Phosphate need', 'Crop need for P2O5: manure P2O5 beyond need × hectares saves no fertiliser'),
+    potashNeedKgPerHa: optionalPerHa('Potash need', 'Crop need for K2O: manure K2O beyond need × hectares saves no fertiliser'),
+    organicNitrogenLimitKgPerHa: optionalPerHa('Organic nitrogen limit', "The farm's own limit on livestock manure N per hectare, e.g. under local nutrient rules"),
+  })
+  .describe('Land the manure goes on: optional caps on the fertiliser credit and a check on organic N per hectare');
+
 export const herdSchema = z
   .object({
     cows: quantity('Herd size', 'cows', 1, 20000, 'Lactating-cow equivalents in the herd today, dry cows included (head)', { int: true }),
@@ -85,9 +97,11 @@ export const herdSchema = z
     existingDebtPaymentsPerYear: money('Existing debt payments', 'Principal and interest on existing term debt (currency per year)').default(0),
     manureExcretion: manureExcretionSchema.prefault({}),
     nutrientAvailability: nutrientAvailabilitySchema.prefault({}),
+    land: landSchema.prefault({}),
     manureDensityKgPerM3: quantity('Manure density', 'kg/m3', 500, 2000, 'Density of liquid dairy manure (kg per m3); about 1000, from memory').default(1000),
   }, { error: 'Herd and markets must be an object with its fields' })
   .describe('Farm and herd baseline and markets');
 
 export type Herd = z.infer<typeof herdSchema>;
 export type GrowthRates = z.infer<typeof growthRatesSchema>;
+export type Land = z.infer<typeof landSchema>;
