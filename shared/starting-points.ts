@@ -267,24 +267,29 @@ function capitalLinesFor(startingPoint: StartingPoint, defaults: Defaults, stall
     add(item('paddock-water', 'Paddock water system', 'water', 'lump-sum', null, 15000, 20), 'invented planning cost');
     add(item('laneways', 'Cow laneways', 'site-works', 'lump-sum', null, 20000, 20), 'invented planning cost');
   } else {
-    add(item('shell', 'Building shell', 'building-shell', 'per-m2', stalls * BARN_M2_PER_STALL, 180, 30, false), `invented cost per m², ${BARN_M2_PER_STALL} m² per stall`);
+    add(item('shell', 'Building shell', 'building-shell', 'per-m2', stalls * BARN_M2_PER_STALL, 280, 30, false), `invented cost per m² of a steel-frame farm building, ${BARN_M2_PER_STALL} m² per stall`);
     add(
       item('dividers', defaults.divider === 'flexible' ? 'Flexible stall dividers' : 'Steel stall dividers', 'stall-dividers', 'per-stall', null, defaults.divider === 'flexible' ? 160 : 120, defaults.divider === 'flexible' ? 12 : 20),
       'invented cost per stall',
     );
     if (defaults.bed === 'deep-sand') add(item('beds', 'Sand bed curbs and initial fill', 'beds', 'per-stall', null, 90, 30, false), 'invented cost per stall');
     else add(item('beds', 'Stall mattresses', 'beds', 'per-stall', null, 220, 10), 'invented cost per stall');
-    add(item('alley-floor', 'Grooved concrete alleys', 'alley-floor', 'per-m2', stalls * ALLEY_M2_PER_STALL, 40, 30, false), `invented cost per m², ${ALLEY_M2_PER_STALL} m² per stall`);
+    add(item('alley-floor', 'Grooved concrete alleys', 'alley-floor', 'per-m2', stalls * ALLEY_M2_PER_STALL, 55, 30, false), `invented cost per m², ${ALLEY_M2_PER_STALL} m² per stall`);
     if (defaults.manureRemoval === 'automatic-scraper') {
       add(item('scrapers', 'Automatic alley scrapers', 'manure-removal', 'per-item', Math.max(1, Math.ceil(stalls / STALLS_PER_AUTOMATIC_SCRAPER)), 14000, 15), 'invented cost per scraper');
     } else {
       add(item('scraper-blade', 'Tractor scraper blade', 'manure-removal', 'lump-sum', null, 4000, 10), 'invented cost');
     }
     add(item('storage', 'Manure storage', 'manure-storage', 'per-m3', null, 45, 25, false), 'invented cost per m³; volume from the sizing helper');
+    if (defaults.bed === 'deep-sand') add(item('sand-lane', 'Sand settling lane', 'manure-storage', 'lump-sum', null, 35000, 25, false), 'invented cost of a concrete lane where sand settles out before the store');
     add(item('troughs', 'Water troughs', 'water', 'per-item', null, 900, 15), 'invented cost per trough');
     add(item('ventilation', 'Ventilation and lighting', 'ventilation-lighting', 'per-stall', null, 150, 15), 'invented cost per stall');
-    add(item('site-works', 'Site works', 'site-works', 'lump-sum', null, 25000, 30, false), 'invented cost');
-    add(item('fees', 'Design and planning fees', 'fees', 'lump-sum', null, 15000, 30, false), 'invented cost');
+    add(item('feed-barrier', 'Feed barrier and feed lane', 'equipment', 'per-stall', null, 250, 20), 'invented cost per stall');
+    add(item('feed-storage', 'Extra silage storage for year-round housing', 'equipment', 'lump-sum', null, 45000, 25, false), 'invented cost');
+    add(item('pens', 'Calving and special-needs pens', 'other', 'lump-sum', null, 30000, 25, false), 'invented cost');
+    add(item('parlour', 'Parlour units for the larger herd', 'equipment', 'lump-sum', null, 40000, 15), 'invented cost');
+    add(item('site-works', 'Site works, drainage and services', 'site-works', 'per-stall', null, 350, 30, false), 'invented cost per stall');
+    add(item('fees', 'Design and planning fees', 'fees', 'lump-sum', null, 25000, 30, false), 'invented cost');
     add({ kind: 'contingency', id: 'contingency', description: 'Contingency', rate: 0.1, lifeYears: 30 }, '10 % of the other lines');
   }
   return { lines, sources };

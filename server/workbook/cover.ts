@@ -1,5 +1,6 @@
 /** The cover: who and what the workbook is about, how to read it, and the product's cautions. */
 import type ExcelJS from 'exceljs';
+import { OPTION_CAUTIONS } from '../../shared/cautions.js';
 import { INPUT_NAMES as N, type WorkbookContext } from './context.js';
 import { BASE_FONT, COLOURS, fitWrappedRow, setupPrint, styleSection, styleTotal } from './layout.js';
 
@@ -11,6 +12,7 @@ export const CAUTIONS = [
   'Manure storage and agitation release toxic and explosive gases (hydrogen sulfide, methane): never enter a manure pit or closed space; keep people and animals away while agitating.',
   'Building, stall and storage dimensions must follow local building codes, animal-welfare rules and a qualified designer; published guidance is a starting point.',
   'Manure application must follow the farm\'s nutrient management plan and local rules.',
+  ...Object.values(OPTION_CAUTIONS),
 ] as const;
 
 export interface CoverDetails {

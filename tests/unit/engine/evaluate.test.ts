@@ -365,9 +365,9 @@ describe('coverage in the horizon year', () => {
 });
 
 describe('break-evens from the unrounded search', () => {
-  // The barns feed a mixed ration (+3 kg/cow/day), so at least one lying-time break-even falls inside 0..5 kg/h.
+  // The barns feed a mixed ration (+6 kg/cow/day), so at least one lying-time break-even falls inside 0..5 kg/h.
   const scenario = demoScenario();
-  for (const candidate of scenario.options) if (!candidate.current) candidate.systemYieldAdjustment = 3;
+  for (const candidate of scenario.options) if (!candidate.current) candidate.systemYieldAdjustment = 6;
   const results = evaluateScenario(scenario);
   const H = scenario.horizonYears;
   // Each year ≈ 25 lines in two options, each rounded to the cent (± 0.005), over H + 1 years.
