@@ -260,7 +260,7 @@ describe('scenario API', () => {
       const latest = await owner.get(`${base}/scenarios/${created.id}`);
       expect(latest.body.version).toBe(2);
       expect(latest.body.scenario.herd.wagePerHour).toBe(18);
-      expect(latest.body.scenario.herd.yieldKgPerCowDay).toBe(26);
+      expect(latest.body.scenario.herd.yieldKgPerCowDay).toBe(created.scenario.herd.yieldKgPerCowDay);
 
       // The refused copy is kept as a new scenario, as the client offers.
       const kept = await owner.post(`${base}/scenarios`).send({ scenario: theirs, name: 'Two editors (my copy)' });
