@@ -26,6 +26,7 @@ export const financeSchema = z
     taxRate: rate('Tax rate', 0, 0.6, 'Income tax rate; 0 = pre-tax analysis (fraction)').default(0),
     depreciation: choice('Depreciation method', ['straight-line', 'declining-balance'], 'Tax depreciation of capital lines over each life').default('straight-line'),
     decliningBalanceFactor: quantity('Declining-balance factor', '', 1, 3, 'Declining-balance factor (2 = 200 % DB), switching to straight line when larger').default(2),
+    grantsReduceDepreciableBase: flag('Grants reduce the depreciable base', 'True: grants reduce the tax depreciation of the year-0 capital pro rata').default(false),
     lossesOffsetOtherIncome: flag('Losses offset other income', 'True: a taxable loss saves tax that year against other farm income; false: losses carry forward').default(true),
     coverageThreshold: quantity('Coverage threshold', '', 0.5, 5, "Lender's minimum debt-service coverage ratio (ratio)").default(DEFAULT_COVERAGE_THRESHOLD),
   }, { error: 'Finance must be an object with its fields' })
@@ -60,6 +61,7 @@ export const DEFAULT_FINANCE: Finance = {
   taxRate: 0,
   depreciation: 'straight-line',
   decliningBalanceFactor: 2,
+  grantsReduceDepreciableBase: false,
   lossesOffsetOtherIncome: true,
   coverageThreshold: DEFAULT_COVERAGE_THRESHOLD,
 };
@@ -79,6 +81,7 @@ export const DEFAULT_FINANCE_SOURCES: Record<keyof Finance, Source> = {
   taxRate: assumption('pre-tax analysis until the farm enters its tax rate'),
   depreciation: assumption('straight line over each line’s life'),
   decliningBalanceFactor: assumption('200 % declining balance when that method is chosen'),
+  grantsReduceDepreciableBase: assumption('grants do not reduce the depreciable base'),
   lossesOffsetOtherIncome: assumption('a loss on the project saves tax on other farm income'),
   coverageThreshold: { kind: 'common-practice', note: 'lenders commonly ask for a debt-service coverage of at least 1.25; common practice, no source' },
 };
