@@ -26,6 +26,14 @@ const INPUT_LABELS: Record<RiskInputKey, string> = {
   beddingPrice: 'Bedding price',
   fertiliserPrice: 'Fertiliser prices',
   herdSize: 'Herd size',
+  housedFeedCost: 'Housed feed cost per cow-day',
+  grazingFeedCost: 'Grazing feed cost per cow-day',
+  marginalFeedCost: 'Feed cost per extra kg of milk',
+  systemYieldAdjustment: 'System yield adjustment',
+  milkFeedGrowthGap: 'Milk growth against feed',
+  lyingHours: 'Lying-time gain',
+  healthCostPerCase: 'Health cost per case',
+  slurryHandlingCost: 'Manure handling cost',
 };
 
 const percentOf = (multiplier: number) => `${multiplier >= 1 ? '+' : '−'}${Math.round(Math.abs(multiplier - 1) * 100)} %`;

@@ -408,11 +408,15 @@ export function projectOption(
         yieldPerResponseLater: lyingGain * rampFraction(2, herd.lyingResponseYear1Fraction),
       }
     : null;
-  let gMilk = 1, gFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
+  let grownMilk = 1, grownFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
   let lossCarried = 0;
+  const { milkPrice: milkIndex, feed: feedIndex } = herd.yearlyPriceIndex;
   for (let t = 1; t <= H; t++) {
-    gMilk *= 1 + growth.milkPrice;
-    gFeed *= 1 + growth.feed;
+    grownMilk *= 1 + growth.milkPrice;
+    grownFeed *= 1 + growth.feed;
+    // A year's price index (a trough, a spike) scales that year alone; growth carries on from the grown path.
+    const gMilk = grownMilk * (milkIndex?.[t - 1] ?? 1);
+    const gFeed = grownFeed * (feedIndex?.[t - 1] ?? 1);
     gWage *= 1 + growth.wages;
     gBedding *= 1 + growth.bedding;
     gFert *= 1 + growth.fertiliser;

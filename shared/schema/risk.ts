@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { quantity } from './fields';
+import { flag, quantity } from './fields';
 
 /** The inputs a sensitivity range or a Monte Carlo distribution can move. */
 export const riskInputKeys = [
@@ -11,6 +11,14 @@ export const riskInputKeys = [
   'beddingPrice',
   'fertiliserPrice',
   'herdSize',
+  'housedFeedCost',
+  'grazingFeedCost',
+  'marginalFeedCost',
+  'systemYieldAdjustment',
+  'milkFeedGrowthGap',
+  'lyingHours',
+  'healthCostPerCase',
+  'slurryHandlingCost',
 ] as const;
 export type RiskInputKey = (typeof riskInputKeys)[number];
 
@@ -36,6 +44,14 @@ const sensitivitySchema = z
     beddingPrice: rangeSchema('Bedding price').prefault({}),
     fertiliserPrice: rangeSchema('Fertiliser price').prefault({}),
     herdSize: rangeSchema('Herd size').prefault({}),
+    housedFeedCost: rangeSchema('Housed feed cost per cow-day').prefault({}),
+    grazingFeedCost: rangeSchema('Grazing feed cost per cow-day').prefault({}),
+    marginalFeedCost: rangeSchema('Marginal feed cost').prefault({}),
+    systemYieldAdjustment: rangeSchema('System yield adjustment').prefault({}),
+    milkFeedGrowthGap: rangeSchema('Milk growth against feed (0.2 = 1 point a year faster)').prefault({}),
+    lyingHours: rangeSchema('Lying-time gain over the current option').prefault({}),
+    healthCostPerCase: rangeSchema('Health cost per case').prefault({}),
+    slurryHandlingCost: rangeSchema('Manure handling cost').prefault({}),
   } satisfies Record<RiskInputKey, unknown>)
   .describe('Low/high change per key input (fractions of the base value)');
 
@@ -83,6 +99,8 @@ export const riskSchema = z
         draws: quantity('Monte Carlo draws', 'draws', 100, 100000, 'Number of draws', { int: true }).default(5000),
         seed: quantity('Monte Carlo seed', '', 0, 2147483647, 'Seed of the generator (same seed → same numbers)', { int: true }).default(1),
         inputs: z.array(monteCarloInputSchema).max(20, 'Monte Carlo inputs: at most 20').default([]).describe('Uncertain inputs and their distributions'),
+        milkFeedCorrelation: quantity('Milk and feed correlation', '', -0.99, 0.99, 'Correlation of the milk price draw with the feed cost draws (Gaussian copula, −0.99 to 0.99)').default(0.5), // keep equal to DEFAULT_MILK_FEED_CORRELATION in shared/engine/risk/monte-carlo.ts
+        pricesPerYear: flag('Prices drawn per year', 'True to draw the milk price and feed cost multipliers afresh each year (a trough can last a year or two), false for one multiplier over all years').default(false),
       })
       .prefault({})
       .describe('Monte Carlo settings'),
