@@ -11,8 +11,32 @@ export const riskInputKeys = [
   'beddingPrice',
   'fertiliserPrice',
   'herdSize',
+  'housedFeedCost',
+  'grazingFeedCost',
+  'marginalFeedCost',
+  'systemYield',
+  'healthCostPerCase',
+  'manureHandlingCost',
 ] as const;
 export type RiskInputKey = (typeof riskInputKeys)[number];
+
+/** Plain names of the risk inputs, for charts, tables, pickers and the workbook. */
+export const RISK_INPUT_LABELS: Readonly<Record<RiskInputKey, string>> = {
+  milkPrice: 'Milk price',
+  yieldResponse: 'Milk response to lying time',
+  capitalCost: 'Capital cost',
+  interestRate: 'Interest rate',
+  wage: 'Wage',
+  beddingPrice: 'Bedding price',
+  fertiliserPrice: 'Fertiliser prices',
+  herdSize: 'Herd size',
+  housedFeedCost: 'Feed cost, housed day',
+  grazingFeedCost: 'Feed cost, grazing day',
+  marginalFeedCost: 'Feed per extra kg of milk',
+  systemYield: 'System yield adjustment',
+  healthCostPerCase: 'Health cost per case',
+  manureHandlingCost: 'Slurry handling cost',
+};
 
 const riskKey = z
   .enum(riskInputKeys, { error: `Risk input must be one of: ${riskInputKeys.join(', ')}` })
@@ -36,6 +60,12 @@ const sensitivitySchema = z
     beddingPrice: rangeSchema('Bedding price').prefault({}),
     fertiliserPrice: rangeSchema('Fertiliser price').prefault({}),
     herdSize: rangeSchema('Herd size').prefault({}),
+    housedFeedCost: rangeSchema('Housed feed cost').prefault({}),
+    grazingFeedCost: rangeSchema('Grazing feed cost').prefault({}),
+    marginalFeedCost: rangeSchema('Marginal feed cost').prefault({}),
+    systemYield: rangeSchema('System yield adjustment').prefault({}),
+    healthCostPerCase: rangeSchema('Health cost per case').prefault({}),
+    manureHandlingCost: rangeSchema('Manure handling cost').prefault({}),
   } satisfies Record<RiskInputKey, unknown>)
   .describe('Low/high change per key input (fractions of the base value)');
 
