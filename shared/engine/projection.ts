@@ -337,7 +337,8 @@ export function projectOption(
   for (const line of option.energyLines) energyToday += line.kwhPerYear * line.pricePerKwh;
   const runningByGrowth = { milkPrice: 0, feed: 0, wages: 0, bedding: 0, fertiliser: 0, general: 0, none: 0 };
   for (const line of option.runningCosts) runningByGrowth[line.growth] += line.amountPerYear;
-  const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate, plan.capitalTotal);
+  // Maintenance and insurance fall on the new capital and on any existing housing the option keeps using.
+  const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate + option.insuranceRate, plan.capitalTotal + option.existingHousingValue);
   const scrapingHours = scrapingHoursPerYear(labour.scrapingPassesPerDay, labour.minutesPerScrapingPass, housedDays);
   const bedCareHours = bedCareHoursPerYear(labour.bedCleaningsPerDay, labour.secondsPerStallCleaning, stalls, housedDays);
   const troughHours = troughHoursPerYear(labour.troughCleaningsPerDay, labour.minutesPerTroughCleaning, option.water.troughs, housedDays);

@@ -78,28 +78,47 @@ export function scaleHerdSize(scenario: Scenario, m: number): Scenario {
   return { ...scaled, herd: { ...scaled.herd, cows: scenario.herd.cows * m } };
 }
 
-/** Housed feed cost per cow-day × m: the herd baseline and every option. */
+/** Housed feed cost per cow-day in every option × m (and the herd baseline new options copy). */
 export function scaleHousedFeedCost(scenario: Scenario, m: number): Scenario {
   const scaled = mapOptions(scenario, (option) => ({ ...option, feedCostPerCowDay: { ...option.feedCostPerCowDay, housed: option.feedCostPerCowDay.housed * m } }));
-  const feed = scenario.herd.feedCostPerCowDay;
-  return { ...scaled, herd: { ...scaled.herd, feedCostPerCowDay: { ...feed, housed: feed.housed * m } } };
+  return { ...scaled, herd: { ...scaled.herd, feedCostPerCowDay: { ...scaled.herd.feedCostPerCowDay, housed: scenario.herd.feedCostPerCowDay.housed * m } } };
 }
 
-/** Grazing feed cost per cow-day × m: the herd baseline and every option. */
+/** Grazing feed cost per cow-day in every option × m (and the herd baseline). */
 export function scaleGrazingFeedCost(scenario: Scenario, m: number): Scenario {
   const scaled = mapOptions(scenario, (option) => ({ ...option, feedCostPerCowDay: { ...option.feedCostPerCowDay, grazing: option.feedCostPerCowDay.grazing * m } }));
-  const feed = scenario.herd.feedCostPerCowDay;
-  return { ...scaled, herd: { ...scaled.herd, feedCostPerCowDay: { ...feed, grazing: feed.grazing * m } } };
+  return { ...scaled, herd: { ...scaled.herd, feedCostPerCowDay: { ...scaled.herd.feedCostPerCowDay, grazing: scenario.herd.feedCostPerCowDay.grazing * m } } };
 }
 
-/** Feed cost per extra kg of milk × m. */
+/** Marginal feed cost per extra kg of milk × m. */
 export function scaleMarginalFeedCost(scenario: Scenario, m: number): Scenario {
   return { ...scenario, herd: { ...scenario.herd, marginalFeedCostPerKgMilk: scenario.herd.marginalFeedCostPerKgMilk * m } };
 }
 
-/** Every option's system yield adjustment (kg/cow/day beyond the lying-time effect) × m. */
-export function scaleSystemYieldAdjustment(scenario: Scenario, m: number): Scenario {
+/** Each option's system yield adjustment (kg/cow/day beyond the lying-time effect) × m: how far the barn's feeding gain holds. */
+export function scaleSystemYield(scenario: Scenario, m: number): Scenario {
   return mapOptions(scenario, (option) => ({ ...option, systemYieldAdjustment: option.systemYieldAdjustment * m }));
+}
+
+/** Cost per case of lameness, mastitis and injuries in every option × m. */
+export function scaleHealthCostPerCase(scenario: Scenario, m: number): Scenario {
+  return mapOptions(scenario, (option) => ({
+    ...option,
+    health: {
+      ...option.health,
+      lamenessCostPerCase: option.health.lamenessCostPerCase * m,
+      mastitisCostPerCase: option.health.mastitisCostPerCase * m,
+      injuryCostPerCase: option.health.injuryCostPerCase * m,
+    },
+  }));
+}
+
+/** Manure (slurry) handling cost per m³, the sand extra included, in every option × m. */
+export function scaleManureHandlingCost(scenario: Scenario, m: number): Scenario {
+  return mapOptions(scenario, (option) => ({
+    ...option,
+    manure: { ...option.manure, handlingCostPerM3: option.manure.handlingCostPerM3 * m, sandExtraHandlingCostPerM3: option.manure.sandExtraHandlingCostPerM3 * m },
+  }));
 }
 
 /**
@@ -129,31 +148,6 @@ export function scaleLyingGain(scenario: Scenario, m: number): Scenario {
   );
 }
 
-/** Cost per case of lameness, mastitis and injuries in every option × m. */
-export function scaleHealthCostPerCase(scenario: Scenario, m: number): Scenario {
-  return mapOptions(scenario, (option) => ({
-    ...option,
-    health: {
-      ...option.health,
-      lamenessCostPerCase: option.health.lamenessCostPerCase * m,
-      mastitisCostPerCase: option.health.mastitisCostPerCase * m,
-      injuryCostPerCase: option.health.injuryCostPerCase * m,
-    },
-  }));
-}
-
-/** Manure handling cost per m³ (and the sand-laden extra) in every option × m. */
-export function scaleSlurryHandlingCost(scenario: Scenario, m: number): Scenario {
-  return mapOptions(scenario, (option) => ({
-    ...option,
-    manure: {
-      ...option.manure,
-      handlingCostPerM3: option.manure.handlingCostPerM3 * m,
-      sandExtraHandlingCostPerM3: option.manure.sandExtraHandlingCostPerM3 * m,
-    },
-  }));
-}
-
 const SCALERS: Readonly<Record<RiskInputKey, (scenario: Scenario, m: number) => Scenario>> = {
   milkPrice: scaleMilkPrice,
   yieldResponse: scaleYieldResponse,
@@ -166,11 +160,11 @@ const SCALERS: Readonly<Record<RiskInputKey, (scenario: Scenario, m: number) => 
   housedFeedCost: scaleHousedFeedCost,
   grazingFeedCost: scaleGrazingFeedCost,
   marginalFeedCost: scaleMarginalFeedCost,
-  systemYieldAdjustment: scaleSystemYieldAdjustment,
+  systemYield: scaleSystemYield,
+  healthCostPerCase: scaleHealthCostPerCase,
+  manureHandlingCost: scaleManureHandlingCost,
   milkFeedGrowthGap: shiftMilkFeedGrowthGap,
   lyingHours: scaleLyingGain,
-  healthCostPerCase: scaleHealthCostPerCase,
-  slurryHandlingCost: scaleSlurryHandlingCost,
 };
 
 /** Applies one multiplier to one key input; returns a new scenario, the input untouched. */
