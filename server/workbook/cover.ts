@@ -62,6 +62,26 @@ export function fillCoverSheet(ws: ExcelJS.Worksheet, context: WorkbookContext, 
     line('Assumptions', `${Math.round((share.assumed / share.total) * 100)} % of the options' inputs (${share.assumed} of ${share.total}) are tagged as assumptions: planning figures to replace with the farm's own or a quote (see Assumptions, column Source)`);
   }
 
+  // What the decision turns on comes first: each option's change against the current option, stressed.
+  r++;
+  ws.getCell(r, 1).value = 'The change against the current option';
+  styleSection(ws.getCell(r, 1));
+  r++;
+  const whole = new Intl.NumberFormat(scenario.locale, { style: 'currency', currency: context.results.currency, maximumFractionDigits: 0 });
+  const threshold = scenario.finance.coverageThreshold;
+  for (const { result } of context.options) {
+    const change = result.incremental;
+    if (!change) continue;
+    const payback = (years: number | null) => (years === null ? 'not reached' : `${years.toFixed(1)} years`);
+    const milk10 = result.stress.find((row) => row.id === 'milk-10');
+    const lowest = result.lowestCoverage;
+    line(
+      result.name,
+      `NPV of the change ${whole.format(change.npv)}; payback ${payback(change.paybackYears)} with the year-${context.horizon} salvage and herd value, ${payback(change.paybackFromOperationsYears)} from operations alone; ` +
+        `lowest whole-farm coverage ${lowest ? lowest.value.toFixed(2) : 'n/a'} (threshold ${threshold.toFixed(2)}), ${milk10?.lowestCoverage != null ? milk10.lowestCoverage.toFixed(2) : 'n/a'} with milk −10 % (Stress sheet).`,
+    );
+  }
+
   r++;
   ws.getCell(r, 1).value = 'Cautions';
   styleSection(ws.getCell(r, 1));
