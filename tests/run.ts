@@ -1,13 +1,23 @@
 /**
  * `npm test`: starts a throwaway MariaDB on a free loopback port with a fresh data directory,
  * builds the client once, runs every vitest project (unit, API, browser), then stops the
- * server and removes its data, whatever the outcome. Arguments go to vitest.
+ * server and removes its data, whatever the outcome. Arguments go to vitest. First it makes sure
+ * the programs the tests need from outside npm are there (installing them when root), so no test
+ * is ever skipped for a missing tool.
  */
 import { spawn, spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { startLocalMariadb } from '../server/db/local-server.js';
+import { ensurePrograms, TEST_PROGRAMS } from '../server/system/debian-packages.js';
+
+try {
+  ensurePrograms(TEST_PROGRAMS);
+} catch (error) {
+  console.error(error instanceof Error ? error.message : error);
+  process.exit(1);
+}
 
 const workDir = mkdtempSync(join(tmpdir(), 'byrecast-test-'));
 let stopDatabase: (() => Promise<void>) | null = null;

@@ -246,6 +246,24 @@ export function addAssumptionsSheet(context: WorkbookContext): ExcelJS.Worksheet
   return ws;
 }
 
+/**
+ * How many of the options' inputs carry an 'assumption' source tag (an invented planning figure
+ * the farm should replace), of all option inputs, for the cover.
+ */
+export function assumptionShare(scenario: WorkbookContext['scenario']): { assumed: number; total: number } {
+  const shape = (scenarioSchema as unknown as SchemaNode).shape ?? {};
+  const optionSchema = ((shape.options as SchemaNode).def.element ?? (shape.options as SchemaNode)) as SchemaNode;
+  let assumed = 0;
+  let total = 0;
+  for (const option of scenario.options) {
+    for (const row of flattenInputs(optionSchema, option, '', scenario.currency)) {
+      total++;
+      if (optionSource(option, row.path)?.kind === 'assumption') assumed++;
+    }
+  }
+  return { assumed, total };
+}
+
 /** Source tag of an option field: exact path, else the nearest parent path that has one. */
 function optionSource(option: Option, path: string): Source | undefined {
   let key = path;

@@ -4,6 +4,7 @@
  */
 import type { Writable } from 'node:stream';
 import ExcelJS from 'exceljs';
+import { resolvedGrowth } from '../../shared/engine/growth.js';
 import type { ScenarioResults } from '../../shared/engine/results.js';
 import type { Scenario } from '../../shared/schema/index.js';
 import { addAssumptionsSheet, ASSUMPTIONS_SHEET } from './assumptions.js';
@@ -38,7 +39,9 @@ export interface LenderWorkbookInput {
  * currency (nominal); formulas carry the engine's values as cached results.
  */
 export async function buildLenderWorkbook(input: LenderWorkbookInput): Promise<ExcelJS.Workbook> {
-  const { scenario, results } = input;
+  const { results } = input;
+  // The sheets show and compute with every growth rate the engine used, general inflation where the farm entered none.
+  const scenario: Scenario = { ...input.scenario, herd: { ...input.scenario.herd, growth: resolvedGrowth(input.scenario.herd.growth) } };
   if (results.options.length !== scenario.options.length) {
     throw new RangeError(`results: ${results.options.length} option result(s) for ${scenario.options.length} option(s); evaluate the same scenario`);
   }

@@ -7,11 +7,12 @@ import { operationsPayback } from './operations-payback';
 import { sourcesAndUses } from './sources-and-uses';
 import { stressTables } from './stress';
 import { capitalRecoveryFactor, discount, mirr, paybackYears } from './finance';
-import { npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
+import { milkingLyingHours, npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
 import type { CoverageYear, FastOptionResult, IncrementalResult, Metrics, OptionResult, ScenarioResults } from './results';
 import { irrFast } from './irr-fast';
 import { findRoot } from './root';
 import { checkStallDimensions, checkWater } from './sizing';
+import { scenarioWarnings } from './warnings';
 
 /** The current option (the schema guarantees exactly one; the first option otherwise). */
 export function currentOptionOf(scenario: Scenario): Option {
@@ -140,9 +141,10 @@ function breakEvens(scenario: Scenario, option: SearchInput, current: SearchInpu
 export function evaluateScenario(scenario: Scenario): ScenarioResults {
   const current = currentOptionOf(scenario);
   const { discountRate, interestRate, coverageThreshold } = scenario.finance;
+  const currentLying = milkingLyingHours(scenario.herd, current);
   const evaluated = scenario.options.map((option) => {
     const { plan, loan } = planOption(scenario, option, 'ledger');
-    const projection = projectOption(scenario, option, plan, current.lyingHoursPerDay, true, true);
+    const projection = projectOption(scenario, option, plan, currentLying, true, true);
     // withMilkModel = true always returns the model.
     const search: SearchInput = { plan, model: projection.milk as MilkModel, yearZero: projection.cashFlows[0] ?? 0 };
     return { option, plan, loan, projection, search };
@@ -198,7 +200,7 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
     };
     if (!isCurrent) {
       const flows = projection.cashFlows.map((cf, t) => roundCentsFast(cf - (base.projection.cashFlows[t] ?? 0)));
-      const sameLyingTime = option.lyingHoursPerDay === current.lyingHoursPerDay;
+      const sameLyingTime = milkingLyingHours(scenario.herd, option) === currentLying;
       result.incremental = {
         ...metricsOf(flows, discountRate, interestRate, 'incremental'),
         ...operationsPayback(lines, baseLines),
@@ -218,6 +220,7 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
       debtPaymentsByYear: farm.debtByYear,
     },
     options,
+    warnings: scenarioWarnings(scenario),
   };
 }
 
@@ -250,9 +253,10 @@ function npvFast(rate: number, flows: readonly number[]): number {
 export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOptions = {}): FastOptionResult[] {
   const current = currentOptionOf(scenario);
   const { discountRate } = scenario.finance;
+  const currentLying = milkingLyingHours(scenario.herd, current);
   const runs = scenario.options.map((option) => {
     const { plan } = planOption(scenario, option, 'fast');
-    return { option, plan, projection: projectOption(scenario, option, plan, current.lyingHoursPerDay, false) };
+    return { option, plan, projection: projectOption(scenario, option, plan, currentLying, false) };
   });
   const base = runs.find((run) => run.option === current) ?? runs[0];
   if (!base) return [];

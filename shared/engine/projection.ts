@@ -13,7 +13,7 @@ import { decliningBalanceFast, loanScheduleFast, loanYearsFast, roundCentsFast, 
 import { interestDuringConstruction } from './construction';
 import { baseFeedCostPerYear, effectiveHousedDays, grazingDaysPerYear, marginalFeedCostPerYear } from './feed';
 import type { LoanSchedule } from './finance';
-import { cullingCostPerYear, healthCostPerYear } from './health';
+import { cullingCostPerYear, extraCullsPer100Cows, healthCostPerYear } from './health';
 import { cowsPerYear, herdPurchasesByYear, herdValueAtHorizon } from './herd-size';
 import {
   bedCareHoursPerYear,
@@ -23,11 +23,12 @@ import {
   scrapingHoursPerYear,
   troughHoursPerYear,
 } from './labour';
-import { collectedManurePerYear, fertiliserValue, K_TO_K2O, manureHandlingCostPerYear, P_TO_P2O5, storedVolumeM3PerYear } from './manure';
+import { collectedManurePerYear, creditedNutrients, creditedValue, cropNeedCap, K_TO_K2O, manureHandlingCostPerYear, P_TO_P2O5, scaleManure, storedVolumeM3PerYear } from './manure';
+import { resolvedGrowth } from './growth';
 import type { YearLine } from './results';
 import { manureStorageVolumeM3, stallsFor } from './sizing';
 import { taxableIncome, taxDepreciation, taxForYear, type DepreciationSchedule } from './tax';
-import { milkSoldKgPerYear, rampFraction, yieldPerCowDay } from './yield';
+import { cappedLyingHours, lactatingShare, MILK_DAYS_PER_YEAR, milkSoldKgPerYear, rampFraction, stockedLyingHours, yieldPerCowDay } from './yield';
 
 /** Everything about an option that does not change with prices: herd, sizing, capital, tax depreciation, loan. */
 export interface OptionPlan {
@@ -71,7 +72,7 @@ export function optionStorageM3(scenario: Scenario, option: Option, designCows: 
   const beddingTonnesPerDay = beddingTonnesPerYear(option.bedding.kgPerStallDay, stalls, 1);
   return manureStorageVolumeM3({
     manureM3PerDay: manureKgPerDay / herd.manureDensityKgPerM3,
-    washWaterM3PerDay: option.manure.washWaterM3PerCowDay * designCows,
+    washWaterM3PerDay: option.manure.washWaterDiverted ? 0 : option.manure.washWaterM3PerCowDay * designCows,
     beddingM3PerDay: beddingToStorageM3PerYear(beddingTonnesPerDay, option.bedding.shareToManureStorage, option.bedding.bulkDensityTonnesPerM3),
     netRainMPerYear: option.manure.netRainMPerYear,
     openStorageAreaM2: option.manure.openStorageAreaM2,
@@ -274,16 +275,25 @@ function settleYear(out: Settlement, plan: OptionPlan, finance: Scenario['financ
   out.cashForDebtService = centsTotal(operatingMargin - operatingTax);
 }
 
+/**
+ * The lying time of an option that earns milk (h/day): its expected lying time, less what
+ * overstocking costs, up to the herd's cap. The current option's is the reference L_current.
+ */
+export function milkingLyingHours(herd: Scenario['herd'], option: Option): number {
+  return cappedLyingHours(stockedLyingHours(option.lyingHoursPerDay, option.stockingRate, herd.lyingLossPer10PctOverstocking), herd.lyingResponseCapHours);
+}
+
 /** Yield per cow-day (kg) of an option at a lying-time response, with the ramp of `year`. */
 function optionYield(scenario: Scenario, option: Option, currentLyingHours: number, response: number, year: number): number {
   const { herd } = scenario;
   return yieldPerCowDay({
     baselineKgPerCowDay: herd.yieldKgPerCowDay,
     lyingResponseKgPerHour: response,
-    lyingHours: option.lyingHoursPerDay,
+    lyingHours: milkingLyingHours(herd, option),
     currentLyingHours,
     systemAdjustmentKgPerCowDay: option.systemYieldAdjustment,
     rampFraction: rampFraction(year, herd.lyingResponseYear1Fraction),
+    lactatingShare: lactatingShare(herd.dryDaysPerCowYear),
   });
 }
 
@@ -304,7 +314,7 @@ export function projectOption(
   const round = roundCentsFast;
   const centsTotal = noiseFreeCents;
   const { herd, finance } = scenario;
-  const { growth } = herd;
+  const growth = resolvedGrowth(herd.growth);
   const H = plan.horizon;
   const milkPrice = herd.milkPricePerKg;
   const response = herd.lyingResponseKgPerHour;
@@ -345,16 +355,26 @@ export function projectOption(
   const baselineMilkPerCow = milkSoldKgPerYear(1, herd.yieldKgPerCowDay);
   const feedPerCow = baseFeedCostPerYear(1, housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
   const healthPerCow = healthCostPerYear(1, option.health);
-  const cullingPerCow = cullingCostPerYear(option.health.extraCullsPer100Cows, 1, herd.replacementHeiferCost, herd.cullCowValue);
+  const cullingPerCow = cullingCostPerYear(extraCullsPer100Cows(option.health), 1, herd.replacementHeiferCost, herd.cullCowValue);
   const manurePerCow = collectedManurePerYear(herd.manureExcretion, 1, housedDays, option.manure.collectionEfficiency);
-  const manureValuePerCow = fertiliserValue(manurePerCow, herd.nutrientAvailability, herd.fertiliserPrices);
+  // Dung dropped on grazing days, of which the credited share counts as fertiliser saved.
+  const pasturePerCow = collectedManurePerYear(herd.manureExcretion, 1, grazingDays, option.manure.pastureDungCredit);
+  const nutrientCap = {
+    phosphateKg: cropNeedCap(herd.land.phosphateNeedKgPerHa, herd.land.hectares),
+    potashKg: cropNeedCap(herd.land.potashNeedKgPerHa, herd.land.hectares),
+  };
+  const manureValueToday = (cows: number): number =>
+    creditedValue(
+      creditedNutrients(scaleManure(manurePerCow, cows), scaleManure(pasturePerCow, cows), option.manure.storageNitrogenLoss, herd.nutrientAvailability, nutrientCap),
+      herd.fertiliserPrices,
+    );
   const storedVolume = (cows: number): number =>
     storedVolumeM3PerYear({
       manureKgPerYear: manurePerCow.massKg * cows,
       manureDensityKgPerM3: herd.manureDensityKgPerM3,
       washWaterM3PerCowDay: option.manure.washWaterM3PerCowDay,
       cows,
-      housedDays,
+      washWaterDays: option.manure.washWaterDiverted ? 0 : MILK_DAYS_PER_YEAR,
       beddingM3PerYear: beddingStoredM3,
       openStorageAreaM2: option.manure.openStorageAreaM2,
       netRainMPerYear: option.manure.netRainMPerYear,
@@ -364,6 +384,7 @@ export function projectOption(
   const handlingPerM3 = manureHandlingCostPerYear(1, option.manure.handlingCostPerM3, option.manure.sandExtraHandlingCostPerM3);
 
   const settled = emptySettlement();
+  const lyingGain = (milkingLyingHours(herd, option) - currentLyingHours) * lactatingShare(herd.dryDaysPerCowYear);
   const milk: MilkModel | null = withMilkModel
     ? {
         cows: plan.cows,
@@ -374,8 +395,8 @@ export function projectOption(
         baselineMilkPerCow,
         marginalFeedCostPerKg: herd.marginalFeedCostPerKgMilk,
         yieldFixed: herd.yieldKgPerCowDay + option.systemYieldAdjustment,
-        yieldPerResponseYear1: (option.lyingHoursPerDay - currentLyingHours) * rampFraction(1, herd.lyingResponseYear1Fraction),
-        yieldPerResponseLater: (option.lyingHoursPerDay - currentLyingHours) * rampFraction(2, herd.lyingResponseYear1Fraction),
+        yieldPerResponseYear1: lyingGain * rampFraction(1, herd.lyingResponseYear1Fraction),
+        yieldPerResponseLater: lyingGain * rampFraction(2, herd.lyingResponseYear1Fraction),
       }
     : null;
   let gMilk = 1, gFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
@@ -418,7 +439,7 @@ export function projectOption(
         runningByGrowth.general * gGeneral +
         runningByGrowth.none,
     );
-    const manureValue = round(manureValuePerCow * cows * gFert);
+    const manureValue = round(manureValueToday(cows) * gFert);
     const storedM3 = storedFixedM3 + storedPerCowM3 * cows;
     const manureHandling = round(storedM3 * handlingPerM3 * gGeneral);
     const operatingMargin = centsTotal(

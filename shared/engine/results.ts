@@ -156,6 +156,14 @@ export interface OptionResult extends Metrics {
   incremental?: IncrementalResult;
 }
 
+/** Something about the inputs a reader should check before trusting the figures. */
+export interface ModelWarning {
+  code: 'milk-growth-below-feed' | 'organic-nitrogen-over-limit';
+  message: string;
+  /** The option it concerns; absent when it concerns the whole scenario. */
+  optionId?: string;
+}
+
 export interface ScenarioResults {
   horizonYears: number;
   currency: string;
@@ -171,6 +179,8 @@ export interface ScenarioResults {
     debtPaymentsByYear: number[];
   };
   options: OptionResult[];
+  /** Input checks: empty when nothing needs a second look. */
+  warnings: ModelWarning[];
 }
 
 /** One option from the fast path (floating point, no ledger detail). */

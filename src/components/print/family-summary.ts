@@ -109,7 +109,10 @@ export function familySummary(scenario: Scenario, results: ScenarioResults, sens
   const staying = current ? `Staying with ${currentName}: ${f.money(cashLeftAfterLoans(results, current, current, 1))} left for the farm after every loan payment in year 1.` : null;
   return {
     staying,
-    question: `Should the farm stay with ${currentName} or change to one of ${ranked.length === 1 ? 'this option' : `these ${ranked.length} options`}?`,
+    question:
+      ranked.length === 1
+        ? `Should the farm stay with ${currentName} or change to ${ranked[0]?.name ?? 'the other option'}?`
+        : `Should the farm stay with ${currentName} or change to one of these ${ranked.length} options?`,
     options,
     drivers: drivers(scenario, ranked[0], currentName, sens, f),
   };
