@@ -252,7 +252,7 @@ function item(
   lifeYears: number,
   replaceAtEndOfLife = true,
 ): CapitalLine {
-  return { kind: 'item', id, description, category, unit, quantity, unitCost, lifeYears, replaceAtEndOfLife, documentIds: [] };
+  return { kind: 'item', id, description, category, unit, quantity, unitCost, lifeYears, replaceAtEndOfLife, taxClass: 'economic-life', taxLifeYears: null, documentIds: [] };
 }
 
 function capitalLinesFor(startingPoint: StartingPoint, defaults: Defaults, stalls: number): { lines: CapitalLine[]; sources: Record<string, Source> } {

@@ -9,8 +9,9 @@ import {
   salvageAtHorizon,
   type CapitalAsset,
 } from './capital';
-import { decliningBalanceFast, loanScheduleFast, loanYearsFast, roundCentsFast, straightLineFast, type LoanYearsFast } from './cents';
+import { decliningBalanceFast, loanScheduleFast, loanYearsFast, macrsFast, roundCentsFast, straightLineFast, type LoanYearsFast } from './cents';
 import { interestDuringConstruction } from './construction';
+import { MACRS_10_YEAR_150DB, MACRS_10_YEAR_200DB, MACRS_20_YEAR_150DB } from './depreciation';
 import { baseFeedCostPerYear, effectiveHousedDays, grazingDaysPerYear, marginalFeedCostPerYear } from './feed';
 import type { LoanSchedule } from './finance';
 import { cullingCostPerYear, extraCullsPer100Cows, healthCostPerYear } from './health';
@@ -27,7 +28,7 @@ import { collectedManurePerYear, creditedNutrients, creditedValue, cropNeedCap, 
 import { resolvedGrowth } from './growth';
 import type { YearLine } from './results';
 import { manureStorageVolumeM3, stallsFor } from './sizing';
-import { taxableIncome, taxDepreciation, taxForYear, type DepreciationSchedule } from './tax';
+import { taxableIncome, taxDepreciation, taxForYear, type DepreciationSchedule, type PurchaseForTax } from './tax';
 import { cappedLyingHours, lactatingShare, MILK_DAYS_PER_YEAR, milkSoldKgPerYear, rampFraction, stockedLyingHours, yieldPerCowDay } from './yield';
 
 /** Everything about an option that does not change with prices: herd, sizing, capital, tax depreciation, loan. */
@@ -93,6 +94,19 @@ function depreciationSchedule(scenario: Scenario): DepreciationSchedule {
   return straightLineFast;
 }
 
+const MACRS_TABLES = { 'macrs-10-200db': MACRS_10_YEAR_200DB, 'macrs-10-150db': MACRS_10_YEAR_150DB, 'macrs-20-150db': MACRS_20_YEAR_150DB } as const;
+
+/** A capital asset's own tax schedule when its tax class is not its economic life (else none: the scenario's method). */
+function taxClassSchedule(asset: CapitalAsset | undefined): Pick<PurchaseForTax, 'schedule'> {
+  if (!asset || asset.taxClass === 'economic-life') return {};
+  if (asset.taxClass === 'straight-line') {
+    const life = asset.taxLifeYears;
+    return { schedule: (cost) => straightLineFast(cost, life) };
+  }
+  const { percentages } = MACRS_TABLES[asset.taxClass];
+  return { schedule: (cost) => macrsFast(cost, percentages) };
+}
+
 /**
  * Loan principal (currency): the override, or capital − equity − grants, floored at 0 and never
  * more than the capital left after grants (an option without capital borrows nothing).
@@ -116,12 +130,17 @@ export function planOption(scenario: Scenario, option: Option, mode: PlanMode): 
   const assets = capitalAssets(option.capitalLines, { stalls, storageM3, troughs: option.water.troughs });
   const capital = capitalTotal(assets);
   const purchases = purchaseSchedule(assets, horizon, inflation);
+  const grants = Math.min(finance.grants, capital);
+  // With grants reducing the depreciable base, each year-0 purchase carries its share of them.
+  const year0Base = finance.grantsReduceDepreciableBase && capital > 0 ? 1 - grants / capital : 1;
   const depreciation = taxDepreciation(
-    purchases.map((p) => ({ year: p.year, cost: p.cost, lifeYears: assets[p.asset]?.lifeYears ?? 1 })),
+    purchases.map((p) => {
+      const asset = assets[p.asset];
+      return { year: p.year, cost: p.year === 0 ? p.cost * year0Base : p.cost, lifeYears: asset?.lifeYears ?? 1, ...taxClassSchedule(asset) };
+    }),
     horizon,
     depreciationSchedule(scenario),
   );
-  const grants = Math.min(finance.grants, capital);
   const capitalLoan = loanAmountFor(capital, grants, finance.equity, finance.loanAmount);
   const equity = Math.max(0, capital - grants - capitalLoan);
   // Interest during construction is owed at year 0: added to the loan, or paid from farm cash.

@@ -45,15 +45,6 @@ export const nutrientAvailabilitySchema = z
   })
   .describe('Share of each collected nutrient that replaces bought fertiliser (fractions)');
 
-export const existingLoanSchema = z
-  .object({
-    description: text('Existing loan description', 'What the loan financed or who lent it'),
-    paymentPerYear: money('Existing loan payment', 'Principal and interest paid on the loan per year (currency per year)'),
-    lastYear: quantity('Existing loan last year', 'years', 1, 40, 'Last operating year with a payment (year 1 = the first year after construction)', { int: true }),
-  }, { error: 'Existing loan must be an object with its fields' })
-  .describe('An existing loan whose payments end in its last year');
-export type ExistingLoan = z.infer<typeof existingLoanSchema>;
-
 const optionalPerHa = (label: string, what: string) =>
   quantity(label, 'kg/ha/yr', 0, 2000, `${what} (kg per hectare per year)`).nullable().default(null).describe(`${what} (kg per hectare per year); null = not entered`);
 
@@ -65,6 +56,14 @@ export const landSchema = z
     organicNitrogenLimitKgPerHa: optionalPerHa('Organic nitrogen limit', "The farm's own limit on livestock manure N per hectare, e.g. under local nutrient rules"),
   })
   .describe('Land the manure goes on: optional caps on the fertiliser credit and a check on organic N per hectare');
+export const existingLoanSchema = z
+  .object({
+    description: text('Existing loan description', 'What the loan financed or who lent it'),
+    paymentPerYear: money('Existing loan payment', 'Principal and interest paid on the loan per year (currency per year)'),
+    lastYear: quantity('Existing loan last year', 'years', 1, 40, 'Last operating year with a payment (year 1 = the first year after construction)', { int: true }),
+  }, { error: 'Existing loan must be an object with its fields' })
+  .describe('An existing loan whose payments end in its last year');
+export type ExistingLoan = z.infer<typeof existingLoanSchema>;
 
 export const herdSchema = z
   .object({

@@ -103,8 +103,9 @@ describe('results and comparison in Chromium', () => {
         // Same value as `npm run evaluate -- --json` at the precision shown: cents for money, 0.1 % for rates.
         const digits = { money: 2, percent: 3, years: 1, ratio: 2, hours: 0, tonnes: 1 }[measure.kind];
         const scale = measure.kind === 'percent' ? 100 : 1;
-        // Within half a unit of the last digit shown: Intl rounds 1930.85 up where toFixed's binary value rounds it down.
-        expect(Math.abs((shown ?? 0) / scale - expected), `${option.id} ${measure.key}: "${text}"`).toBeLessThanOrEqual(0.5 * 10 ** -digits + 1e-9);
+        // Within half a unit of the last digit shown (the screen rounds half away from zero, toFixed on the binary value).
+        const halfStep = 0.5 * 10 ** -digits;
+        expect(Math.abs((shown ?? 0) / scale - expected), `${option.id} ${measure.key}: "${text}" vs ${expected}`).toBeLessThanOrEqual(halfStep + 1e-9);
         checked += 1;
       }
     }

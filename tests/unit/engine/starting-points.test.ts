@@ -97,7 +97,7 @@ describe('starting points', () => {
 
   it('re-ids a copied option’s lines under the copy’s id', () => {
     const sand = createOption('sand-freestall', herd, { id: 'sand' });
-    const copy = withOptionId({ ...sand, capitalLines: [...sand.capitalLines, { kind: 'item', id: 'line-1', description: 'Gate', category: 'other', unit: 'lump-sum', quantity: null, unitCost: 500, lifeYears: 20, replaceAtEndOfLife: true, documentIds: [] }] }, 'sand-2');
+    const copy = withOptionId({ ...sand, capitalLines: [...sand.capitalLines, { kind: 'item', id: 'line-1', description: 'Gate', category: 'other', unit: 'lump-sum', quantity: null, unitCost: 500, lifeYears: 20, replaceAtEndOfLife: true, taxClass: 'economic-life', taxLifeYears: null, documentIds: [] }] }, 'sand-2');
     expect(copy.id).toBe('sand-2');
     expect(copy.capitalLines.map((line) => line.id)).toContain('sand-2.shell');
     // A line the user added under no option prefix goes under the copy's id too.
