@@ -61,7 +61,7 @@ describe('the family summary', () => {
   });
 
   it('ranks by the change and says in everyday words what it changes', () => {
-    const summary = familySummary(scenario, results, null, en);
+    const summary = familySummary(scenario, results, null, en, (v) => `€${v.toFixed(3)} a kg`);
     expect(summary.question).toBe('Should the farm stay with grazing or change to barn?');
     const [first] = summary.options;
     expect(first?.headline).toBe("leaves the family €120,000 worse off than grazing over 2 years, in today's money.");
@@ -72,6 +72,15 @@ describe('the family summary', () => {
       'Cash left for the farm after every loan payment: €95,000 in year 1; the tightest year is year 2 with €75,000.',
     ]);
     expect(summary.staying).toBe('Staying with grazing: €115,000 left for the farm after every loan payment in year 1.');
+  });
+
+  it('names the inputs that move the answer most, with the milk break-evens as prices, not rounded money', () => {
+    const best = { ...barn, incremental: { npv: -120000, breakEvenMilkPrice: 0.487 } as OptionResult['incremental'], breakEvenMilkPriceForCoverage: { atOne: 0.41, atThreshold: 0.432 } };
+    const sens = { options: [{ optionId: 'barn', incrementalNpv: [{ key: 'milkPrice', atLow: -900000, atHigh: 400000 }] }] } as unknown as Parameters<typeof familySummary>[2];
+    const summary = familySummary(scenario, { ...results, options: [grazing, best] }, sens, en, (v) => `€${v.toFixed(3)} a kg`);
+    expect(summary.drivers).toEqual([
+      "Milk price: from its low to its high value the barn ends between −€900,000 and €400,000 against grazing. It only matches grazing when milk pays €0.487 a kg (today €0.450 a kg). The bank's coverage of 1.25 holds while milk pays at least €0.432 a kg.",
+    ]);
   });
 
   it('reads a payback from operations that is not reached as the share of the outlay won back', () => {
