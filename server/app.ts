@@ -14,6 +14,7 @@ import { AppError, errorHandler, notFound } from './errors.js';
 import type { Mailer } from './mail/mailer.js';
 import { requestLogOptions } from './logger.js';
 import { apiRoutes } from './routes/index.js';
+import { refuseMalformedText } from './well-formed-text.js';
 
 export interface AppDeps {
   db: Database;
@@ -74,6 +75,7 @@ export function createApp(deps: AppDeps): express.Express {
   );
   if (config.logLevel !== 'silent') app.use(pinoHttp(requestLogOptions(logger)));
   app.use(express.json({ limit: '1mb' }));
+  app.use(refuseMalformedText);
   app.use(cookieParser());
   app.use('/api', sameOriginOnly(config.appOrigin));
   app.use(loadSession(db, config.jwtSecret));
