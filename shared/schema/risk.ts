@@ -14,6 +14,18 @@ export const riskInputKeys = [
 ] as const;
 export type RiskInputKey = (typeof riskInputKeys)[number];
 
+/** Plain names of the risk inputs, for screens, charts and the lender workbook. */
+export const RISK_INPUT_LABELS: Record<RiskInputKey, string> = {
+  milkPrice: 'Milk price',
+  yieldResponse: 'Lying-time milk response',
+  capitalCost: 'Capital cost',
+  interestRate: 'Interest rate',
+  wage: 'Wage',
+  beddingPrice: 'Bedding price',
+  fertiliserPrice: 'Fertiliser prices',
+  herdSize: 'Herd size',
+};
+
 const riskKey = z
   .enum(riskInputKeys, { error: `Risk input must be one of: ${riskInputKeys.join(', ')}` })
   .describe('Which key input the distribution multiplies');
