@@ -246,7 +246,8 @@ describe('scenario API', () => {
       const mine = structuredClone(created.scenario);
       mine.herd.wagePerHour = 18;
       const theirs = structuredClone(created.scenario);
-      theirs.herd.yieldKgPerCowDay = 27;
+      const savedYield = created.scenario.herd.yieldKgPerCowDay;
+      theirs.herd.yieldKgPerCowDay = savedYield + 1;
 
       const first = await partner.put(`${base}/scenarios/${created.id}`).send({ version: 1, scenario: mine });
       expect(first.status).toBe(200);
@@ -259,12 +260,12 @@ describe('scenario API', () => {
       const latest = await owner.get(`${base}/scenarios/${created.id}`);
       expect(latest.body.version).toBe(2);
       expect(latest.body.scenario.herd.wagePerHour).toBe(18);
-      expect(latest.body.scenario.herd.yieldKgPerCowDay).toBe(26);
+      expect(latest.body.scenario.herd.yieldKgPerCowDay).toBe(savedYield);
 
       // The refused copy is kept as a new scenario, as the client offers.
       const kept = await owner.post(`${base}/scenarios`).send({ scenario: theirs, name: 'Two editors (my copy)' });
       expect(kept.status).toBe(201);
-      expect(kept.body.scenario.herd.yieldKgPerCowDay).toBe(27);
+      expect(kept.body.scenario.herd.yieldKgPerCowDay).toBe(savedYield + 1);
       expect(kept.body.version).toBe(1);
     });
 

@@ -244,7 +244,8 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
       [INPUT_NAMES.termYears]: scenario.finance.termYears,
       [INPUT_NAMES.coverageThreshold]: scenario.finance.coverageThreshold,
       [INPUT_NAMES.milkPrice]: scenario.herd.milkPricePerKg,
-      [INPUT_NAMES.milkPriceGrowth]: scenario.herd.growth.milkPrice,
+      // The demo leaves milk price growth empty: the named cell holds general inflation, the rate the engine used.
+      [INPUT_NAMES.milkPriceGrowth]: scenario.herd.growth.milkPrice ?? scenario.herd.growth.general,
       [INPUT_NAMES.existingCash]: scenario.herd.existingCashForDebtServicePerYear,
       [INPUT_NAMES.existingDebt]: scenario.herd.existingDebtPaymentsPerYear,
     };

@@ -15,7 +15,7 @@ import type { CapitalLine } from '../../../shared/schema';
 const sized = { stalls: 120, storageM3: 2500, troughs: 4 };
 
 function item(id: string, unit: Extract<CapitalLine, { kind: 'item' }>['unit'], quantity: number | null, unitCost: number, lifeYears: number, replace = true, category: Extract<CapitalLine, { kind: 'item' }>['category'] = 'other'): CapitalLine {
-  return { kind: 'item', id, description: id, category, unit, quantity, unitCost, lifeYears, replaceAtEndOfLife: replace, documentIds: [] };
+  return { kind: 'item', id, description: id, category, unit, quantity, unitCost, lifeYears, replaceAtEndOfLife: replace, taxClass: 'economic-life', taxLifeYears: null, documentIds: [] };
 }
 
 const LINES: CapitalLine[] = [
