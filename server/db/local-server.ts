@@ -8,6 +8,7 @@ import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { join, resolve } from 'node:path';
 import mysql from 'mysql2/promise';
+import { ensureSystemPackages, findBinary, MARIADB } from '../system-packages.js';
 
 export interface LocalMariadb {
   /** Connection URL without a database name (tests create one database per file). */
@@ -19,30 +20,10 @@ export interface LocalMariadb {
 const APP_USER = 'byrecast';
 const APP_PASSWORD = 'byrecast-local';
 
-function findBinary(name: string): string | null {
-  for (const dir of (process.env.PATH ?? '').split(':').concat(['/usr/sbin', '/usr/bin', '/sbin'])) {
-    const candidate = join(dir, name);
-    if (dir && existsSync(candidate)) return candidate;
-  }
-  return null;
-}
-
 /** Installs Debian's mariadb-server when it is missing and we may (root); otherwise explains how. */
 export function ensureMariadbInstalled(): { mariadbd: string; installDb: string } {
-  let mariadbd = findBinary('mariadbd');
-  if (!mariadbd) {
-    const command = 'apt-get update && apt-get install -y mariadb-server';
-    if (process.getuid?.() !== 0) {
-      throw new Error(`MariaDB is not installed. Install it with:\n  sudo sh -c '${command}'`);
-    }
-    console.log('MariaDB is missing: installing Debian package mariadb-server …');
-    const result = spawnSync('sh', ['-c', command], {
-      stdio: 'inherit',
-      env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
-    });
-    if (result.status !== 0) throw new Error(`Installing MariaDB failed (${command})`);
-    mariadbd = findBinary('mariadbd');
-  }
+  ensureSystemPackages([MARIADB], { purpose: 'MariaDB' });
+  const mariadbd = findBinary('mariadbd');
   const installDb = findBinary('mariadb-install-db');
   if (!mariadbd || !installDb) throw new Error('mariadbd or mariadb-install-db not found after install');
   return { mariadbd, installDb };

@@ -10,6 +10,7 @@ import {
   type CapitalAsset,
 } from './capital';
 import { decliningBalanceFast, loanScheduleFast, loanYearsFast, macrsFast, roundCentsFast, straightLineFast, type LoanYearsFast } from './cents';
+import { interestDuringConstruction } from './construction';
 import { MACRS_10_YEAR_150DB, MACRS_10_YEAR_200DB, MACRS_20_YEAR_150DB } from './depreciation';
 import { baseFeedCostPerYear, effectiveHousedDays, grazingDaysPerYear, marginalFeedCostPerYear } from './feed';
 import type { LoanSchedule } from './finance';
@@ -47,7 +48,10 @@ export interface OptionPlan {
   taxBookValueAtHorizon: number;
   grants: number;
   equity: number;
+  /** Loan principal (currency), interest during construction included when it is capitalised. */
   loanAmount: number;
+  /** Interest during construction (currency, cents), owed at year 0; in loanAmount when capitalised. */
+  interestDuringConstruction: number;
   /** Loan interest and principal per year (currency), index = year, [0] = 0. */
   interestByYear: number[];
   principalByYear: number[];
@@ -137,8 +141,11 @@ export function planOption(scenario: Scenario, option: Option, mode: PlanMode): 
     horizon,
     depreciationSchedule(scenario),
   );
-  const loanAmount = loanAmountFor(capital, grants, finance.equity, finance.loanAmount);
-  const equity = Math.max(0, capital - grants - loanAmount);
+  const capitalLoan = loanAmountFor(capital, grants, finance.equity, finance.loanAmount);
+  const equity = Math.max(0, capital - grants - capitalLoan);
+  // Interest during construction is owed at year 0: added to the loan, or paid from farm cash.
+  const constructionInterest = roundCentsFast(interestDuringConstruction(capitalLoan, finance));
+  const loanAmount = finance.interestDuringConstruction === 'capitalised' ? capitalLoan + constructionInterest : capitalLoan;
 
   const interestByYear = new Array<number>(horizon + 1).fill(0);
   const principalByYear = new Array<number>(horizon + 1).fill(0);
@@ -188,6 +195,7 @@ export function planOption(scenario: Scenario, option: Option, mode: PlanMode): 
       grants,
       equity,
       loanAmount,
+      interestDuringConstruction: constructionInterest,
       interestByYear,
       principalByYear,
       loanBalanceAtHorizon,
@@ -357,7 +365,9 @@ export function projectOption(
   const grants0 = round(plan.grants);
   const herd0 = round(plan.herdPurchasesByYear[0] ?? 0);
   cashFlows[0] = centsTotal(grants0 - capital0 - herd0);
-  if (lines) lines.push(yearZeroLine(plan, cashFlows[0], capital0, grants0, herd0, centsTotal(round(plan.loanAmount) + cashFlows[0])));
+  // Financed year 0: loan proceeds less the interest during construction paid out of them or beside them.
+  const financed0 = centsTotal(round(plan.loanAmount) - plan.interestDuringConstruction + cashFlows[0]);
+  if (lines) lines.push(yearZeroLine(plan, cashFlows[0], capital0, grants0, herd0, financed0));
 
   // Every line is linear in the cows of the year: per-cow amounts in today's money, hoisted.
   const yieldYear1 = optionYield(scenario, option, currentLyingHours, response, 1);
@@ -570,6 +580,16 @@ function yearZeroLine(plan: OptionPlan, net: number, capital: number, grants: nu
   };
 }
 
+/** Operating margin of year t (currency, unrounded) from a milk model at a milk price and lying-time response. */
+function marginAtMilk(model: MilkModel, t: number, milkPrice: number, response: number): number {
+  const cows = model.cows[t] ?? 0;
+  const yieldKg = Math.max(0, model.yieldFixed + response * (t === 1 ? model.yieldPerResponseYear1 : model.yieldPerResponseLater));
+  const milkKg = milkSoldKgPerYear(cows, yieldKg);
+  const milkIncome = milkKg * milkPrice * (model.milkGrowth[t] ?? 1);
+  const feed = (model.feedPerCow * cows + marginalFeedCostPerYear(milkKg - model.baselineMilkPerCow * cows, model.marginalFeedCostPerKg)) * (model.feedGrowth[t] ?? 1);
+  return (model.otherMargin[t] ?? 0) + milkIncome - feed;
+}
+
 /**
  * NPV (currency, flows[0] at t = 0) of an option's project flows at another milk price (currency
  * per kg) and lying-time response (kg/cow/day per hour), from its milk model: the same sums as
@@ -582,12 +602,7 @@ export function npvAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario[
   let total = yearZero;
   let lossCarried = 0;
   for (let t = 1; t <= plan.horizon; t++) {
-    const cows = model.cows[t] ?? 0;
-    const yieldKg = Math.max(0, model.yieldFixed + response * (t === 1 ? model.yieldPerResponseYear1 : model.yieldPerResponseLater));
-    const milkKg = milkSoldKgPerYear(cows, yieldKg);
-    const milkIncome = milkKg * milkPrice * (model.milkGrowth[t] ?? 1);
-    const feed = (model.feedPerCow * cows + marginalFeedCostPerYear(milkKg - model.baselineMilkPerCow * cows, model.marginalFeedCostPerKg)) * (model.feedGrowth[t] ?? 1);
-    settleYear(out, plan, finance, t, (model.otherMargin[t] ?? 0) + milkIncome - feed, lossCarried, identity, identity);
+    settleYear(out, plan, finance, t, marginAtMilk(model, t, milkPrice, response), lossCarried, identity, identity);
     lossCarried = out.lossCarried;
     total += out.net * discount;
     discount *= factor;
@@ -597,3 +612,26 @@ export function npvAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario[
 
 // npvAtMilk runs synchronously and never re-enters, so one settlement record serves every call.
 const scratch = emptySettlement();
+
+/**
+ * Cash available for debt service per year (currency, index = year, [0] = 0; written into `into`)
+ * of an option at another milk price and lying-time response, from its milk model, and the NPV
+ * of its project flows (returned; flows[0] = yearZero at t = 0): the same sums as projectOption
+ * without rounding (the stress table and the coverage break-evens), one pass over the years.
+ */
+export function cashAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario['finance'], yearZero: number, milkPrice: number, response: number, into: number[]): number {
+  const factor = 1 / (1 + finance.discountRate);
+  const out = scratch;
+  let discount = factor;
+  let total = yearZero;
+  let lossCarried = 0;
+  into[0] = 0;
+  for (let t = 1; t <= plan.horizon; t++) {
+    settleYear(out, plan, finance, t, marginAtMilk(model, t, milkPrice, response), lossCarried, identity, identity);
+    lossCarried = out.lossCarried;
+    into[t] = out.cashForDebtService;
+    total += out.net * discount;
+    discount *= factor;
+  }
+  return total;
+}

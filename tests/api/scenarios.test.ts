@@ -1,8 +1,7 @@
 /**
  * The scenario API on a real MariaDB: the demo scenarios, create → edit → save → versions →
  * compare → restore, option operations, optimistic locking, server results against the engine
- * run here, and export. Expected behaviour comes from issue 5 ("What to build", "Done when",
- * Contract) unless a check names another source.
+ * run here, and export. Expected behaviour comes from docs/product.md (Scenarios and versions) unless a check names another source.
  */
 import { execFile } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -46,7 +45,7 @@ describe('scenario API', () => {
   }
 
   describe('demo farm', () => {
-    it('lists the two demo scenarios with their option counts and best option by NPV', async () => {
+    it('lists the two demo scenarios with their option counts and best option by the NPV of its change', async () => {
       const res = await owner.get(`${base}/scenarios`);
       expect(res.status).toBe(200);
       const byName = new Map((res.body as { name: string }[]).map((s) => [s.name, s]));
@@ -57,12 +56,14 @@ describe('scenario API', () => {
       ] as const) {
         const fixture = demoScenarioFile(file);
         const results = evaluateScenario(fixture);
-        const best = [...results.options].sort((a, b) => b.npv - a.npv)[0]!;
+        // Best by the change against the current option (the current option counts 0: staying as today).
+        const change = (o: (typeof results.options)[number]) => o.incremental?.npv ?? 0;
+        const best = [...results.options].sort((a, b) => change(b) - change(a))[0]!;
         expect(byName.get(fixture.name)).toMatchObject({
           status: 'draft',
           version: 1,
           optionCount,
-          best: { optionId: best.id, name: best.name, npv: best.npv },
+          best: { optionId: best.id, name: best.name, npv: change(best) },
           updatedBy: 'Maren Holt',
         });
       }
@@ -76,7 +77,7 @@ describe('scenario API', () => {
     });
 
     it('demo fixtures compare a grazing current option with the four freestalls, and mattress (current) with sand', () => {
-      // issue 5, Demo data; PRODUCT.md capability 3 (five starting points).
+      // docs/product.md (Scenarios and versions), Demo data; docs/product.md capability 3 (five starting points).
       const five = demoScenarioFile('cairnbrook-five-systems.json');
       expect(five.options.map((o) => [o.startingPoint, o.current])).toEqual([
         ['grazing', true],
@@ -90,7 +91,7 @@ describe('scenario API', () => {
         ['mattress-topdressed', true],
         ['deep-sand', false],
       ]);
-      // Plausible for a 150–250 cow herd (issue 5, Demo data).
+      // Plausible for a 150–250 cow herd (docs/product.md (Scenarios and versions), Demo data).
       for (const scenario of [five, beds]) expect(scenario.herd.cows).toBeGreaterThanOrEqual(150);
       for (const scenario of [five, beds]) expect(scenario.herd.cows).toBeLessThanOrEqual(250);
     });
