@@ -1,6 +1,8 @@
 /** Scenario rows and their versions as plain objects; JSON columns parsed here (MariaDB returns them as text). */
 import { and, asc, desc, eq } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/mysql-core';
+import type { Scenario } from '../../../shared/schema/index.js';
+import { readScenarioDocument } from '../../../shared/schema/stored-scenario.js';
 import type { Database } from '../client.js';
 import { scenariosTable, scenarioVersionsTable, usersTable, type ScenarioStatus } from '../schema/index.js';
 
@@ -16,7 +18,8 @@ export interface ScenarioRecord {
   name: string;
   status: ScenarioStatus;
   version: number;
-  document: unknown;
+  /** Migrated to the current format and validated by readScenarioDocument. */
+  document: Scenario;
   summary: ScenarioSummary;
   createdBy: { id: number; name: string } | null;
   updatedBy: { id: number; name: string } | null;
@@ -26,7 +29,7 @@ export interface ScenarioRecord {
 
 export interface VersionRecord {
   version: number;
-  document: unknown;
+  document: Scenario;
   note: string;
   author: { id: number; name: string } | null;
   createdAt: Date;
@@ -67,7 +70,7 @@ function toRecord({ row, creatorName, updaterName }: ScenarioSelectRow): Scenari
     name: row.name,
     status: row.status,
     version: row.version,
-    document: parseJson(row.document),
+    document: readScenarioDocument(parseJson(row.document)),
     summary: parseJson(row.summary) as ScenarioSummary,
     createdBy: person(row.createdBy, creatorName),
     updatedBy: person(row.updatedBy, updaterName),
@@ -209,5 +212,5 @@ export async function findVersion(db: Executor, scenarioId: number, version: num
     .leftJoin(usersTable, eq(usersTable.id, scenarioVersionsTable.authorId))
     .where(and(eq(scenarioVersionsTable.scenarioId, scenarioId), eq(scenarioVersionsTable.version, version)));
   if (!row) return null;
-  return { version: row.version, document: parseJson(row.document), note: row.note, createdAt: row.createdAt, author: person(row.authorId, row.authorName) };
+  return { version: row.version, document: readScenarioDocument(parseJson(row.document)), note: row.note, createdAt: row.createdAt, author: person(row.authorId, row.authorName) };
 }
