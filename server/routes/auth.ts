@@ -44,8 +44,13 @@ export function authRoutes({ db, config, mailer, logger }: AppDeps): Router {
     res.status(204).end();
   });
 
+  // Signed out (no cookie, or one that no longer counts) is an answer, not an error: null.
   router.get('/me', async (req, res) => {
-    res.json(await sessionOfUser(db, requireUser(req).id));
+    if (!req.user) {
+      res.json(null);
+      return;
+    }
+    res.json(await sessionOfUser(db, req.user.id));
   });
 
   router.patch('/me', async (req, res) => {

@@ -12,7 +12,8 @@ import { http } from './client';
 export type { Session, SessionUser };
 
 export const authApi = {
-  me: () => http.get<Session>('/auth/me'),
+  /** null when signed out. */
+  me: () => http.get<Session | null>('/auth/me'),
   signIn: (input: SignInInput) => http.post<Session>('/auth/sign-in', input),
   signUp: (input: SignUpInput) => http.post<Session>('/auth/sign-up', input),
   signOut: () => http.post<void>('/auth/sign-out'),

@@ -39,7 +39,7 @@ describe('API response types', () => {
     expectTypeOf<Answer<typeof scenarios.readVersion>>().toEqualTypeOf<R.VersionView>();
     expectTypeOf<Answer<typeof scenarios.compareVersions>>().toEqualTypeOf<R.VersionComparison>();
     expectTypeOf<Answer<typeof preferences.readPreferences>>().toEqualTypeOf<R.PreferencesView>();
-    expectTypeOf<Answer<typeof preferences.readRiskResult>>().toEqualTypeOf<R.RiskResultView>();
+    expectTypeOf<Answer<typeof preferences.readRiskResult>>().toEqualTypeOf<R.RiskResultView | null>();
     expectTypeOf<Answer<typeof reviews.scenarioReviews>>().toEqualTypeOf<R.ShareReview[]>();
     expectTypeOf<Answer<typeof reviews.addLenderNote>>().toEqualTypeOf<R.ReviewNote>();
     expectTypeOf<Answer<typeof shares.farmShares>>().toEqualTypeOf<R.ShareView[]>();

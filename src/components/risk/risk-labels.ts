@@ -1,7 +1,7 @@
-/** The risk inputs' plain names (one table in shared/schema/risk.ts) and a typical first Monte Carlo set. */
-import { RISK_INPUT_LABELS, type MonteCarloInput } from '@shared/schema';
+/** Plain names of the risk inputs (from the shared schema) and a first set of uncertain inputs. */
+import type { MonteCarloInput } from '@shared/schema';
 
-export { RISK_INPUT_LABELS };
+export { RISK_INPUT_LABELS } from '@shared/schema';
 
 /**
  * A starting set of uncertain inputs for a first run, offered when a scenario has none: an
