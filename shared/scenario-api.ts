@@ -70,7 +70,11 @@ export const restoreVersionBodySchema = z.object({
 
 /** Path and query numbers: a scenario id, a version, a compare pair. */
 export const idParamSchema = (label: string) =>
-  z.coerce.number({ error: `${label} must be a number` }).int(`${label} must be a whole number`).min(1, `${label} must be at least 1`);
+  z
+    .coerce.number({ error: `${label} must be a number` })
+    .int(`${label} must be a whole number`)
+    .min(1, `${label} must be at least 1`)
+    .max(4_294_967_295, `${label} is too large`);
 export const compareQuerySchema = z.object({
   from: idParamSchema('From version'),
   to: idParamSchema('To version'),

@@ -2,12 +2,12 @@
 import { pipeline } from 'node:stream/promises';
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
 import multer from 'multer';
-import { z } from 'zod';
 import { documentListQuerySchema, documentPatchSchema, documentTargetSchema, MAX_DOCUMENT_BYTES } from '../../shared/schema/documents.js';
 import type { AppDeps } from '../app.js';
-import { farmAccess, farmRouter, requireUser } from '../auth/middleware.js';
-import { AppError, notFound, parseOrThrow } from '../errors.js';
+import { farmRouter } from '../auth/middleware.js';
+import { AppError, parseOrThrow } from '../errors.js';
 import { documentStorageEngine, uploadedFile } from '../http/document-upload.js';
+import { actorOf, idParam } from '../http/params.js';
 import {
   listVisibleDocuments,
   openDocument,
@@ -16,23 +16,9 @@ import {
   scenarioQuotes,
   remainingQuotaBytes,
   setQuoteAmount,
-  type DocumentActor,
+  
 } from '../services/documents.js';
 import { createFileStorage } from '../storage/index.js';
-
-export function actorOf(req: Request): DocumentActor {
-  const { farmId, role } = farmAccess(req);
-  return { farmId, role, userId: requireUser(req).id };
-}
-
-const idSchema = z.coerce.number().int().positive();
-
-/** A numeric id from the path; anything else is a document that does not exist. */
-function pathId(req: Request, name: string): number {
-  const parsed = idSchema.safeParse(req.params[name]);
-  if (!parsed.success) throw notFound('Not found');
-  return parsed.data;
-}
 
 /**
  * Runs a multer middleware and turns its errors into AppErrors: too large → 413, wrong parts
@@ -81,7 +67,7 @@ export function documentRoutes({ db, config }: AppDeps): Router {
   });
 
   route('get', '/documents/:documentId/download', 'document:read', async (req, res) => {
-    const { document, stream } = await openDocument(db, storage, actorOf(req), pathId(req, 'documentId'));
+    const { document, stream } = await openDocument(db, storage, actorOf(req), idParam(req, 'documentId', 'Document id'));
     res.status(200);
     res.attachment(document.fileName);
     res.set({
@@ -95,16 +81,16 @@ export function documentRoutes({ db, config }: AppDeps): Router {
 
   route('patch', '/documents/:documentId', 'document:write', async (req, res) => {
     const { quoteAmount } = parseOrThrow(documentPatchSchema, req.body);
-    res.json(await setQuoteAmount(db, actorOf(req), pathId(req, 'documentId'), quoteAmount));
+    res.json(await setQuoteAmount(db, actorOf(req), idParam(req, 'documentId', 'Document id'), quoteAmount));
   });
 
   route('delete', '/documents/:documentId', 'document:write', async (req, res) => {
-    await removeDocument(db, storage, actorOf(req), pathId(req, 'documentId'));
+    await removeDocument(db, storage, actorOf(req), idParam(req, 'documentId', 'Document id'));
     res.status(204).end();
   });
 
   route('get', '/scenarios/:scenarioId/quotes', 'document:read', async (req, res) => {
-    res.json({ lines: await scenarioQuotes(db, actorOf(req), pathId(req, 'scenarioId')) });
+    res.json({ lines: await scenarioQuotes(db, actorOf(req), idParam(req, 'scenarioId', 'Scenario id')) });
   });
 
   return router;

@@ -9,23 +9,16 @@ import { acceptInvitationSchema, emailTokenSchema } from '../../shared/schema/ac
 import { createShareSchema } from '../../shared/schema/lender.js';
 import { idParamSchema } from '../../shared/scenario-api.js';
 import type { AppDeps } from '../app.js';
+import { idParam } from '../http/params.js';
 import { farmAccess, farmRouter, requireUser } from '../auth/middleware.js';
 import { issueSession } from '../auth/session.js';
-import { AppError, parseOrThrow } from '../errors.js';
+import { parseOrThrow } from '../errors.js';
 import { acceptShare, createShare, farmShares, mySharesOnFarm, previewShare, revokeFarmShare, type FarmActor } from '../services/lender-shares.js';
 import { lenderWorkbook } from '../services/lender-workbook.js';
 import { sessionOf } from '../services/session.js';
 
 const tokenParams = z.object({ token: emailTokenSchema });
 const scenarioFilter = z.object({ scenarioId: idParamSchema('Scenario id').optional() });
-
-/** A numeric path parameter, or 400 naming it. */
-export function pathId(req: Request, name: string, label: string): number {
-  const result = idParamSchema(label).safeParse(req.params[name]);
-  if (result.success) return result.data;
-  const message = result.error.issues[0]?.message ?? `${label} must be a whole number`;
-  throw new AppError(400, 'invalid_input', `${name}: ${message}`, { [name]: message });
-}
 
 export function farmActor(req: Request): FarmActor {
   return { farmId: farmAccess(req).farmId, user: requireUser(req) };
@@ -44,15 +37,15 @@ export function lenderShareRoutes({ db, mailer, config }: AppDeps): Router {
     res.json(await mySharesOnFarm(db, farmAccess(req).farmId, requireUser(req).id));
   });
   route('post', '/scenarios/:scenarioId/lender-shares', 'scenario:share', async (req, res) => {
-    const scenarioId = pathId(req, 'scenarioId', 'Scenario id');
+    const scenarioId = idParam(req, 'scenarioId', 'Scenario id');
     const input = parseOrThrow(createShareSchema, req.body);
     res.status(201).json(await createShare(ctx, farmActor(req), scenarioId, input));
   });
   route('post', '/lender-shares/:shareId/revoke', 'scenario:share', async (req, res) => {
-    res.json(await revokeFarmShare(db, farmActor(req), pathId(req, 'shareId', 'Share id')));
+    res.json(await revokeFarmShare(db, farmActor(req), idParam(req, 'shareId', 'Share id')));
   });
   route('get', '/scenarios/:scenarioId/workbook.xlsx', 'scenario:read', async (req, res) => {
-    const scenarioId = pathId(req, 'scenarioId', 'Scenario id');
+    const scenarioId = idParam(req, 'scenarioId', 'Scenario id');
     const { role } = farmAccess(req);
     const { fileName, workbook } = await lenderWorkbook(db, { ...farmActor(req), role }, scenarioId);
     res.attachment(fileName).type('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');

@@ -1,18 +1,12 @@
 /** /api/farms/:farmId/members and /invitations: who is on the farm, and the owner's invitations. */
-import type { Request, Router } from 'express';
+import type { Router } from 'express';
 import { changeRoleSchema, inviteSchema } from '../../shared/schema/accounts.js';
 import type { AppDeps } from '../app.js';
+import { idParam } from '../http/params.js';
 import { farmAccess, farmRouter, requireUser } from '../auth/middleware.js';
-import { notFound, parseOrThrow } from '../errors.js';
+import { parseOrThrow } from '../errors.js';
 import { invitationJson, inviteToFarm, openInvitations, resendInvitation, withdrawInvitation } from '../services/invitations.js';
 import { changeMemberRole, farmMembers, removeMember } from '../services/members.js';
-
-/** A positive integer path parameter, or 404 (an id that cannot exist is simply not found). */
-function idParam(req: Request, name: string): number {
-  const value = Number(req.params[name]);
-  if (!Number.isInteger(value) || value <= 0 || value > 4_294_967_295) throw notFound();
-  return value;
-}
 
 export function memberRoutes({ db, mailer, config }: AppDeps): Router {
   const { router, route } = farmRouter(db);
@@ -23,14 +17,14 @@ export function memberRoutes({ db, mailer, config }: AppDeps): Router {
   });
 
   route('patch', '/members/:userId', 'members:manage', async (req, res) => {
-    const userId = idParam(req, 'userId');
+    const userId = idParam(req, 'userId', 'User id');
     const { role } = parseOrThrow(changeRoleSchema, req.body);
     await changeMemberRole(db, farmAccess(req).farmId, userId, role);
     res.json({ userId, role });
   });
 
   route('delete', '/members/:userId', 'members:manage', async (req, res) => {
-    await removeMember(db, farmAccess(req).farmId, idParam(req, 'userId'));
+    await removeMember(db, farmAccess(req).farmId, idParam(req, 'userId', 'User id'));
     res.status(204).end();
   });
 
@@ -45,12 +39,12 @@ export function memberRoutes({ db, mailer, config }: AppDeps): Router {
   });
 
   route('post', '/invitations/:invitationId/resend', 'members:manage', async (req, res) => {
-    const invitation = await resendInvitation(ctx, farmAccess(req).farmId, idParam(req, 'invitationId'), requireUser(req));
+    const invitation = await resendInvitation(ctx, farmAccess(req).farmId, idParam(req, 'invitationId', 'Invitation id'), requireUser(req));
     res.json(invitationJson(invitation));
   });
 
   route('delete', '/invitations/:invitationId', 'members:manage', async (req, res) => {
-    await withdrawInvitation(db, farmAccess(req).farmId, idParam(req, 'invitationId'));
+    await withdrawInvitation(db, farmAccess(req).farmId, idParam(req, 'invitationId', 'Invitation id'));
     res.status(204).end();
   });
 

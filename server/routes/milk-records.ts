@@ -6,8 +6,9 @@ import type { AppDeps } from '../app.js';
 import { farmAccess, farmRouter } from '../auth/middleware.js';
 import { AppError, parseOrThrow } from '../errors.js';
 import { milkRecordEngine, parsedMilkUpload } from '../http/milk-record-upload.js';
+import { actorOf } from '../http/params.js';
 import { confirmMilkRecords, MAX_MILK_RECORD_BYTES, milkRecordHistory, previewMilkRecords } from '../services/milk-records.js';
-import { actorOf, runUpload } from './documents.js';
+import { runUpload } from './documents.js';
 
 export function milkRecordRoutes({ db }: AppDeps): Router {
   const upload = runUpload(

@@ -2,10 +2,10 @@
 import type { Request, Router } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../app.js';
-import { farmAccess, farmRouter, requireUser } from '../auth/middleware.js';
-import { AppError, parseOrThrow } from '../errors.js';
+import { actorOf, idParam } from '../http/params.js';
+import { farmRouter } from '../auth/middleware.js';
+import { parseOrThrow } from '../errors.js';
 import * as preferences from '../services/preferences.js';
-import type { ScenarioActor } from '../services/scenarios.js';
 
 const optionId = z.string({ error: 'Option must be text' }).trim().min(1, 'Option must be chosen').max(60, 'Option id must be at most 60 characters');
 
@@ -34,41 +34,32 @@ export const riskResultBodySchema = z.object({
   }),
 });
 
-function actor(req: Request): ScenarioActor {
-  const { farmId, role } = farmAccess(req);
-  return { farmId, role, userId: requireUser(req).id };
-}
-
-function scenarioIdOf(req: Request): number {
-  const id = Number(req.params.scenarioId);
-  if (!Number.isInteger(id) || id < 1) throw new AppError(400, 'invalid_input', 'scenarioId: must be a whole number', { scenarioId: 'Must be a whole number' });
-  return id;
-}
+const scenarioIdOf = (req: Request) => idParam(req, 'scenarioId', 'Scenario id');
 
 export function preferenceRoutes({ db }: AppDeps): Router {
   const { router, route } = farmRouter(db);
   const base = '/scenarios/:scenarioId';
 
   route('get', `${base}/preferences`, 'preference:read', async (req, res) => {
-    res.json(await preferences.readPreferences(db, actor(req), scenarioIdOf(req)));
+    res.json(await preferences.readPreferences(db, actorOf(req), scenarioIdOf(req)));
   });
   route('put', `${base}/preferences/me`, 'preference:write', async (req, res) => {
     const input = parseOrThrow(preferenceBodySchema, req.body);
-    res.json(await preferences.recordPreference(db, actor(req), scenarioIdOf(req), input));
+    res.json(await preferences.recordPreference(db, actorOf(req), scenarioIdOf(req), input));
   });
   route('delete', `${base}/preferences/me`, 'preference:write', async (req, res) => {
-    res.json(await preferences.withdrawPreference(db, actor(req), scenarioIdOf(req)));
+    res.json(await preferences.withdrawPreference(db, actorOf(req), scenarioIdOf(req)));
   });
   route('post', `${base}/decision`, 'scenario:decide', async (req, res) => {
     const input = parseOrThrow(decisionBodySchema, req.body);
-    res.status(201).json(await preferences.decide(db, actor(req), scenarioIdOf(req), input));
+    res.status(201).json(await preferences.decide(db, actorOf(req), scenarioIdOf(req), input));
   });
   route('get', `${base}/risk-result`, 'scenario:read', async (req, res) => {
-    res.json(await preferences.readRiskResult(db, actor(req), scenarioIdOf(req)));
+    res.json(await preferences.readRiskResult(db, actorOf(req), scenarioIdOf(req)));
   });
   route('put', `${base}/risk-result`, 'scenario:write', async (req, res) => {
     const input = parseOrThrow(riskResultBodySchema, req.body);
-    res.json(await preferences.keepRiskResult(db, actor(req), scenarioIdOf(req), input));
+    res.json(await preferences.keepRiskResult(db, actorOf(req), scenarioIdOf(req), input));
   });
   return router;
 }

@@ -5,7 +5,8 @@ import type { AppDeps } from '../app.js';
 import { farmAccess, farmRouter } from '../auth/middleware.js';
 import { parseOrThrow } from '../errors.js';
 import { addLenderNote, replyToNote, scenarioReviews, setShareStatus, type ReviewActor } from '../services/review-notes.js';
-import { farmActor, pathId } from './lender-shares.js';
+import { idParam } from '../http/params.js';
+import { farmActor } from './lender-shares.js';
 
 function reviewActor(req: Request): ReviewActor {
   return { ...farmActor(req), role: farmAccess(req).role };
@@ -16,21 +17,21 @@ export function reviewNoteRoutes({ db, mailer, config }: AppDeps): Router {
   const ctx = { db, mailer, appOrigin: config.appOrigin };
 
   route('get', '/scenarios/:scenarioId/reviews', 'scenario:read', async (req, res) => {
-    res.json(await scenarioReviews(db, reviewActor(req), pathId(req, 'scenarioId', 'Scenario id')));
+    res.json(await scenarioReviews(db, reviewActor(req), idParam(req, 'scenarioId', 'Scenario id')));
   });
   route('post', '/lender-shares/:shareId/notes', 'review:write', async (req, res) => {
-    const shareId = pathId(req, 'shareId', 'Share id');
+    const shareId = idParam(req, 'shareId', 'Share id');
     const input = parseOrThrow(createNoteSchema, req.body);
     res.status(201).json(await addLenderNote(db, reviewActor(req), shareId, input));
   });
   route('post', '/lender-shares/:shareId/notes/:noteId/replies', 'review:reply', async (req, res) => {
-    const shareId = pathId(req, 'shareId', 'Share id');
-    const noteId = pathId(req, 'noteId', 'Note id');
+    const shareId = idParam(req, 'shareId', 'Share id');
+    const noteId = idParam(req, 'noteId', 'Note id');
     const input = parseOrThrow(replySchema, req.body);
     res.status(201).json(await replyToNote(db, reviewActor(req), shareId, noteId, input.body));
   });
   route('put', '/lender-shares/:shareId/status', 'review:write', async (req, res) => {
-    const shareId = pathId(req, 'shareId', 'Share id');
+    const shareId = idParam(req, 'shareId', 'Share id');
     const input = parseOrThrow(reviewStatusSchema, req.body);
     res.json(await setShareStatus(ctx, reviewActor(req), shareId, input.status));
   });

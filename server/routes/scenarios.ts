@@ -1,6 +1,5 @@
 /** /api/farms/:farmId/baseline and /api/farms/:farmId/scenarios/…: parse → service → respond. */
 import type { Request, Router } from 'express';
-import type { z } from 'zod';
 import {
   addOptionBodySchema,
   baselineBodySchema,
@@ -8,7 +7,7 @@ import {
   createScenarioBodySchema,
   duplicateOptionBodySchema,
   duplicateScenarioBodySchema,
-  idParamSchema,
+  
   importScenarioBodySchema,
   optionChangeBodySchema,
   reorderOptionsBodySchema,
@@ -17,26 +16,14 @@ import {
   versionQuerySchema,
 } from '../../shared/scenario-api.js';
 import type { AppDeps } from '../app.js';
-import { farmAccess, farmRouter, requireUser } from '../auth/middleware.js';
-import { AppError, parseOrThrow } from '../errors.js';
+import { actorOf, idParam } from '../http/params.js';
+import { farmAccess, farmRouter } from '../auth/middleware.js';
+import { parseOrThrow } from '../errors.js';
 import { readBaseline, saveBaseline } from '../services/farm-baseline.js';
 import * as scenarios from '../services/scenarios.js';
 
-function actor(req: Request): scenarios.ScenarioActor {
-  const { farmId, role } = farmAccess(req);
-  return { farmId, role, userId: requireUser(req).id };
-}
-
-/** A numeric path parameter, or 400 naming it. */
-function pathNumber(req: Request, name: string, schema: z.ZodType<number>): number {
-  const result = schema.safeParse(req.params[name]);
-  if (result.success) return result.data;
-  const message = result.error.issues[0]?.message ?? `${name} must be a whole number`;
-  throw new AppError(400, 'invalid_input', `${name}: ${message}`, { [name]: message });
-}
-
-const scenarioIdOf = (req: Request) => pathNumber(req, 'scenarioId', idParamSchema('Scenario id'));
-const versionOf = (req: Request) => pathNumber(req, 'version', idParamSchema('Version'));
+const scenarioIdOf = (req: Request) => idParam(req, 'scenarioId', 'Scenario id');
+const versionOf = (req: Request) => idParam(req, 'version', 'Version');
 const optionIdOf = (req: Request) => String(req.params.optionId);
 
 export function scenarioRoutes({ db }: AppDeps): Router {
@@ -51,89 +38,89 @@ export function scenarioRoutes({ db }: AppDeps): Router {
   });
 
   route('get', '/scenarios', 'scenario:read', async (req, res) => {
-    res.json(await scenarios.listFarmScenarios(db, actor(req)));
+    res.json(await scenarios.listFarmScenarios(db, actorOf(req)));
   });
   route('post', '/scenarios', 'scenario:write', async (req, res) => {
     // A body carrying a document is an import; otherwise the scenario starts from the farm baseline.
     const isImport = typeof req.body === 'object' && req.body !== null && 'scenario' in req.body;
     if (isImport) {
       const input = parseOrThrow(importScenarioBodySchema, req.body);
-      res.status(201).json(await scenarios.importScenario(db, actor(req), input.scenario, input.name));
+      res.status(201).json(await scenarios.importScenario(db, actorOf(req), input.scenario, input.name));
     } else {
       const input = parseOrThrow(createScenarioBodySchema, req.body);
-      res.status(201).json(await scenarios.createFromBaseline(db, actor(req), input));
+      res.status(201).json(await scenarios.createFromBaseline(db, actorOf(req), input));
     }
   });
 
   route('get', '/scenarios/:scenarioId', 'scenario:read', async (req, res) => {
-    res.json(await scenarios.readScenario(db, actor(req), scenarioIdOf(req)));
+    res.json(await scenarios.readScenario(db, actorOf(req), scenarioIdOf(req)));
   });
   route('put', '/scenarios/:scenarioId', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const input = parseOrThrow(saveScenarioBodySchema, req.body);
-    res.json(await scenarios.saveScenario(db, actor(req), id, input.version, input.scenario, input.note));
+    res.json(await scenarios.saveScenario(db, actorOf(req), id, input.version, input.scenario, input.note));
   });
   route('delete', '/scenarios/:scenarioId', 'scenario:write', async (req, res) => {
-    await scenarios.deleteScenario(db, actor(req), scenarioIdOf(req));
+    await scenarios.deleteScenario(db, actorOf(req), scenarioIdOf(req));
     res.status(204).end();
   });
   route('post', '/scenarios/:scenarioId/duplicate', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const input = parseOrThrow(duplicateScenarioBodySchema, req.body ?? {});
-    res.status(201).json(await scenarios.duplicateScenario(db, actor(req), id, input.name));
+    res.status(201).json(await scenarios.duplicateScenario(db, actorOf(req), id, input.name));
   });
   route('post', '/scenarios/:scenarioId/archive', 'scenario:write', async (req, res) => {
-    res.json(await scenarios.archiveScenario(db, actor(req), scenarioIdOf(req)));
+    res.json(await scenarios.archiveScenario(db, actorOf(req), scenarioIdOf(req)));
   });
   route('get', '/scenarios/:scenarioId/export.json', 'scenario:read', async (req, res) => {
-    const { fileName, document } = await scenarios.exportScenario(db, actor(req), scenarioIdOf(req));
+    const { fileName, document } = await scenarios.exportScenario(db, actorOf(req), scenarioIdOf(req));
     res.attachment(fileName).type('application/json').send(`${JSON.stringify(document, null, 2)}\n`);
   });
 
   route('post', '/scenarios/:scenarioId/options', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const input = parseOrThrow(addOptionBodySchema, req.body);
-    res.json(await scenarios.addOption(db, actor(req), id, input.version, input.startingPoint, input.name));
+    res.json(await scenarios.addOption(db, actorOf(req), id, input.version, input.startingPoint, input.name));
   });
   route('post', '/scenarios/:scenarioId/options/reorder', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const input = parseOrThrow(reorderOptionsBodySchema, req.body);
-    res.json(await scenarios.reorderOptions(db, actor(req), id, input.version, input.order));
+    res.json(await scenarios.reorderOptions(db, actorOf(req), id, input.version, input.order));
   });
   route('post', '/scenarios/:scenarioId/options/:optionId/duplicate', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const input = parseOrThrow(duplicateOptionBodySchema, req.body);
-    res.json(await scenarios.duplicateOption(db, actor(req), id, input.version, optionIdOf(req), input.name));
+    res.json(await scenarios.duplicateOption(db, actorOf(req), id, input.version, optionIdOf(req), input.name));
   });
   route('post', '/scenarios/:scenarioId/options/:optionId/current', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const input = parseOrThrow(optionChangeBodySchema, req.body);
-    res.json(await scenarios.markCurrent(db, actor(req), id, input.version, optionIdOf(req)));
+    res.json(await scenarios.markCurrent(db, actorOf(req), id, input.version, optionIdOf(req)));
   });
   route('delete', '/scenarios/:scenarioId/options/:optionId', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     // DELETE carries no body: the version it is based on comes as ?version=.
     const input = parseOrThrow(versionQuerySchema, req.query);
-    res.json(await scenarios.deleteOption(db, actor(req), id, input.version, optionIdOf(req)));
+    res.json(await scenarios.deleteOption(db, actorOf(req), id, input.version, optionIdOf(req)));
   });
 
   route('get', '/scenarios/:scenarioId/versions', 'scenario:read', async (req, res) => {
-    res.json(await scenarios.scenarioVersions(db, actor(req), scenarioIdOf(req)));
+    res.json(await scenarios.scenarioVersions(db, actorOf(req), scenarioIdOf(req)));
   });
   // Declared before /versions/:version so "compare" is not read as a version number.
   route('get', '/scenarios/:scenarioId/versions/compare', 'scenario:read', async (req, res) => {
     const id = scenarioIdOf(req);
     const query = parseOrThrow(compareQuerySchema, req.query);
-    res.json(await scenarios.compareVersions(db, actor(req), id, query.from, query.to, query.units));
+    res.json(await scenarios.compareVersions(db, actorOf(req), id, query.from, query.to, query.units));
   });
   route('get', '/scenarios/:scenarioId/versions/:version', 'scenario:read', async (req, res) => {
-    res.json(await scenarios.readVersion(db, actor(req), scenarioIdOf(req), versionOf(req)));
+    res.json(await scenarios.readVersion(db, actorOf(req), scenarioIdOf(req), versionOf(req)));
   });
   route('post', '/scenarios/:scenarioId/versions/:version/restore', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const version = versionOf(req);
     const input = parseOrThrow(restoreVersionBodySchema, req.body ?? {});
-    res.json(await scenarios.restoreVersion(db, actor(req), id, version, input.version, input.note));
+    res.json(await scenarios.restoreVersion(db, actorOf(req), id, version, input.version, input.note));
   });
 
   return router;

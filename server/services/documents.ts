@@ -11,7 +11,6 @@ import {
   type DocumentTarget,
   type DocumentView,
 } from '../../shared/schema/documents.js';
-import type { Scenario } from '../../shared/schema/index.js';
 import type { Database } from '../db/client.js';
 import {
   deleteDocument,
@@ -56,7 +55,7 @@ async function checkTarget(db: Database, farmId: number, target: DocumentTarget)
   const scenario = await findScenario(db, farmId, target.scenarioId);
   if (!scenario) throw new AppError(400, 'invalid_input', 'scenarioId: no such scenario on this farm', { scenarioId: 'No such scenario on this farm' });
   if (target.capitalLineId === undefined) return;
-  const document = scenario.document as Scenario;
+  const document = scenario.document;
   const found = document.options.some((o) => o.capitalLines.some((l) => l.id === target.capitalLineId));
   if (!found) {
     throw new AppError(400, 'invalid_input', 'capitalLineId: no such capital line in this scenario', { capitalLineId: 'No such capital line in this scenario' });

@@ -5,7 +5,6 @@
  */
 import type { MonteCarloResult } from '../../shared/engine/risk/monte-carlo.js';
 import type { Decision, PreferencesView, RiskResultView } from '../../shared/responses.js';
-import type { Scenario } from '../../shared/schema/index.js';
 import type { Database } from '../db/client.js';
 import {
   deletePreference,
@@ -28,7 +27,7 @@ async function visibleScenario(db: Database, actor: ScenarioActor, scenarioId: n
 }
 
 function optionOf(record: ScenarioRecord, optionId: string): { id: string; name: string } {
-  const option = (record.document as Scenario).options.find((o) => o.id === optionId);
+  const option = (record.document).options.find((o) => o.id === optionId);
   if (!option) {
     throw new AppError(400, 'invalid_input', `optionId: no option "${optionId}" in this scenario`, { optionId: `No option "${optionId}" in this scenario` });
   }
@@ -83,7 +82,7 @@ export async function readRiskResult(db: Database, actor: ScenarioActor, scenari
     result: saved.result as MonteCarloResult,
     scenarioVersion: saved.scenarioVersion,
     inputsHash: saved.inputsHash,
-    fresh: saved.inputsHash === riskInputsHash(record.document as Scenario),
+    fresh: saved.inputsHash === riskInputsHash(record.document),
     savedBy: saved.savedBy?.name ?? null,
     savedAt: saved.savedAt.toISOString(),
   };
@@ -99,7 +98,7 @@ export async function keepRiskResult(db: Database, actor: ScenarioActor, scenari
   }
   await saveRiskResult(db, {
     scenarioId,
-    inputsHash: riskInputsHash(record.document as Scenario),
+    inputsHash: riskInputsHash(record.document),
     scenarioVersion: record.version,
     result: input.result,
     userId: actor.userId,

@@ -8,7 +8,6 @@ import type { ReviewNote, ReviewThread, ShareReview } from '../../shared/respons
 import { REVIEW_STATUS_LABELS, type ReviewStatusValue } from '../../shared/schema/lender.js';
 import type { z } from 'zod';
 import type { createNoteSchema } from '../../shared/schema/lender.js';
-import type { Scenario } from '../../shared/schema/index.js';
 import type { Database } from '../db/client.js';
 import { findFarm, listMembers } from '../db/repositories/farms.js';
 import { findNote, findShare, insertNote, listNotes, listShares, setReviewStatus, type NoteRecord, type ShareRecord } from '../db/repositories/lender.js';
@@ -46,7 +45,7 @@ export function threadNotes(notes: readonly NoteRecord[], optionNames: ReadonlyM
 
 async function optionNamesOf(db: Database, share: Pick<ShareRecord, 'scenarioId' | 'version'>): Promise<Map<string, string>> {
   const version = await findVersion(db, share.scenarioId, share.version);
-  const document = version?.document as Scenario | undefined;
+  const document = version?.document;
   return new Map((document?.options ?? []).map((o) => [o.id, o.name]));
 }
 

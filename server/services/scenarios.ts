@@ -46,7 +46,7 @@ async function asSeenBy(db: Executor, access: Access, record: ScenarioRecord): P
   const version = versions[0];
   const found = version === undefined ? null : await findVersion(db, record.id, version);
   if (!found) throw notFound('Scenario not found');
-  const document = found.document as Scenario;
+  const document = found.document;
   return { ...record, name: document.name, version: found.version, document, updatedAt: found.createdAt, updatedBy: found.author };
 }
 
@@ -70,7 +70,7 @@ export function summarise(scenario: Scenario, results: ScenarioResults): Scenari
 }
 
 function view(record: ScenarioRecord): ScenarioView {
-  const scenario = record.document as Scenario;
+  const scenario = record.document;
   return {
     id: record.id,
     scenario,
@@ -120,7 +120,7 @@ export async function listFarmScenarios(db: Database, actor: ScenarioActor): Pro
     ? await Promise.all(
         visible.map(async (record) => {
           const seen = await asSeenBy(db, access, record);
-          const document = seen.document as Scenario;
+          const document = seen.document;
           return { ...seen, summary: summarise(document, evaluateScenario(document)) };
         }),
       )
@@ -219,7 +219,7 @@ async function saveChange(
         { latest: { version: latest.version, updatedBy: latest.updatedBy?.name ?? null, updatedAt: latest.updatedAt.toISOString() } },
       );
     }
-    const document = validated(change(latest.document as Scenario));
+    const document = validated(change(latest.document));
     await updateScenarioVersion(tx, {
       scenarioId,
       version: locked.version + 1,
@@ -309,7 +309,7 @@ export function markCurrent(db: Database, actor: ScenarioActor, scenarioId: numb
 /** A new scenario holding a copy of the latest document. */
 export async function duplicateScenario(db: Database, actor: ScenarioActor, scenarioId: number, name?: string): Promise<ScenarioView> {
   const record = await visibleRecord(db, actor, scenarioId);
-  const document = validated({ ...(record.document as Scenario), name: name ?? `${record.name} (copy)` });
+  const document = validated({ ...(record.document), name: name ?? `${record.name} (copy)` });
   return createScenario(db, actor, document, `Copied from "${record.name}" version ${record.version}`);
 }
 
@@ -344,7 +344,7 @@ export async function readVersion(db: Database, actor: ScenarioActor, scenarioId
   await visibleRecord(db, actor, scenarioId);
   assertVersionVisible(await accessOf(db, actor), scenarioId, version);
   const found = await versionOf(db, scenarioId, version);
-  const scenario = found.document as Scenario;
+  const scenario = found.document;
   return {
     version: found.version,
     scenario,
@@ -391,5 +391,5 @@ export async function restoreVersion(
 export async function exportScenario(db: Database, actor: ScenarioActor, scenarioId: number): Promise<{ fileName: string; document: Scenario }> {
   const record = await visibleRecord(db, actor, scenarioId);
   const slug = record.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'scenario';
-  return { fileName: `${slug}-v${record.version}.json`, document: record.document as Scenario };
+  return { fileName: `${slug}-v${record.version}.json`, document: record.document };
 }

@@ -2,7 +2,7 @@
  * Documents API on a real MariaDB with the local-disk storage in a temporary folder, then the
  * same flows against an S3 fake (s3rver) on loopback. Expected behaviour comes from docs/product.md (Documents and milk records) unless a check names another source.
  */
-import { existsSync, mkdtempSync, readdirSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import type http from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -13,6 +13,7 @@ import ExcelJS from 'exceljs';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { documentsTable, scenariosTable } from '../../server/db/schema/index.js';
+import type { Scenario } from '../../shared/schema/index.js';
 import { createTestApp, type TestApp } from '../helpers/app.js';
 import { farmIdByName, signedIn } from '../helpers/scenarios.js';
 import { eventually, exeBytes, pdfBytes, pngBytes, sessionCookie, sha256, startRawUpload } from '../helpers/uploads.js';
@@ -21,7 +22,11 @@ const MB = 1024 * 1024;
 
 /** Inserts a scenario row whose document has one option with the given capital lines (the shape the scenarios table holds). */
 async function insertScenario(t: TestApp, farmId: number, capitalLineIds: string[]): Promise<number> {
-  const document = { name: 'Barn study', options: [{ id: 'option-a', name: 'Sand freestall', capitalLines: capitalLineIds.map((id) => ({ id })) }] };
+  // A whole, valid scenario (stored documents are validated when read): the demo study with its
+  // first candidate's capital lines renamed to the ids the test attaches documents to.
+  const document = JSON.parse(readFileSync('scenarios/cairnbrook-mattress-or-sand.json', 'utf8')) as Scenario;
+  const option = document.options.find((o) => o.capitalLines.length >= capitalLineIds.length)!;
+  capitalLineIds.forEach((id, i) => (option.capitalLines[i]!.id = id));
   const [result] = await t.database.db.insert(scenariosTable).values({
     farmId,
     name: 'Barn study',

@@ -1,9 +1,10 @@
 /** Scenario rows and their versions as plain objects; JSON columns parsed here (MariaDB returns them as text). */
 import { and, asc, desc, eq } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/mysql-core';
+import type { Scenario } from '../../../shared/schema/index.js';
+import { readScenarioDocument } from '../../../shared/schema/stored-scenario.js';
 import type { Database } from '../client.js';
 import { scenariosTable, scenarioVersionsTable, usersTable, type ScenarioStatus } from '../schema/index.js';
-import { scenarioSchema } from '../../../shared/schema/index.js';
 
 /** What the list shows without reading documents. */
 export interface ScenarioSummary {
@@ -17,7 +18,8 @@ export interface ScenarioRecord {
   name: string;
   status: ScenarioStatus;
   version: number;
-  document: unknown;
+  /** Migrated to the current format and validated by readScenarioDocument. */
+  document: Scenario;
   summary: ScenarioSummary;
   createdBy: { id: number; name: string } | null;
   updatedBy: { id: number; name: string } | null;
@@ -27,7 +29,7 @@ export interface ScenarioRecord {
 
 export interface VersionRecord {
   version: number;
-  document: unknown;
+  document: Scenario;
   note: string;
   author: { id: number; name: string } | null;
   createdAt: Date;
@@ -38,16 +40,6 @@ export type Executor = Database | Parameters<Parameters<Database['transaction']>
 
 function parseJson(value: unknown): unknown {
   return typeof value === 'string' ? JSON.parse(value) : value;
-}
-
-/**
- * A stored scenario document with the defaults of fields added since it was saved filled in (the
- * schema gives each new field a default that keeps old documents valid); a document the schema
- * no longer accepts is returned as stored, for the service to refuse with a clear error.
- */
-function storedDocument(value: unknown): unknown {
-  const parsed = scenarioSchema.safeParse(parseJson(value));
-  return parsed.success ? parsed.data : parseJson(value);
 }
 
 function person(id: number | null, name: string | null): { id: number; name: string } | null {
@@ -78,7 +70,7 @@ function toRecord({ row, creatorName, updaterName }: ScenarioSelectRow): Scenari
     name: row.name,
     status: row.status,
     version: row.version,
-    document: storedDocument(row.document),
+    document: readScenarioDocument(parseJson(row.document)),
     summary: parseJson(row.summary) as ScenarioSummary,
     createdBy: person(row.createdBy, creatorName),
     updatedBy: person(row.updatedBy, updaterName),
@@ -220,5 +212,5 @@ export async function findVersion(db: Executor, scenarioId: number, version: num
     .leftJoin(usersTable, eq(usersTable.id, scenarioVersionsTable.authorId))
     .where(and(eq(scenarioVersionsTable.scenarioId, scenarioId), eq(scenarioVersionsTable.version, version)));
   if (!row) return null;
-  return { version: row.version, document: storedDocument(row.document), note: row.note, createdAt: row.createdAt, author: person(row.authorId, row.authorName) };
+  return { version: row.version, document: readScenarioDocument(parseJson(row.document)), note: row.note, createdAt: row.createdAt, author: person(row.authorId, row.authorName) };
 }

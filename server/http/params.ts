@@ -1,0 +1,24 @@
+/**
+ * What every farm route reads from the request the same way: id path parameters (a value that is
+ * not a positive whole number is bad input: 400 naming the parameter, on every route alike) and
+ * the actor (who is asking, on which farm).
+ */
+import type { Request } from 'express';
+import { idParamSchema } from '../../shared/scenario-api.js';
+import { farmAccess, requireUser } from '../auth/middleware.js';
+import { AppError } from '../errors.js';
+import type { Actor } from '../services/access.js';
+
+/** A positive whole-number path parameter, or 400 `invalid_input` naming it. */
+export function idParam(req: Request, name: string, label: string): number {
+  const result = idParamSchema(label).safeParse(req.params[name]);
+  if (result.success) return result.data;
+  const message = result.error.issues[0]?.message ?? `${label} must be a whole number`;
+  throw new AppError(400, 'invalid_input', `${name}: ${message}`, { [name]: message });
+}
+
+/** Who is asking, on which farm, with their role there. */
+export function actorOf(req: Request): Actor {
+  const { farmId, role } = farmAccess(req);
+  return { farmId, role, userId: requireUser(req).id };
+}
