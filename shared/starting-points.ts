@@ -3,7 +3,7 @@ import { stallsFor } from './engine/sizing';
 import { beddingTonnesPerYear, beddingToStorageM3PerYear } from './engine/bedding';
 import { manureStorageVolumeM3, MIN_TROUGH_PERIMETER_PER_COW_M, STALL_GUIDANCE, type Range } from './engine/sizing';
 
-// Sources of the defaults. 'reference' names a REFERENCES.md source, 'common-practice' a trade
+// Sources of the defaults. 'reference' names a docs/references.md source, 'common-practice' a trade
 // rule of thumb, 'assumption' an invented planning figure the user should replace.
 const ref = (note: string): Source => ({ kind: 'reference', note });
 const practice = (note: string): Source => ({ kind: 'common-practice', note });
@@ -252,7 +252,7 @@ function item(
   lifeYears: number,
   replaceAtEndOfLife = true,
 ): CapitalLine {
-  return { kind: 'item', id, description, category, unit, quantity, unitCost, lifeYears, replaceAtEndOfLife, documentIds: [] };
+  return { kind: 'item', id, description, category, unit, quantity, unitCost, lifeYears, replaceAtEndOfLife, taxClass: 'economic-life', taxLifeYears: null, documentIds: [] };
 }
 
 function capitalLinesFor(startingPoint: StartingPoint, defaults: Defaults, stalls: number): { lines: CapitalLine[]; sources: Record<string, Source> } {

@@ -1,21 +1,23 @@
 /**
  * `npm test`: starts a throwaway MariaDB on a free loopback port with a fresh data directory,
  * builds the client once, runs every vitest project (unit, API, browser), then stops the
- * server and removes its data, whatever the outcome. Arguments go to vitest. First it makes sure
- * the programs the tests need from outside npm are there (installing them when root), so no test
- * is ever skipped for a missing tool.
+ * server and removes its data, whatever the outcome. Arguments go to vitest.
+ * First it checks the Debian programs the tests use and installs the missing ones (as root) or
+ * stops with the apt-get line to run: no test is skipped for a missing tool.
  */
 import { spawn, spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { startLocalMariadb } from '../server/db/local-server.js';
-import { ensurePrograms, TEST_PROGRAMS } from '../server/system/debian-packages.js';
+import { CHROMIUM, ensureSystemPackages, LIBREOFFICE_CALC, MARIADB, MissingSystemPackagesError, POPPLER } from '../server/system-packages.js';
 
 try {
-  ensurePrograms(TEST_PROGRAMS);
+  // CHROMIUM_PATH points the browser tests at another Chromium build (tests/helpers/browser.ts).
+  const browser = process.env.CHROMIUM_PATH ? [] : [CHROMIUM];
+  ensureSystemPackages([MARIADB, ...browser, LIBREOFFICE_CALC, POPPLER], { purpose: 'npm test' });
 } catch (error) {
-  console.error(error instanceof Error ? error.message : error);
+  console.error(error instanceof MissingSystemPackagesError ? error.message : error);
   process.exit(1);
 }
 

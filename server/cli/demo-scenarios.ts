@@ -6,6 +6,7 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { herdSchema, scenarioSchema, type Finance, type Herd, type Option, type Scenario, type ScenarioInput, type StartingPoint } from '../../shared/schema';
+import { anchoredForShocks } from '../../shared/engine/evaluate';
 import { createOption } from '../../shared/starting-points';
 
 const demoDir = fileURLToPath(new URL('../../scenarios/', import.meta.url));
@@ -42,7 +43,9 @@ const CAIRNBROOK_UNCERTAINTY: NonNullable<NonNullable<ScenarioInput['risk']>['mo
 };
 
 function scenario(farm: DemoFarm['farm'], herd: Herd, name: string, description: string, options: Option[]): Scenario {
-  return scenarioSchema.parse({
+  // The farm's existing cash is measured at these prices: write in the herd margin it holds, so a
+  // file whose prices are changed moves the existing farm's cash with the current option's margin.
+  return anchoredForShocks(scenarioSchema.parse({
     schemaVersion: 1,
     name,
     description,
@@ -54,7 +57,7 @@ function scenario(farm: DemoFarm['farm'], herd: Herd, name: string, description:
     options,
     finance: CAIRNBROOK_FINANCE,
     risk: { monteCarlo: CAIRNBROOK_UNCERTAINTY },
-  } satisfies ScenarioInput);
+  } satisfies ScenarioInput));
 }
 
 /** Cows the new barn is built for: the herd grows from 190 to 230 when it moves in (the grazing platform holds no more). */

@@ -8,7 +8,7 @@ import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { join, resolve } from 'node:path';
 import mysql from 'mysql2/promise';
-import { ensurePrograms, findBinary, MARIADB } from '../system/debian-packages.js';
+import { ensureSystemPackages, findBinary, MARIADB } from '../system-packages.js';
 
 export interface LocalMariadb {
   /** Connection URL without a database name (tests create one database per file). */
@@ -22,7 +22,7 @@ const APP_PASSWORD = 'byrecast-local';
 
 /** Installs Debian's mariadb-server when it is missing and we may (root); otherwise explains how. */
 export function ensureMariadbInstalled(): { mariadbd: string; installDb: string } {
-  ensurePrograms([MARIADB]);
+  ensureSystemPackages([MARIADB], { purpose: 'MariaDB' });
   const mariadbd = findBinary('mariadbd');
   const installDb = findBinary('mariadb-install-db');
   if (!mariadbd || !installDb) throw new Error('mariadbd or mariadb-install-db not found after install');

@@ -33,6 +33,7 @@ const NAMED_PATHS: Readonly<Record<string, string>> = {
   'herd.growth.milkPrice': INPUT_NAMES.milkPriceGrowth,
   'herd.existingCashForDebtServicePerYear': INPUT_NAMES.existingCash,
   'herd.existingDebtPaymentsPerYear': INPUT_NAMES.existingDebt,
+  'herd.existingCashHerdMarginPerYear': INPUT_NAMES.herdMarginInExistingCash,
 };
 
 /** Inputs that only restructure the workbook (rows of the schedule): named but fixed by the export. */
@@ -213,9 +214,16 @@ export function addAssumptionsSheet(context: WorkbookContext): ExcelJS.Worksheet
     () => 'Scenario setting',
   );
   section('Farm, herd and markets');
-  write(flattenInputs(shape.herd as SchemaNode, scenario.herd, 'herd', currency), (row) =>
-    row.path.startsWith('herd.manureExcretion') ? 'Reference: ASABE D384.2 Table 1 (from memory) unless the farm changed it' : farmFigure(),
+  // A herd margin not entered is the current option's year-1 cash for debt service: the cell holds what the engine used.
+  const herdMarginEntered = scenario.herd.existingCashHerdMarginPerYear !== null;
+  const herdRows = flattenInputs(shape.herd as SchemaNode, scenario.herd, 'herd', currency).map((row) =>
+    row.path === 'herd.existingCashHerdMarginPerYear' && !herdMarginEntered ? { ...row, value: context.results.existingFarm.herdMarginInExistingCash } : row,
   );
+  write(herdRows, (row) => {
+    if (row.path.startsWith('herd.manureExcretion')) return 'Reference: ASABE D384.2 Table 1 (from memory) unless the farm changed it';
+    if (row.path === 'herd.existingCashHerdMarginPerYear' && !herdMarginEntered) return "Not entered: the current option's year-1 cash for debt service as projected";
+    return farmFigure();
+  });
   section('Finance, discounting and tax');
   write(flattenInputs(shape.finance as SchemaNode, scenario.finance, 'finance', currency), farmFigure);
   section('Risk settings');

@@ -7,7 +7,7 @@ import { BASE_FONT, COLOURS, fitWrappedRow, setupPrint, styleSection, styleTotal
 
 export const COVER_SHEET = 'Cover';
 
-/** The cautions Byrecast shows everywhere (product brief), in the order it lists them. */
+/** The cautions Byrecast shows everywhere (docs/product.md), in the order it lists them. */
 export const CAUTIONS = [
   'Results are planning estimates, not financial, legal, tax, engineering or veterinary advice.',
   'Manure storage and agitation release toxic and explosive gases (hydrogen sulfide, methane): never enter a manure pit or closed space; keep people and animals away while agitating.',
@@ -60,6 +60,26 @@ export function fillCoverSheet(ws: ExcelJS.Worksheet, context: WorkbookContext, 
   const share = assumptionShare(scenario);
   if (share.total > 0) {
     line('Assumptions', `${Math.round((share.assumed / share.total) * 100)} % of the options' inputs (${share.assumed} of ${share.total}) are tagged as assumptions: planning figures to replace with the farm's own or a quote (see Assumptions, column Source)`);
+  }
+
+  // What the decision turns on comes first: each option's change against the current option, stressed.
+  r++;
+  ws.getCell(r, 1).value = 'The change against the current option';
+  styleSection(ws.getCell(r, 1));
+  r++;
+  const whole = new Intl.NumberFormat(scenario.locale, { style: 'currency', currency: context.results.currency, maximumFractionDigits: 0 });
+  const threshold = scenario.finance.coverageThreshold;
+  for (const { result } of context.options) {
+    const change = result.incremental;
+    if (!change) continue;
+    const payback = (years: number | null) => (years === null ? 'not reached' : `${years.toFixed(1)} years`);
+    const milk10 = result.stress.find((row) => row.id === 'milk-10');
+    const lowest = result.lowestCoverage;
+    line(
+      result.name,
+      `NPV of the change ${whole.format(change.npv)}; payback ${payback(change.paybackYears)} with the year-${context.horizon} salvage and herd value, ${payback(change.paybackFromOperationsYears)} from operations alone; ` +
+        `lowest whole-farm coverage ${lowest ? lowest.value.toFixed(2) : 'n/a'} (threshold ${threshold.toFixed(2)}), ${milk10?.lowestCoverage != null ? milk10.lowestCoverage.toFixed(2) : 'n/a'} with milk −10 % (Stress sheet).`,
+    );
   }
 
   r++;

@@ -9,7 +9,9 @@ import {
   salvageAtHorizon,
   type CapitalAsset,
 } from './capital';
-import { decliningBalanceFast, loanScheduleFast, loanYearsFast, roundCentsFast, straightLineFast, type LoanYearsFast } from './cents';
+import { decliningBalanceFast, loanScheduleFast, loanYearsFast, macrsFast, roundCentsFast, straightLineFast, type LoanYearsFast } from './cents';
+import { interestDuringConstruction } from './construction';
+import { MACRS_10_YEAR_150DB, MACRS_10_YEAR_200DB, MACRS_20_YEAR_150DB } from './depreciation';
 import { baseFeedCostPerYear, effectiveHousedDays, grazingDaysPerYear, marginalFeedCostPerYear } from './feed';
 import type { LoanSchedule } from './finance';
 import { cullingCostPerYear, extraCullsPer100Cows, healthCostPerYear } from './health';
@@ -26,7 +28,7 @@ import { collectedManurePerYear, creditedNutrients, creditedValue, cropNeedCap, 
 import { resolvedGrowth } from './growth';
 import type { YearLine } from './results';
 import { manureStorageVolumeM3, stallsFor } from './sizing';
-import { taxableIncome, taxDepreciation, taxForYear, type DepreciationSchedule } from './tax';
+import { taxableIncome, taxDepreciation, taxForYear, type DepreciationSchedule, type PurchaseForTax } from './tax';
 import { cappedLyingHours, lactatingShare, MILK_DAYS_PER_YEAR, milkSoldKgPerYear, rampFraction, stockedLyingHours, yieldPerCowDay } from './yield';
 
 /** Everything about an option that does not change with prices: herd, sizing, capital, tax depreciation, loan. */
@@ -46,7 +48,10 @@ export interface OptionPlan {
   taxBookValueAtHorizon: number;
   grants: number;
   equity: number;
+  /** Loan principal (currency), interest during construction included when it is capitalised. */
   loanAmount: number;
+  /** Interest during construction (currency, cents), owed at year 0; in loanAmount when capitalised. */
+  interestDuringConstruction: number;
   /** Loan interest and principal per year (currency), index = year, [0] = 0. */
   interestByYear: number[];
   principalByYear: number[];
@@ -89,6 +94,19 @@ function depreciationSchedule(scenario: Scenario): DepreciationSchedule {
   return straightLineFast;
 }
 
+const MACRS_TABLES = { 'macrs-10-200db': MACRS_10_YEAR_200DB, 'macrs-10-150db': MACRS_10_YEAR_150DB, 'macrs-20-150db': MACRS_20_YEAR_150DB } as const;
+
+/** A capital asset's own tax schedule when its tax class is not its economic life (else none: the scenario's method). */
+function taxClassSchedule(asset: CapitalAsset | undefined): Pick<PurchaseForTax, 'schedule'> {
+  if (!asset || asset.taxClass === 'economic-life') return {};
+  if (asset.taxClass === 'straight-line') {
+    const life = asset.taxLifeYears;
+    return { schedule: (cost) => straightLineFast(cost, life) };
+  }
+  const { percentages } = MACRS_TABLES[asset.taxClass];
+  return { schedule: (cost) => macrsFast(cost, percentages) };
+}
+
 /**
  * Loan principal (currency): the override, or capital − equity − grants, floored at 0 and never
  * more than the capital left after grants (an option without capital borrows nothing).
@@ -112,14 +130,22 @@ export function planOption(scenario: Scenario, option: Option, mode: PlanMode): 
   const assets = capitalAssets(option.capitalLines, { stalls, storageM3, troughs: option.water.troughs });
   const capital = capitalTotal(assets);
   const purchases = purchaseSchedule(assets, horizon, inflation);
+  const grants = Math.min(finance.grants, capital);
+  // With grants reducing the depreciable base, each year-0 purchase carries its share of them.
+  const year0Base = finance.grantsReduceDepreciableBase && capital > 0 ? 1 - grants / capital : 1;
   const depreciation = taxDepreciation(
-    purchases.map((p) => ({ year: p.year, cost: p.cost, lifeYears: assets[p.asset]?.lifeYears ?? 1 })),
+    purchases.map((p) => {
+      const asset = assets[p.asset];
+      return { year: p.year, cost: p.year === 0 ? p.cost * year0Base : p.cost, lifeYears: asset?.lifeYears ?? 1, ...taxClassSchedule(asset) };
+    }),
     horizon,
     depreciationSchedule(scenario),
   );
-  const grants = Math.min(finance.grants, capital);
-  const loanAmount = loanAmountFor(capital, grants, finance.equity, finance.loanAmount);
-  const equity = Math.max(0, capital - grants - loanAmount);
+  const capitalLoan = loanAmountFor(capital, grants, finance.equity, finance.loanAmount);
+  const equity = Math.max(0, capital - grants - capitalLoan);
+  // Interest during construction is owed at year 0: added to the loan, or paid from farm cash.
+  const constructionInterest = roundCentsFast(interestDuringConstruction(capitalLoan, finance));
+  const loanAmount = finance.interestDuringConstruction === 'capitalised' ? capitalLoan + constructionInterest : capitalLoan;
 
   const interestByYear = new Array<number>(horizon + 1).fill(0);
   const principalByYear = new Array<number>(horizon + 1).fill(0);
@@ -169,6 +195,7 @@ export function planOption(scenario: Scenario, option: Option, mode: PlanMode): 
       grants,
       equity,
       loanAmount,
+      interestDuringConstruction: constructionInterest,
       interestByYear,
       principalByYear,
       loanBalanceAtHorizon,
@@ -337,7 +364,9 @@ export function projectOption(
   const grants0 = round(plan.grants);
   const herd0 = round(plan.herdPurchasesByYear[0] ?? 0);
   cashFlows[0] = centsTotal(grants0 - capital0 - herd0);
-  if (lines) lines.push(yearZeroLine(plan, cashFlows[0], capital0, grants0, herd0, centsTotal(round(plan.loanAmount) + cashFlows[0])));
+  // Financed year 0: loan proceeds less the interest during construction paid out of them or beside them.
+  const financed0 = centsTotal(round(plan.loanAmount) - plan.interestDuringConstruction + cashFlows[0]);
+  if (lines) lines.push(yearZeroLine(plan, cashFlows[0], capital0, grants0, herd0, financed0));
 
   // Every line is linear in the cows of the year: per-cow amounts in today's money, hoisted.
   const yieldYear1 = optionYield(scenario, option, currentLyingHours, response, 1);
@@ -546,6 +575,16 @@ function yearZeroLine(plan: OptionPlan, net: number, capital: number, grants: nu
   };
 }
 
+/** Operating margin of year t (currency, unrounded) from a milk model at a milk price and lying-time response. */
+function marginAtMilk(model: MilkModel, t: number, milkPrice: number, response: number): number {
+  const cows = model.cows[t] ?? 0;
+  const yieldKg = Math.max(0, model.yieldFixed + response * (t === 1 ? model.yieldPerResponseYear1 : model.yieldPerResponseLater));
+  const milkKg = milkSoldKgPerYear(cows, yieldKg);
+  const milkIncome = milkKg * milkPrice * (model.milkGrowth[t] ?? 1);
+  const feed = (model.feedPerCow * cows + marginalFeedCostPerYear(milkKg - model.baselineMilkPerCow * cows, model.marginalFeedCostPerKg)) * (model.feedGrowth[t] ?? 1);
+  return (model.otherMargin[t] ?? 0) + milkIncome - feed;
+}
+
 /**
  * NPV (currency, flows[0] at t = 0) of an option's project flows at another milk price (currency
  * per kg) and lying-time response (kg/cow/day per hour), from its milk model: the same sums as
@@ -558,12 +597,7 @@ export function npvAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario[
   let total = yearZero;
   let lossCarried = 0;
   for (let t = 1; t <= plan.horizon; t++) {
-    const cows = model.cows[t] ?? 0;
-    const yieldKg = Math.max(0, model.yieldFixed + response * (t === 1 ? model.yieldPerResponseYear1 : model.yieldPerResponseLater));
-    const milkKg = milkSoldKgPerYear(cows, yieldKg);
-    const milkIncome = milkKg * milkPrice * (model.milkGrowth[t] ?? 1);
-    const feed = (model.feedPerCow * cows + marginalFeedCostPerYear(milkKg - model.baselineMilkPerCow * cows, model.marginalFeedCostPerKg)) * (model.feedGrowth[t] ?? 1);
-    settleYear(out, plan, finance, t, (model.otherMargin[t] ?? 0) + milkIncome - feed, lossCarried, identity, identity);
+    settleYear(out, plan, finance, t, marginAtMilk(model, t, milkPrice, response), lossCarried, identity, identity);
     lossCarried = out.lossCarried;
     total += out.net * discount;
     discount *= factor;
@@ -573,3 +607,26 @@ export function npvAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario[
 
 // npvAtMilk runs synchronously and never re-enters, so one settlement record serves every call.
 const scratch = emptySettlement();
+
+/**
+ * Cash available for debt service per year (currency, index = year, [0] = 0; written into `into`)
+ * of an option at another milk price and lying-time response, from its milk model, and the NPV
+ * of its project flows (returned; flows[0] = yearZero at t = 0): the same sums as projectOption
+ * without rounding (the stress table and the coverage break-evens), one pass over the years.
+ */
+export function cashAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario['finance'], yearZero: number, milkPrice: number, response: number, into: number[]): number {
+  const factor = 1 / (1 + finance.discountRate);
+  const out = scratch;
+  let discount = factor;
+  let total = yearZero;
+  let lossCarried = 0;
+  into[0] = 0;
+  for (let t = 1; t <= plan.horizon; t++) {
+    settleYear(out, plan, finance, t, marginAtMilk(model, t, milkPrice, response), lossCarried, identity, identity);
+    lossCarried = out.lossCarried;
+    into[t] = out.cashForDebtService;
+    total += out.net * discount;
+    discount *= factor;
+  }
+  return total;
+}

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { choice, money, quantity, rate } from './fields';
+import { choice, money, quantity, rate, text } from './fields';
 
 const growthRate = (label: string) => rate(label, -0.2, 0.3, `${label}: nominal growth per year (fraction, 0.02 = 2 %/yr)`);
 
@@ -56,6 +56,14 @@ export const landSchema = z
     organicNitrogenLimitKgPerHa: optionalPerHa('Organic nitrogen limit', "The farm's own limit on livestock manure N per hectare, e.g. under local nutrient rules"),
   })
   .describe('Land the manure goes on: optional caps on the fertiliser credit and a check on organic N per hectare');
+export const existingLoanSchema = z
+  .object({
+    description: text('Existing loan description', 'What the loan financed or who lent it'),
+    paymentPerYear: money('Existing loan payment', 'Principal and interest paid on the loan per year (currency per year)'),
+    lastYear: quantity('Existing loan last year', 'years', 1, 40, 'Last operating year with a payment (year 1 = the first year after construction)', { int: true }),
+  }, { error: 'Existing loan must be an object with its fields' })
+  .describe('An existing loan whose payments end in its last year');
+export type ExistingLoan = z.infer<typeof existingLoanSchema>;
 
 export const herdSchema = z
   .object({
@@ -94,7 +102,23 @@ export const herdSchema = z
     replacementHeiferCost: money('Replacement heifer cost', 'Cost of a replacement heifer or bought cow today (currency per head)', 0, 1e6),
     cullCowValue: money('Cull cow value', 'Sale value of a cull cow today (currency per head)', 0, 1e6),
     existingCashForDebtServicePerYear: money('Existing farm cash for debt service', 'Cash the farm has for debt service today, before the new loan (currency per year)', -1e10, 1e10).default(0),
-    existingDebtPaymentsPerYear: money('Existing debt payments', 'Principal and interest on existing term debt (currency per year)').default(0),
+    existingDebtPaymentsPerYear: money('Existing debt payments', 'Principal and interest on existing term debt that runs through the horizon (currency per year)').default(0),
+    existingCashHerdMarginPerYear: money(
+      'Herd margin in existing cash',
+      "The current option's cash for debt service that the existing farm cash figure includes (currency per year)",
+      -1e10,
+      1e10,
+    )
+      .nullable()
+      .default(null)
+      .describe(
+        "The herd's cash for debt service under the current option inside the existing farm cash figure, at the prices it was measured (currency per year); null = the current option's year-1 figure as projected. The existing farm's cash in year t = existing cash − this + the current option's cash for debt service in year t, so it moves with milk, feed, wages and inputs",
+      ),
+    existingLoans: z
+      .array(existingLoanSchema, { error: 'Existing loans must be a list of loans' })
+      .max(30, 'Existing loans: at most 30')
+      .default([])
+      .describe('Existing loans that end within the horizon, on top of the existing debt payments'),
     manureExcretion: manureExcretionSchema.prefault({}),
     nutrientAvailability: nutrientAvailabilitySchema.prefault({}),
     land: landSchema.prefault({}),

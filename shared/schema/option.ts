@@ -26,6 +26,10 @@ export const capitalCategories = [
   'other',
 ] as const;
 
+/** Tax depreciation classes of a capital item, apart from its economic (useful) life. */
+export const taxClasses = ['economic-life', 'straight-line', 'macrs-10-200db', 'macrs-10-150db', 'macrs-20-150db'] as const;
+export type TaxClass = (typeof taxClasses)[number];
+
 export const capitalUnits = ['per-stall', 'per-m2', 'per-m3', 'per-item', 'lump-sum'] as const;
 
 /** Longest id of a capital, energy or running-cost line (characters; the documents table stores capital line ids). */
@@ -59,6 +63,11 @@ const capitalItemSchema = z
     unitCost: money('Capital line unit cost', 'Cost per unit today (currency per unit)', 0, 1e9),
     lifeYears: quantity('Capital line life', 'years', 1, 60, 'Useful life (years)', { int: true }),
     replaceAtEndOfLife: flag('Replace at end of life', 'Bought again at grown cost when its life ends inside the horizon').default(true),
+    taxClass: choice('Tax class', taxClasses, "How the line is depreciated for tax: 'economic-life' = the scenario's method over its useful life; 'straight-line' = straight line over its tax life; 'macrs-…' = the US MACRS GDS tables with the half-year convention").default('economic-life'),
+    taxLifeYears: quantity('Tax life', 'years', 1, 60, 'Years of straight-line tax depreciation (years)', { int: true })
+      .nullable()
+      .default(null)
+      .describe("Years of straight-line tax depreciation for the 'straight-line' tax class; null = the useful life (years)"),
     documentIds: z.array(z.string()).default([]).describe('Ids of attached quotes or documents'),
   })
   .describe('A capital line');

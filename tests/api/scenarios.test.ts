@@ -1,8 +1,7 @@
 /**
  * The scenario API on a real MariaDB: the demo scenarios, create → edit → save → versions →
  * compare → restore, option operations, optimistic locking, server results against the engine
- * run here, and export. Expected behaviour comes from issue 5 ("What to build", "Done when",
- * Contract) unless a check names another source.
+ * run here, and export. Expected behaviour comes from docs/product.md (Scenarios and versions) unless a check names another source.
  */
 import { execFile } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -74,7 +73,7 @@ describe('scenario API', () => {
     });
 
     it('demo fixtures compare a grazing current option with the four freestalls, and mattress (current) with sand', () => {
-      // issue 5, Demo data; PRODUCT.md capability 3 (five starting points).
+      // docs/product.md (Scenarios and versions), Demo data; docs/product.md capability 3 (five starting points).
       const five = demoScenarioFile('cairnbrook-five-systems.json');
       expect(five.options.map((o) => [o.startingPoint, o.current])).toEqual([
         ['grazing', true],
@@ -88,7 +87,7 @@ describe('scenario API', () => {
         ['mattress-topdressed', true],
         ['deep-sand', false],
       ]);
-      // Plausible for a 150–250 cow herd (issue 5, Demo data).
+      // Plausible for a 150–250 cow herd (docs/product.md (Scenarios and versions), Demo data).
       for (const scenario of [five, beds]) expect(scenario.herd.cows).toBeGreaterThanOrEqual(150);
       for (const scenario of [five, beds]) expect(scenario.herd.cows).toBeLessThanOrEqual(250);
     });
@@ -247,7 +246,8 @@ describe('scenario API', () => {
       const mine = structuredClone(created.scenario);
       mine.herd.wagePerHour = 18;
       const theirs = structuredClone(created.scenario);
-      theirs.herd.yieldKgPerCowDay = 27;
+      const savedYield = created.scenario.herd.yieldKgPerCowDay;
+      theirs.herd.yieldKgPerCowDay = savedYield + 1;
 
       const first = await partner.put(`${base}/scenarios/${created.id}`).send({ version: 1, scenario: mine });
       expect(first.status).toBe(200);
@@ -260,12 +260,12 @@ describe('scenario API', () => {
       const latest = await owner.get(`${base}/scenarios/${created.id}`);
       expect(latest.body.version).toBe(2);
       expect(latest.body.scenario.herd.wagePerHour).toBe(18);
-      expect(latest.body.scenario.herd.yieldKgPerCowDay).toBe(26);
+      expect(latest.body.scenario.herd.yieldKgPerCowDay).toBe(savedYield);
 
       // The refused copy is kept as a new scenario, as the client offers.
       const kept = await owner.post(`${base}/scenarios`).send({ scenario: theirs, name: 'Two editors (my copy)' });
       expect(kept.status).toBe(201);
-      expect(kept.body.scenario.herd.yieldKgPerCowDay).toBe(27);
+      expect(kept.body.scenario.herd.yieldKgPerCowDay).toBe(savedYield + 1);
       expect(kept.body.version).toBe(1);
     });
 

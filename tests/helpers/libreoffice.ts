@@ -22,16 +22,6 @@ const RECALCULATE_ALWAYS = `<?xml version="1.0" encoding="UTF-8"?>
 </oor:items>
 `;
 
-/** True when `soffice` is on the PATH (Debian's libreoffice-calc, installed by .ci/run). */
-export async function libreOfficeAvailable(): Promise<boolean> {
-  try {
-    await run('soffice', ['--version'], { timeout: 30_000 });
-    return true;
-  } catch {
-    return false;
-  }
-}
-
 /**
  * Converts each input file to `format` ('xlsx', 'pdf', …) with LibreOffice headless in one run
  * and a fresh profile; returns the output paths in input order, inside `outDir`.

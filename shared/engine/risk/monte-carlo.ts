@@ -3,7 +3,7 @@ import { perturb } from './perturb';
 import { createRandom, type Random } from './random';
 import { sampleTriangular, sampleTruncatedNormal } from './distributions';
 import { histogram, mean, percentileSorted, sortedCopy, type HistogramBin } from './statistics';
-import { evaluateNpvOnly } from '../evaluate';
+import { anchoredForShocks, evaluateNpvOnly } from '../evaluate';
 import type { FastOptionResult } from '../results';
 
 /** Monte Carlo settings as the scenario schema holds them: draws, seed, uncertain inputs. */
@@ -131,7 +131,9 @@ function npvDistribution(values: Float64Array, bins: number): NpvDistribution {
  * settings → identical results, however the run is chunked). Draw i perturbs the scenario by
  * one multiplier per uncertain input and evaluates every option on the same draw.
  */
-export function createMonteCarloRun(scenario: Scenario, settings: MonteCarloSettings = scenario.risk.monteCarlo, options: Pick<MonteCarloRunOptions, 'histogramBins'> = {}): MonteCarloRun {
+export function createMonteCarloRun(entered: Scenario, settings: MonteCarloSettings = entered.risk.monteCarlo, options: Pick<MonteCarloRunOptions, 'histogramBins'> = {}): MonteCarloRun {
+  // Every draw moves the existing farm's cash with the current option's margin at the draw's prices.
+  const scenario = anchoredForShocks(entered);
   const total = Math.max(0, Math.floor(settings.draws));
   const bins = options.histogramBins ?? DEFAULT_BINS;
   const random = createRandom(settings.seed);

@@ -1,5 +1,5 @@
 import { riskInputKeys, type RiskInputKey, type RiskSettings, type Scenario } from '../../schema';
-import { evaluateNpvOnly } from '../evaluate';
+import { anchoredForShocks, evaluateNpvOnly } from '../evaluate';
 import type { FastOptionResult } from '../results';
 import { perturb } from './perturb';
 
@@ -49,7 +49,9 @@ const bySwing = (a: InputSwing, b: InputSwing): number =>
  * building decision turns on), each list sorted by swing, largest first. `ranges` may override
  * some inputs; the rest come from the scenario.
  */
-export function sensitivity(scenario: Scenario, ranges: Partial<SensitivityRanges> = {}): SensitivityResult {
+export function sensitivity(entered: Scenario, ranges: Partial<SensitivityRanges> = {}): SensitivityResult {
+  // The existing farm's cash moves with the current option's margin at each input's low and high value.
+  const scenario = anchoredForShocks(entered);
   const base = evaluateNpvOnly(scenario);
   const runs = riskInputKeys.map((key) => {
     const range = ranges[key] ?? scenario.risk.sensitivity[key];

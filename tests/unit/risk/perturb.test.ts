@@ -14,7 +14,7 @@ function deepFreeze<T>(value: T): T {
 const capitalItems = (scenario: Scenario) =>
   scenario.options.flatMap((option) => option.capitalLines.filter((line) => line.kind === 'item'));
 
-// MODEL.md, Risk: every sensitivity or Monte Carlo value is a multiplier on the base value.
+// docs/model.md, Risk: every sensitivity or Monte Carlo value is a multiplier on the base value.
 describe('perturb', () => {
   it('never mutates the scenario it is given', () => {
     const scenario = deepFreeze(riskScenario());
