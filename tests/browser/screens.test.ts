@@ -17,6 +17,17 @@ interface Rect {
 
 const overlaps = (a: Rect, b: Rect): boolean => a.top < b.bottom && b.top < a.bottom;
 
+/** The elements that stick out past the right edge, to name in a failure. */
+function widest(page: Page): Promise<string> {
+  return page.evaluate(() =>
+    [...document.querySelectorAll('body *')]
+      .filter((element) => element.getBoundingClientRect().right > window.innerWidth + 1)
+      .slice(0, 6)
+      .map((element) => `${element.tagName}.${[...element.classList].join('.')}`)
+      .join(', '),
+  );
+}
+
 async function demoScenarioBase(page: Page): Promise<string> {
   const farms = (await (await page.request.get('/api/farms')).json()) as { id: number }[];
   const farmId = farms[0]?.id;
@@ -109,10 +120,9 @@ describe('the screens a family and a bank read', () => {
     for (const path of pages) {
       await page.goto(path);
       await page.waitForLoadState('networkidle');
-      await page.waitForTimeout(400);
-      const width = await page.evaluate(() => document.documentElement.scrollWidth);
+      // Charts settle to their card's width after their first draw.
+      await expect.poll(() => page.evaluate(() => document.documentElement.scrollWidth), { message: `${path} is wider than the phone: ${await widest(page)}`, timeout: 5000 }).toBeLessThanOrEqual(PHONE.width);
       await harness.screenshot(page, `phone-${path.replace(/\W+/g, '-')}`);
-      expect(width, `${path} is ${width} px wide`).toBeLessThanOrEqual(PHONE.width);
     }
 
     // Every scenario tab lies inside the screen, so a thumb can reach it without sideways scrolling.
@@ -159,6 +169,34 @@ describe('the screens a family and a bank read', () => {
     // The print view is one click from the farm page.
     await page.getByRole('link', { name: 'Print New barn: mattress or sand' }).click();
     await page.waitForURL(/\/print$/);
+    await context.close();
+  });
+
+  it('flags coverage below the lender threshold in the comparison and names the scenario in the breadcrumb', async () => {
+    const context = await harness.newContext(DESKTOP);
+    const page = await context.newPage();
+    await signInThroughForm(page, 'owner@byrecast.test');
+    if (!base) base = await demoScenarioBase(page);
+    const scenario = (await (await page.request.get(`/api${base}`)).json()) as { scenario: { name: string; finance: { coverageThreshold: number } } };
+    await page.goto(`${base}/compare`);
+    const table = page.getByTestId('comparison-table');
+    await table.waitFor();
+    await expect.poll(() => page.getByRole('navigation', { name: 'Breadcrumb' }).innerText()).toContain(scenario.scenario.name);
+
+    // Every coverage cell under the threshold carries the flag class, and none at or above it does.
+    const threshold = scenario.scenario.finance.coverageThreshold;
+    const cells = table.locator('tr[data-measure="lowestCoverage"] td, tr[data-measure="stressedCoverage"] td');
+    const read = await cells.evaluateAll((tds) => tds.map((td) => ({ text: (td as HTMLElement).innerText.trim(), flagged: td.classList.contains('below-threshold') })));
+    let below = 0;
+    for (const cell of read) {
+      const value = Number(cell.text.replace(/[^\d.]/g, ''));
+      if (!/\d/.test(cell.text)) continue;
+      expect(cell.flagged, `${cell.text} against ${threshold}`).toBe(value < threshold);
+      if (value < threshold) below += 1;
+    }
+    // The bank's combined shock (milk −10 %, interest +2 points) pushes some barns under the line.
+    expect(below).toBeGreaterThan(0);
+    await harness.screenshot(page, 'compare-flags-desktop');
     await context.close();
   });
 });
