@@ -46,8 +46,13 @@ export function authRoutes({ db, config, mailer, logger }: AppDeps): Router {
     res.status(204).end();
   });
 
+  // Signed out (no cookie, or one that no longer counts) is an answer, not an error: null.
   router.get('/me', async (req, res) => {
-    const user = await findUserById(db, requireUser(req).id);
+    if (!req.user) {
+      res.json(null);
+      return;
+    }
+    const user = await findUserById(db, req.user.id);
     if (!user) throw new Error('signed-in user missing');
     res.json(await sessionBody(user));
   });

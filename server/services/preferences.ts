@@ -86,11 +86,11 @@ export async function decide(db: Database, actor: ScenarioActor, scenarioId: num
   return readPreferences(db, actor, scenarioId);
 }
 
-/** The cached Monte Carlo result, with whether it still matches the saved scenario; 404 when none. */
-export async function readRiskResult(db: Database, actor: ScenarioActor, scenarioId: number): Promise<RiskResultView> {
+/** The cached Monte Carlo result, with whether it still matches the saved scenario; null when none was kept. */
+export async function readRiskResult(db: Database, actor: ScenarioActor, scenarioId: number): Promise<RiskResultView | null> {
   const record = await visibleScenario(db, actor, scenarioId);
   const saved = await findRiskResult(db, scenarioId);
-  if (!saved) throw notFound('No Monte Carlo result is saved for this scenario');
+  if (!saved) return null;
   return {
     result: saved.result,
     scenarioVersion: saved.scenarioVersion,
@@ -102,7 +102,7 @@ export async function readRiskResult(db: Database, actor: ScenarioActor, scenari
 }
 
 /** Keeps a Monte Carlo result run on `scenarioVersion`; 409 when the scenario was saved since. */
-export async function keepRiskResult(db: Database, actor: ScenarioActor, scenarioId: number, input: { scenarioVersion: number; result: unknown }): Promise<RiskResultView> {
+export async function keepRiskResult(db: Database, actor: ScenarioActor, scenarioId: number, input: { scenarioVersion: number; result: unknown }): Promise<RiskResultView | null> {
   const record = await visibleScenario(db, actor, scenarioId);
   if (record.version !== input.scenarioVersion) {
     throw conflict(`The scenario was saved since this run (version ${record.version}, the run used ${input.scenarioVersion}): run it again`, {

@@ -5,7 +5,7 @@
 import type ExcelJS from 'exceljs';
 import type { MonteCarloResult } from '../../shared/engine/risk/monte-carlo.js';
 import type { SensitivityResult } from '../../shared/engine/risk/sensitivity.js';
-import type { RiskInputKey } from '../../shared/schema/index.js';
+import { RISK_INPUT_LABELS } from '../../shared/schema/index.js';
 import type { WorkbookContext } from './context.js';
 import { BASE_FONT, freeze, PERCENT_FORMAT, setupPrint, styleHeaderRow, styleNote, styleSection, writeTitle } from './layout.js';
 
@@ -17,16 +17,7 @@ export interface WorkbookRisk {
   monteCarlo?: MonteCarloResult;
 }
 
-const INPUT_LABELS: Record<RiskInputKey, string> = {
-  milkPrice: 'Milk price',
-  yieldResponse: 'Lying-time milk response',
-  capitalCost: 'Capital cost',
-  interestRate: 'Interest rate',
-  wage: 'Wage',
-  beddingPrice: 'Bedding price',
-  fertiliserPrice: 'Fertiliser prices',
-  herdSize: 'Herd size',
-};
+const INPUT_LABELS = RISK_INPUT_LABELS;
 
 const percentOf = (multiplier: number) => `${multiplier >= 1 ? '+' : '−'}${Math.round(Math.abs(multiplier - 1) * 100)} %`;
 

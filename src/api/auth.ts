@@ -22,7 +22,8 @@ export interface Session {
 }
 
 export const authApi = {
-  me: () => http.get<Session>('/auth/me'),
+  /** null when signed out. */
+  me: () => http.get<Session | null>('/auth/me'),
   signIn: (input: SignInInput) => http.post<Session>('/auth/sign-in', input),
   signUp: (input: SignUpInput) => http.post<Session>('/auth/sign-up', input),
   signOut: () => http.post<void>('/auth/sign-out'),

@@ -46,7 +46,8 @@ export const preferencesApi = {
   withdraw: (farmId: number, scenarioId: number) => http.delete<PreferencesView>(`${base(farmId, scenarioId)}/preferences/me`),
   decide: (farmId: number, scenarioId: number, body: { optionId: string; note: string }) =>
     http.post<PreferencesView>(`${base(farmId, scenarioId)}/decision`, body),
-  riskResult: (farmId: number, scenarioId: number) => http.get<SavedRiskResult>(`${base(farmId, scenarioId)}/risk-result`),
+  /** null while no run has been kept for the scenario. */
+  riskResult: (farmId: number, scenarioId: number) => http.get<SavedRiskResult | null>(`${base(farmId, scenarioId)}/risk-result`),
   keepRiskResult: (farmId: number, scenarioId: number, body: { scenarioVersion: number; result: MonteCarloResult }) =>
     http.put<SavedRiskResult>(`${base(farmId, scenarioId)}/risk-result`, body),
 };

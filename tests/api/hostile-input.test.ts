@@ -94,6 +94,35 @@ describe('hostile input', () => {
     });
   }
 
+  it('refuses a lone UTF-16 surrogate with 400 naming the field, on option add, reorder and a whole save', async () => {
+    // "\ud800" alone is no character (Unicode 15, section 3.9 "Unicode Encoding Forms": ill-formed UTF-16).
+    const list = await request(t.app).get(`/api/farms/${farmId}/scenarios`).set('cookie', owner);
+    const base = `/api/farms/${farmId}/scenarios/${list.body[0].id as number}`;
+    const read = await request(t.app).get(base).set('cookie', owner);
+    const version = read.body.version as number;
+    const attempts: [request.Test, string][] = [
+      [request(t.app).post(`${base}/options`).set('cookie', owner).send({ version, startingPoint: 'sand-freestall', name: 'Sand \ud800' }), 'name'],
+      [request(t.app).post(`${base}/options/reorder`).set('cookie', owner).send({ version, order: ['\ud800'] }), 'order.0'],
+      [request(t.app).post(`${base}/options/reorder`).set('cookie', owner).send({ version, order: ['\udc00x'] }), 'order.0'],
+      [
+        request(t.app)
+          .put(base)
+          .set('cookie', owner)
+          .send({ version, scenario: { ...read.body.scenario, options: [{ ...read.body.scenario.options[0], name: 'a\ud800' }, ...read.body.scenario.options.slice(1)] } }),
+        'scenario.options.0.name',
+      ],
+    ];
+    for (const [attempt, field] of attempts) {
+      const res = await attempt;
+      expect(res.status, field).toBe(400);
+      expect(Object.keys(res.body.error.fields), field).toEqual([field]);
+    }
+    // A well-formed pair (an emoji) is text like any other.
+    const emoji = await request(t.app).post(`${base}/options`).set('cookie', owner).send({ version, startingPoint: 'sand-freestall', name: 'Sand \ud83d\udc04' });
+    expect(emoji.status).toBe(200);
+    expect(emoji.body.scenario.options.at(-1).name).toBe('Sand 🐄');
+  });
+
   it('stores SQL metacharacters in a name and a farm name and shows them back as the same text', async () => {
     // docs/product.md (Accounts): stored and shown back as text, never executed.
     for (const value of SQL_STRINGS) {

@@ -43,7 +43,7 @@ describe('scenario API', () => {
   }
 
   describe('demo farm', () => {
-    it('lists the two demo scenarios with their option counts and best option by NPV', async () => {
+    it('lists the two demo scenarios with their option counts and best option by the NPV of its change', async () => {
       const res = await owner.get(`${base}/scenarios`);
       expect(res.status).toBe(200);
       const byName = new Map((res.body as { name: string }[]).map((s) => [s.name, s]));
@@ -54,12 +54,14 @@ describe('scenario API', () => {
       ] as const) {
         const fixture = demoScenarioFile(file);
         const results = evaluateScenario(fixture);
-        const best = [...results.options].sort((a, b) => b.npv - a.npv)[0]!;
+        // Best by the change against the current option (the current option counts 0: staying as today).
+        const change = (o: (typeof results.options)[number]) => o.incremental?.npv ?? 0;
+        const best = [...results.options].sort((a, b) => change(b) - change(a))[0]!;
         expect(byName.get(fixture.name)).toMatchObject({
           status: 'draft',
           version: 1,
           optionCount,
-          best: { optionId: best.id, name: best.name, npv: best.npv },
+          best: { optionId: best.id, name: best.name, npv: change(best) },
           updatedBy: 'Maren Holt',
         });
       }

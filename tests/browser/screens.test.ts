@@ -183,10 +183,10 @@ describe('the screens a family and a bank read', () => {
     await table.waitFor();
     await expect.poll(() => page.getByRole('navigation', { name: 'Breadcrumb' }).innerText()).toContain(scenario.scenario.name);
 
-    // Every coverage cell under the threshold carries the flag class, and none at or above it does.
+    // Every coverage cell under the threshold carries the clay 'negative' mark, and none at or above it does.
     const threshold = scenario.scenario.finance.coverageThreshold;
     const cells = table.locator('tr[data-measure="lowestCoverage"] td, tr[data-measure="stressedCoverage"] td');
-    const read = await cells.evaluateAll((tds) => tds.map((td) => ({ text: (td as HTMLElement).innerText.trim(), flagged: td.classList.contains('below-threshold') })));
+    const read = await cells.evaluateAll((tds) => tds.map((td) => ({ text: (td as HTMLElement).innerText.trim(), flagged: td.querySelector('.negative') !== null })));
     let below = 0;
     for (const cell of read) {
       const value = Number(cell.text.replace(/[^\d.]/g, ''));

@@ -59,11 +59,10 @@ function dayToDay(results: ScenarioResults, option: OptionResult, current: Optio
 }
 
 /** The two or three inputs that move the best option's answer most, with the break-evens in words. */
-function drivers(scenario: Scenario, best: OptionResult | undefined, currentName: string, sens: SensitivityResult | null, f: ReadingFormat): string[] {
+function drivers(scenario: Scenario, best: OptionResult | undefined, currentName: string, sens: SensitivityResult | null, f: ReadingFormat, perKg: (price: number) => string): string[] {
   if (!best?.incremental) return [];
   const inc = best.incremental;
   const price = scenario.herd.milkPricePerKg;
-  const perKg = (v: number) => `${f.money(v)} a kg`;
   const out: string[] = [];
   const swings = sens?.options.find((o) => o.optionId === best.id)?.incrementalNpv ?? [];
   for (const swing of swings.slice(0, 3)) {
@@ -85,8 +84,11 @@ function drivers(scenario: Scenario, best: OptionResult | undefined, currentName
   return out;
 }
 
-/** The summary; the options other than the current one ranked by the NPV of the change, best first. */
-export function familySummary(scenario: Scenario, results: ScenarioResults, sens: SensitivityResult | null, f: ReadingFormat): FamilySummary {
+/**
+ * The summary; the options other than the current one ranked by the NPV of the change, best
+ * first. `perKg` writes a milk price (money per kg, to the tenth of a cent).
+ */
+export function familySummary(scenario: Scenario, results: ScenarioResults, sens: SensitivityResult | null, f: ReadingFormat, perKg: (price: number) => string): FamilySummary {
   const current = results.options.find((o) => o.current) ?? results.options[0];
   const currentName = current?.name ?? 'the current option';
   const horizon = results.horizonYears;
@@ -109,8 +111,11 @@ export function familySummary(scenario: Scenario, results: ScenarioResults, sens
   const staying = current ? `Staying with ${currentName}: ${f.money(cashLeftAfterLoans(results, current, current, 1))} left for the farm after every loan payment in year 1.` : null;
   return {
     staying,
-    question: `Should the farm stay with ${currentName} or change to one of ${ranked.length === 1 ? 'this option' : `these ${ranked.length} options`}?`,
+    question:
+      ranked.length === 1
+        ? `Should the farm stay with ${currentName} or change to ${ranked[0]?.name ?? 'the other option'}?`
+        : `Should the farm stay with ${currentName} or change to one of these ${ranked.length} options?`,
     options,
-    drivers: drivers(scenario, ranked[0], currentName, sens, f),
+    drivers: drivers(scenario, ranked[0], currentName, sens, f, perKg),
   };
 }

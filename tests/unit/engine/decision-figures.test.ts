@@ -153,3 +153,23 @@ describe('sources and uses of funds', () => {
     expect(evaluateScenario(handScenario()).options[1]?.sourcesAndUses.termPastLifeWarning).toBeNull();
   });
 });
+
+describe('Monte Carlo with the existing farm taking the same prices', () => {
+  it('counts the current option below the threshold when every draw lowers milk by about 10 %', async () => {
+    const { runMonteCarlo } = await import('../../../shared/engine/risk/monte-carlo');
+    const scenario = handScenario((input) => {
+      input.finance.coverageThreshold = 2.4;
+    });
+    // Held flat the existing farm would cover 50 000 ÷ 20 000 = 2.5 in every draw; at 0.36 a kg it covers 0.31.
+    const result = runMonteCarlo(scenario, {
+      draws: 50,
+      seed: 7,
+      inputs: [{ key: 'milkPrice', distribution: 'triangular', min: 0.89, mode: 0.9, max: 0.91 }],
+    });
+    const current = result.options.find((o) => o.current);
+    expect(current?.probabilityCoverageBelowThreshold).toBe(1);
+    // The change's NPV distribution is reported beside it: the candidate loses money in every draw.
+    expect(result.options[1]?.incrementalNpv?.probabilityNegative).toBe(1);
+    expect(result.options[1]?.incrementalNpv?.p50).toBeLessThan(0);
+  });
+});

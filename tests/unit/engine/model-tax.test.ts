@@ -83,6 +83,11 @@ describe('debt-service coverage (FFSC, farmdoc daily (8):175, 2018: cash availab
   it('finds the lowest defined year', () => {
     expect(lowestByYear([{ year: 1, value: 1.4 }, { year: 2, value: null }, { year: 3, value: 1.1 }, { year: 4, value: 1.2 }])).toEqual({ year: 3, value: 1.1 });
     expect(lowestByYear([{ year: 1, value: null }])).toBeNull();
+    // Equal lows apart from floating-point noise (a level loan on a steady herd): the earliest year.
+    const noisy = [1.4742054585405515, 1.4742054585405513, 1.4742054585405513].map((value, i) => ({ year: i + 1, value }));
+    expect(lowestByYear(noisy)).toEqual({ year: 1, value: 1.4742054585405513 });
+    // A real difference, however small next to the display precision, still counts.
+    expect(lowestByYear([{ year: 1, value: 1.2 }, { year: 2, value: 1.2 - 1e-6 }])).toEqual({ year: 2, value: 1.2 - 1e-6 });
   });
 });
 
