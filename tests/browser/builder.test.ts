@@ -66,11 +66,11 @@ describe('scenario builder in Chromium', () => {
     const farmId = await demoFarmId(page);
 
     await page.goto(`/farms/${farmId}`);
-    await until(() => page.getByRole('link', { name: SCENARIO }).count()).toBe(1);
+    await until(() => page.getByRole('link', { name: SCENARIO, exact: true }).count()).toBe(1);
     await expectNoBrokenNumbers(page);
     await harness.screenshot(page, 'builder-farm-home-desktop');
 
-    await page.getByRole('link', { name: SCENARIO }).click();
+    await page.getByRole('link', { name: SCENARIO, exact: true }).click();
     await page.waitForURL(/\/scenarios\/\d+/);
     await until(() => page.locator('.results-strip .strip-option').count()).toBe(2);
     const versionBefore = Number(await page.locator('[data-figure="version"]').textContent());
@@ -168,7 +168,7 @@ describe('scenario builder in Chromium', () => {
     await signInThroughForm(page, 'owner@byrecast.test');
     const farmId = await demoFarmId(page);
     await page.goto(`/farms/${farmId}`);
-    await page.getByRole('link', { name: SCENARIO }).click();
+    await page.getByRole('link', { name: SCENARIO, exact: true }).click();
     await until(() => page.locator('.results-strip .strip-option').count()).toBeGreaterThan(0);
 
     // The schema allows at most 24 h of lying a day (docs/model.md, validation).
@@ -187,7 +187,7 @@ describe('scenario builder in Chromium', () => {
     const farmId = await demoFarmId(page);
 
     await page.goto(`/farms/${farmId}`);
-    await until(() => page.getByRole('link', { name: SCENARIO }).count()).toBe(1);
+    await until(() => page.getByRole('link', { name: SCENARIO, exact: true }).count()).toBe(1);
     await harness.screenshot(page, 'builder-farm-home-tablet');
 
     await page.goto(`/farms/${farmId}/baseline`);
@@ -195,7 +195,7 @@ describe('scenario builder in Chromium', () => {
     await harness.screenshot(page, 'builder-baseline-tablet');
 
     await page.goto(`/farms/${farmId}`);
-    await page.getByRole('link', { name: SCENARIO }).click();
+    await page.getByRole('link', { name: SCENARIO, exact: true }).click();
     await page.waitForURL(/\/scenarios\/\d+/);
     await page.waitForTimeout(500);
     await harness.screenshot(page, 'builder-options-tablet');

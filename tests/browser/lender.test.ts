@@ -110,7 +110,7 @@ describe('lender share in the browser', () => {
     await owner.setViewportSize(TABLET);
     await harness.screenshot(owner, 'lender-owner-sees-review-tablet');
     await owner.setViewportSize(DESKTOP);
-    await owner.getByRole('link', { name: 'Audit log' }).click();
+    await owner.getByRole('link', { name: 'Lender activity' }).click();
     await owner.waitForURL(new RegExp(`/farms/${farmId}/audit-log$`));
     for (const action of ['share.created', 'share.accepted', 'workbook.downloaded', 'review.status', 'note.added']) {
       await poll(() => owner.locator(`tr[data-action="${action}"]`).count()).toBe(1);

@@ -1,0 +1,202 @@
+/**
+ * The screens as a family and a bank read them, in Chromium: the live results strip stays small
+ * and never sits over the field being edited, and every page fits a 390 px phone with all its
+ * tabs in reach. Screenshots at 1366 px and 390 px land in tests/.artifacts/screenshots/.
+ */
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser.js';
+
+const DESKTOP = { width: 1366, height: 900 };
+const PHONE = { width: 390, height: 844 };
+
+interface Rect {
+  top: number;
+  bottom: number;
+}
+
+const overlaps = (a: Rect, b: Rect): boolean => a.top < b.bottom && b.top < a.bottom;
+
+/** The elements that stick out past the right edge, to name in a failure. */
+function widest(page: Page): Promise<string> {
+  return page.evaluate(() =>
+    [...document.querySelectorAll('body *')]
+      .filter((element) => element.getBoundingClientRect().right > window.innerWidth + 1)
+      .slice(0, 6)
+      .map((element) => `${element.tagName}.${[...element.classList].join('.')}`)
+      .join(', '),
+  );
+}
+
+async function demoScenarioBase(page: Page): Promise<string> {
+  const farms = (await (await page.request.get('/api/farms')).json()) as { id: number }[];
+  const farmId = farms[0]?.id;
+  const list = (await (await page.request.get(`/api/farms/${farmId}/scenarios`)).json()) as { id: number; name: string }[];
+  const five = list.find((s) => s.name.includes('five systems'));
+  if (!farmId || !five) throw new Error('the demo farm or its five-system scenario is missing');
+  return `/farms/${farmId}/scenarios/${five.id}`;
+}
+
+describe('the screens a family and a bank read', () => {
+  let harness: BrowserHarness;
+  let base = '';
+
+  beforeAll(async () => {
+    harness = await startBrowserHarness();
+  });
+  afterAll(async () => {
+    await harness?.close();
+  });
+
+  it('keeps the live results strip compact and never over the field being edited', async () => {
+    const context = await harness.newContext(DESKTOP);
+    const page = await context.newPage();
+    await signInThroughForm(page, 'owner@byrecast.test');
+    base = await demoScenarioBase(page);
+    await page.goto(`${base}?section=herd`);
+    const strip = page.locator('.strip-holder');
+    await page.locator('.results-strip .strip-option').first().waitFor();
+    await harness.screenshot(page, 'strip-desktop');
+
+    // Five options side by side used to take a third of the screen; a quarter at most now.
+    const open = await strip.boundingBox();
+    expect(open?.height ?? 999).toBeLessThanOrEqual(DESKTOP.height / 4);
+
+    // Folded, it is one line that still names the best change.
+    await page.getByRole('button', { name: 'Fold' }).click();
+    await expect.poll(() => page.getByTestId('strip-summary').innerText()).toMatch(/Best change:\s+.+\s+[−-]?€[\d,]+/);
+    const folded = await strip.boundingBox();
+    expect(folded?.height ?? 999).toBeLessThan(60);
+    await page.getByRole('button', { name: 'Show all options' }).click();
+
+    // Scroll each field of the herd form under the stuck strip, then focus it: it must come clear.
+    const fields = page.locator('main input:not([type=hidden]):not(#scenario-name):not(#save-note)');
+    const count = await fields.count();
+    expect(count).toBeGreaterThan(5);
+    let checked = 0;
+    for (let index = 0; index < Math.min(count, 12); index += 1) {
+      const field = fields.nth(index);
+      if (!(await field.isVisible())) continue;
+      await field.evaluate((element) => {
+        const stripBox = document.querySelector('.strip-holder')?.getBoundingClientRect();
+        const box = element.getBoundingClientRect();
+        window.scrollBy({ top: box.top - (stripBox ? stripBox.top + stripBox.height / 2 : 0), behavior: 'instant' });
+      });
+      await field.focus();
+      await page.waitForTimeout(50);
+      const stripRect = (await strip.boundingBox()) ?? { y: 0, height: 0 };
+      const fieldRect = (await field.boundingBox()) ?? { y: 0, height: 0 };
+      expect(
+        overlaps({ top: stripRect.y, bottom: stripRect.y + stripRect.height }, { top: fieldRect.y, bottom: fieldRect.y + fieldRect.height }),
+        `field ${index} under the strip`,
+      ).toBe(false);
+      checked += 1;
+    }
+    expect(checked).toBeGreaterThan(5);
+
+    // Keyboard focus moving forward through the form never lands under the strip either.
+    for (let step = 0; step < 15; step += 1) {
+      await page.keyboard.press('Tab');
+      await page.waitForTimeout(50);
+      const focused = await page.evaluate(() => {
+        const element = document.activeElement;
+        const stripBox = document.querySelector('.strip-holder')?.getBoundingClientRect();
+        if (!element || element === document.body || !stripBox || document.querySelector('.strip-holder')?.contains(element)) return null;
+        const box = element.getBoundingClientRect();
+        return { name: `${element.tagName} ${element.id}`, field: { top: box.top, bottom: box.bottom }, strip: { top: stripBox.top, bottom: stripBox.bottom } };
+      });
+      if (focused) expect(overlaps(focused.field, focused.strip), `tab stop ${step}: ${JSON.stringify(focused)}`).toBe(false);
+    }
+    await context.close();
+  });
+
+  it('fits every page on a 390 px phone, with every scenario tab in reach', async () => {
+    const context = await harness.newContext(PHONE);
+    const page = await context.newPage();
+    await signInThroughForm(page, 'owner@byrecast.test');
+    if (!base) base = await demoScenarioBase(page);
+    const farm = base.replace(/\/scenarios\/\d+$/, '');
+    const pages = [farm, `${farm}/baseline`, `${farm}/documents`, base, `${base}?section=capital`, `${base}?section=running`, `${base}/results`, `${base}/compare`, `${base}/risk`, `${base}/lender`];
+    for (const path of pages) {
+      await page.goto(path);
+      await page.waitForLoadState('networkidle');
+      // Charts settle to their card's width after their first draw.
+      await expect.poll(() => page.evaluate(() => document.documentElement.scrollWidth), { message: `${path} is wider than the phone: ${await widest(page)}`, timeout: 5000 }).toBeLessThanOrEqual(PHONE.width);
+      await harness.screenshot(page, `phone-${path.replace(/\W+/g, '-')}`);
+    }
+
+    // Every scenario tab lies inside the screen, so a thumb can reach it without sideways scrolling.
+    await page.goto(base);
+    const tabs = page.getByRole('navigation', { name: 'Scenario sections' }).getByRole('link');
+    await tabs.first().waitFor();
+    expect(await tabs.count()).toBe(5);
+    for (const box of await tabs.evaluateAll((links) => links.map((link) => link.getBoundingClientRect().toJSON() as DOMRect))) {
+      expect(box.left).toBeGreaterThanOrEqual(0);
+      expect(box.right).toBeLessThanOrEqual(PHONE.width);
+    }
+    await context.close();
+  });
+
+  it('duplicates, puts aside and deletes a scenario from the farm page, with ways into milk records and lender activity', async () => {
+    const context = await harness.newContext(DESKTOP);
+    const page = await context.newPage();
+    await signInThroughForm(page, 'owner@byrecast.test');
+    if (!base) base = await demoScenarioBase(page);
+    const farm = base.replace(/\/scenarios\/\d+$/, '');
+    await page.goto(farm);
+    await expect.poll(() => page.getByRole('link', { name: 'Import milk records' }).count()).toBe(1);
+    expect(await page.getByRole('link', { name: 'Lender activity' }).count()).toBe(1);
+    await expect.poll(() => page.locator('.scenario-table tbody').innerText()).toContain('Still deciding');
+    const rows = page.locator('.scenario-table tbody tr');
+    const before = await rows.count();
+
+    await page.getByRole('button', { name: 'Duplicate New barn: mattress or sand' }).click();
+    await expect.poll(() => rows.count()).toBe(before + 1);
+    const copy = rows.filter({ hasText: /New barn: mattress or sand \(copy|copy of/i });
+    await expect.poll(() => copy.count()).toBe(1);
+    const copyName = (await copy.locator('.scenario-link').innerText()).trim();
+
+    await page.getByRole('button', { name: `Put aside ${copyName}` }).click();
+    await expect.poll(() => copy.innerText()).toContain('Put aside');
+    await harness.screenshot(page, 'farm-home-actions-desktop');
+
+    await page.getByRole('button', { name: `Delete ${copyName}` }).click();
+    await page.getByRole('button', { name: 'Delete', exact: true }).click();
+    await expect.poll(() => rows.count()).toBe(before);
+    const list = (await (await page.request.get(`/api${farm}/scenarios`)).json()) as { name: string }[];
+    expect(list.map((s) => s.name)).not.toContain(copyName);
+
+    // The print view is one click from the farm page.
+    await page.getByRole('link', { name: 'Print New barn: mattress or sand' }).click();
+    await page.waitForURL(/\/print$/);
+    await context.close();
+  });
+
+  it('flags coverage below the lender threshold in the comparison and names the scenario in the breadcrumb', async () => {
+    const context = await harness.newContext(DESKTOP);
+    const page = await context.newPage();
+    await signInThroughForm(page, 'owner@byrecast.test');
+    if (!base) base = await demoScenarioBase(page);
+    const scenario = (await (await page.request.get(`/api${base}`)).json()) as { scenario: { name: string; finance: { coverageThreshold: number } } };
+    await page.goto(`${base}/compare`);
+    const table = page.getByTestId('comparison-table');
+    await table.waitFor();
+    await expect.poll(() => page.getByRole('navigation', { name: 'Breadcrumb' }).innerText()).toContain(scenario.scenario.name);
+
+    // Every coverage cell under the threshold carries the clay 'negative' mark, and none at or above it does.
+    const threshold = scenario.scenario.finance.coverageThreshold;
+    const cells = table.locator('tr[data-measure="lowestCoverage"] td, tr[data-measure="stressedCoverage"] td');
+    const read = await cells.evaluateAll((tds) => tds.map((td) => ({ text: (td as HTMLElement).innerText.trim(), flagged: td.querySelector('.negative') !== null })));
+    let below = 0;
+    for (const cell of read) {
+      const value = Number(cell.text.replace(/[^\d.]/g, ''));
+      if (!/\d/.test(cell.text)) continue;
+      expect(cell.flagged, `${cell.text} against ${threshold}`).toBe(value < threshold);
+      if (value < threshold) below += 1;
+    }
+    // The bank's combined shock (milk −10 %, interest +2 points) pushes some barns under the line.
+    expect(below).toBeGreaterThan(0);
+    await harness.screenshot(page, 'compare-flags-desktop');
+    await context.close();
+  });
+});
