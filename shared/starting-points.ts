@@ -3,7 +3,7 @@ import { stallsFor } from './engine/sizing';
 import { beddingTonnesPerYear, beddingToStorageM3PerYear } from './engine/bedding';
 import { manureStorageVolumeM3, MIN_TROUGH_PERIMETER_PER_COW_M, STALL_GUIDANCE, type Range } from './engine/sizing';
 
-// Sources of the defaults. 'reference' names a REFERENCES.md source, 'common-practice' a trade
+// Sources of the defaults. 'reference' names a docs/references.md source, 'common-practice' a trade
 // rule of thumb, 'assumption' an invented planning figure the user should replace.
 const ref = (note: string): Source => ({ kind: 'reference', note });
 const practice = (note: string): Source => ({ kind: 'common-practice', note });
@@ -13,6 +13,15 @@ const fromHerd = (note: string): Source => ({ kind: 'user', note });
 const TUCKER_WEARY = 'Tucker & Weary, J. Dairy Sci. 87:2889 (2004)';
 const COOK = 'Cook et al., J. Dairy Sci. 87:2912 (2004)';
 const SAND_GUIDANCE = 'university guidance quoted in the dairy press: at least 50 lb (23 kg) sand per stall per day';
+/** New lameness cases per 100 cows a year on mattresses, and on sand at Cook's sand-to-mattress ratio (11.1 ÷ 24.0). */
+const MATTRESS_LAMENESS_INCIDENCE = 35;
+const SAND_LAMENESS_INCIDENCE = Math.round(((MATTRESS_LAMENESS_INCIDENCE * 11.1) / 24) * 10) / 10;
+const LAMENESS_CULLS_PER_CASE = 0.05;
+const LAMENESS_MATTRESS_SOURCE = assumed(`new cases a year (incidence); ${COOK} measured 24.0 % of cows lame in mattress herds on the day (prevalence, read), and a year sees more cases than are lame on one day`);
+/** Building and equipment insurance as a share of capital per year. */
+const INSURANCE_RATE = 0.003;
+/** Share of the collected N lost from a slurry store before spreading. */
+const STORAGE_N_LOSS = 0.25;
 const PENN_STATE_WATER = 'Penn State Extension, watering system design: ≥ 3 in (7.6 cm) per cow, ≥ 10 US gal/min';
 
 interface Defaults {
@@ -40,6 +49,7 @@ const COMMON_SOURCES: Record<string, Source> = {
   'health.lamenessCostPerCase': assumed('planning figure per case (treatment, milk loss)'),
   'health.injuryCostPerCase': assumed('planning figure per hock, knee or other injury'),
   'health.extraCullsPer100Cows': assumed('no culls beyond the herd norm'),
+  'health.lamenessCullsPerCase': assumed('one lameness case in twenty ends in an extra cull'),
   'labour.minutesPerScrapingPass': assumed('planning figure for one tractor pass of the alleys'),
   'labour.bedCleaningsPerDay': practice('beds cleaned and levelled once or twice a day'),
   'labour.secondsPerStallCleaning': assumed('planning figure per stall'),
@@ -52,11 +62,16 @@ const COMMON_SOURCES: Record<string, Source> = {
   'manure.collectionEfficiency': assumed('share of housed-day manure reaching the store'),
   'manure.handlingCostPerM3': assumed('agitation, hauling and spreading by contractor'),
   'manure.storageDays': assumed('storage period; follow local rules'),
-  'manure.washWaterM3PerCowDay': practice('parlour wash water usually joins the storage; 50 L per cow per day is a planning figure'),
+  'manure.washWaterM3PerCowDay': practice('parlour wash water usually joins the storage on every milking day, grazing or housed; 50 L per cow per day is a planning figure'),
+  'manure.washWaterDiverted': practice('parlour wash water usually joins the storage'),
+  'manure.storageNitrogenLoss': assumed('a quarter of the N lost from a slurry store before spreading; stored liquid manure commonly loses 20–40 % (from memory); replace with the local figure'),
+  'manure.pastureDungCredit': assumed('dung dropped on pasture is not valued'),
   'manure.openStorageAreaM2': assumed('open store 3 m deep, sized from the storage volume'),
   'manure.netRainMPerYear': assumed('rain minus evaporation; replace with the local figure'),
   'manure.freeboardM': assumed('freeboard kept empty'),
   maintenanceRate: assumed('1 % of capital a year'),
+  insuranceRate: assumed('0.3 % of capital a year for buildings and equipment insurance, invented'),
+  existingHousingValue: assumed('no existing housing carried'),
 };
 
 /** A bare-mattress freestall with rigid steel dividers; the flexible-divider one differs only in injuries. */
@@ -67,15 +82,15 @@ const STEEL_FREESTALL: Defaults = {
   manureRemoval: 'tractor-scraper',
   housedDaysPerYear: 365,
   lyingHoursPerDay: 12.3,
-  health: { lamenessCasesPer100Cows: 24, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 30, mastitisCostPerCase: 250, injuriesPer100Cows: 10, injuryCostPerCase: 150, extraCullsPer100Cows: 0 },
+  health: { lamenessCasesPer100Cows: MATTRESS_LAMENESS_INCIDENCE, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 30, mastitisCostPerCase: 250, injuriesPer100Cows: 10, injuryCostPerCase: 150, extraCullsPer100Cows: 0, lamenessCullsPerCase: LAMENESS_CULLS_PER_CASE },
   labour: { scrapingPassesPerDay: 2, minutesPerScrapingPass: 15, bedCleaningsPerDay: 2, secondsPerStallCleaning: 10, beddingTonnesPerHour: 1, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 0 },
   bedding: { material: 'none', kgPerStallDay: 0, pricePerTonne: 0, bulkDensityTonnesPerM3: 0.25, shareToManureStorage: 0 },
-  manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+  manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, washWaterDiverted: false, storageNitrogenLoss: STORAGE_N_LOSS, pastureDungCredit: 0, netRainMPerYear: 0.4, freeboardM: 0.3 },
   maintenanceRate: 0.01,
   sources: {
     housedDaysPerYear: practice('a freestall herd is housed all year'),
     lyingHoursPerDay: ref(`${TUCKER_WEARY}: 12.3 h/day on bare mattresses`),
-    'health.lamenessCasesPer100Cows': ref(`${COOK}: 24.0 % lameness prevalence in mattress herds, used as cases per 100 cows per year`),
+    'health.lamenessCasesPer100Cows': LAMENESS_MATTRESS_SOURCE,
     'health.mastitisCasesPer100Cows': assumed('planning figure for a bare mattress'),
     'health.injuriesPer100Cows': practice('rigid steel dividers give more injuries than flexible ones; the figure is an assumption'),
     'labour.scrapingPassesPerDay': practice('tractor or skid-steer scraping two to three times a day'),
@@ -96,15 +111,15 @@ const STARTING_POINTS: Record<StartingPoint, Defaults> = {
     manureRemoval: 'tractor-scraper',
     housedDaysPerYear: 150,
     lyingHoursPerDay: 11,
-    health: { lamenessCasesPer100Cows: 15, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 25, mastitisCostPerCase: 250, injuriesPer100Cows: 5, injuryCostPerCase: 150, extraCullsPer100Cows: 0 },
+    health: { lamenessCasesPer100Cows: 20, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 25, mastitisCostPerCase: 250, injuriesPer100Cows: 5, injuryCostPerCase: 150, extraCullsPer100Cows: 0, lamenessCullsPerCase: LAMENESS_CULLS_PER_CASE },
     labour: { scrapingPassesPerDay: 2, minutesPerScrapingPass: 15, bedCleaningsPerDay: 2, secondsPerStallCleaning: 10, beddingTonnesPerHour: 1, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 2.5 },
     bedding: { material: 'sawdust', kgPerStallDay: 1, pricePerTonne: 60, bulkDensityTonnesPerM3: 0.25, shareToManureStorage: 1 },
-    manure: { collectionEfficiency: 0.9, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+    manure: { collectionEfficiency: 0.9, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, washWaterDiverted: false, storageNitrogenLoss: STORAGE_N_LOSS, pastureDungCredit: 0, netRainMPerYear: 0.4, freeboardM: 0.3 },
     maintenanceRate: 0.01,
     sources: {
       housedDaysPerYear: assumed('winter housing period of a pasture-based herd; set to the farm\u2019s own'),
       lyingHoursPerDay: assumed('pasture-based herd over the year, below the 12–14 h housed budget (Grant, dairy cattle extension, Table 1)'),
-      'health.lamenessCasesPer100Cows': assumed('pasture-based herds are usually less lame than housed herds'),
+      'health.lamenessCasesPer100Cows': assumed('new cases a year; pasture-based herds are usually less lame than housed herds'),
       'health.mastitisCasesPer100Cows': assumed('planning figure'),
       'health.injuriesPer100Cows': assumed('planning figure'),
       'labour.scrapingPassesPerDay': practice('tractor or skid-steer scraping two to three times a day'),
@@ -132,21 +147,21 @@ const STARTING_POINTS: Record<StartingPoint, Defaults> = {
     bed: 'mattress-topdressed',
     manureRemoval: 'automatic-scraper',
     housedDaysPerYear: 365,
-    lyingHoursPerDay: 13.8,
-    health: { lamenessCasesPer100Cows: 24, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 28, mastitisCostPerCase: 250, injuriesPer100Cows: 3, injuryCostPerCase: 150, extraCullsPer100Cows: 0 },
+    lyingHoursPerDay: 12.8,
+    health: { lamenessCasesPer100Cows: MATTRESS_LAMENESS_INCIDENCE, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 28, mastitisCostPerCase: 250, injuriesPer100Cows: 3, injuryCostPerCase: 150, extraCullsPer100Cows: 0, lamenessCullsPerCase: LAMENESS_CULLS_PER_CASE },
     labour: { scrapingPassesPerDay: 0, minutesPerScrapingPass: 0, bedCleaningsPerDay: 2, secondsPerStallCleaning: 10, beddingTonnesPerHour: 1, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 0 },
-    bedding: { material: 'sawdust', kgPerStallDay: 1.5, pricePerTonne: 60, bulkDensityTonnesPerM3: 0.25, shareToManureStorage: 1 },
-    manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+    bedding: { material: 'sawdust', kgPerStallDay: 2.5, pricePerTonne: 60, bulkDensityTonnesPerM3: 0.25, shareToManureStorage: 1 },
+    manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 0, storageDays: 150, washWaterM3PerCowDay: 0.05, washWaterDiverted: false, storageNitrogenLoss: STORAGE_N_LOSS, pastureDungCredit: 0, netRainMPerYear: 0.4, freeboardM: 0.3 },
     maintenanceRate: 0.012,
     sources: {
       housedDaysPerYear: practice('a freestall herd is housed all year'),
-      lyingHoursPerDay: ref(`${TUCKER_WEARY}: 13.8 h/day on mattresses with 7.5 kg sawdust (12.3 h bare)`),
-      'health.lamenessCasesPer100Cows': ref(`${COOK}: 24.0 % lameness prevalence in mattress herds, used as cases per 100 cows per year`),
+      lyingHoursPerDay: assumed(`${TUCKER_WEARY} measured 12.3 h/day on bare mattresses and 13.8 h with 7.5 kg sawdust (read); 12.8 h for the 2.5 kg used here is a straight-line interpolation`),
+      'health.lamenessCasesPer100Cows': LAMENESS_MATTRESS_SOURCE,
       'health.mastitisCasesPer100Cows': assumed('planning figure for a top-dressed mattress'),
       'health.injuriesPer100Cows': practice('top-dressing limits hock and knee abrasions; flexible dividers give fewer injuries; the figure is an assumption'),
       'labour.scrapingPassesPerDay': practice('an automatic alley scraper cycles every one to three hours with about no labour'),
       'labour.grazingHoursPerGrazingDay': practice('no grazing days'),
-      'bedding.kgPerStallDay': practice('a light organic top-dressing on mattresses; 1.5 kg is an assumption'),
+      'bedding.kgPerStallDay': practice('a light organic top-dressing on mattresses; 2.5 kg (one of the amounts Tucker & Weary tested) is an assumption'),
       'bedding.pricePerTonne': assumed('sawdust delivered'),
       'bedding.bulkDensityTonnesPerM3': assumed('loose sawdust'),
       'bedding.shareToManureStorage': assumed('used top-dressing is scraped into the store'),
@@ -160,16 +175,16 @@ const STARTING_POINTS: Record<StartingPoint, Defaults> = {
     bed: 'deep-sand',
     manureRemoval: 'tractor-scraper',
     housedDaysPerYear: 365,
-    lyingHoursPerDay: 13.5,
-    health: { lamenessCasesPer100Cows: 11.1, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 22, mastitisCostPerCase: 250, injuriesPer100Cows: 3, injuryCostPerCase: 150, extraCullsPer100Cows: 0 },
+    lyingHoursPerDay: 13.8,
+    health: { lamenessCasesPer100Cows: SAND_LAMENESS_INCIDENCE, lamenessCostPerCase: 300, mastitisCasesPer100Cows: 22, mastitisCostPerCase: 250, injuriesPer100Cows: 3, injuryCostPerCase: 150, extraCullsPer100Cows: 0, lamenessCullsPerCase: LAMENESS_CULLS_PER_CASE },
     labour: { scrapingPassesPerDay: 3, minutesPerScrapingPass: 15, bedCleaningsPerDay: 2, secondsPerStallCleaning: 15, beddingTonnesPerHour: 4, troughCleaningsPerDay: 1, minutesPerTroughCleaning: 5, grazingHoursPerGrazingDay: 0 },
     bedding: { material: 'sand', kgPerStallDay: 23, pricePerTonne: 15, bulkDensityTonnesPerM3: 1.6, shareToManureStorage: 0.9 },
-    manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 1.5, storageDays: 150, washWaterM3PerCowDay: 0.05, netRainMPerYear: 0.4, freeboardM: 0.3 },
+    manure: { collectionEfficiency: 0.95, handlingCostPerM3: 2.5, sandExtraHandlingCostPerM3: 1.5, storageDays: 150, washWaterM3PerCowDay: 0.05, washWaterDiverted: false, storageNitrogenLoss: STORAGE_N_LOSS, pastureDungCredit: 0, netRainMPerYear: 0.4, freeboardM: 0.3 },
     maintenanceRate: 0.015,
     sources: {
       housedDaysPerYear: practice('a freestall herd is housed all year'),
-      lyingHoursPerDay: practice('deep sand is the surface cows choose most; 13.5 h/day is an assumption'),
-      'health.lamenessCasesPer100Cows': ref(`${COOK}: 11.1 % lameness prevalence in sand herds, used as cases per 100 cows per year`),
+      lyingHoursPerDay: practice(`deep sand is the surface cows choose most, so at least the best mattress figure: ${TUCKER_WEARY}, 13.8 h/day on mattresses with 7.5 kg sawdust (read); the sand figure is an assumption`),
+      'health.lamenessCasesPer100Cows': assumed(`new cases a year; ${COOK} measured 11.1 % of cows lame in sand herds against 24.0 % in mattress herds (prevalence, read), so sand is set at the same ratio of the mattress incidence`),
       'health.mastitisCasesPer100Cows': practice('deep sand keeps bacteria low; the figure is an assumption'),
       'health.injuriesPer100Cows': assumed('planning figure for sand with flexible dividers'),
       'labour.scrapingPassesPerDay': practice('tractor or skid-steer scraping two to three times a day'),
@@ -241,7 +256,7 @@ function item(
   lifeYears: number,
   replaceAtEndOfLife = true,
 ): CapitalLine {
-  return { kind: 'item', id, description, category, unit, quantity, unitCost, lifeYears, replaceAtEndOfLife, documentIds: [] };
+  return { kind: 'item', id, description, category, unit, quantity, unitCost, lifeYears, replaceAtEndOfLife, taxClass: 'economic-life', taxLifeYears: null, documentIds: [] };
 }
 
 function capitalLinesFor(startingPoint: StartingPoint, defaults: Defaults, stalls: number): { lines: CapitalLine[]; sources: Record<string, Source> } {
@@ -256,24 +271,30 @@ function capitalLinesFor(startingPoint: StartingPoint, defaults: Defaults, stall
     add(item('paddock-water', 'Paddock water system', 'water', 'lump-sum', null, 15000, 20), 'invented planning cost');
     add(item('laneways', 'Cow laneways', 'site-works', 'lump-sum', null, 20000, 20), 'invented planning cost');
   } else {
-    add(item('shell', 'Building shell', 'building-shell', 'per-m2', stalls * BARN_M2_PER_STALL, 180, 30, false), `invented cost per m², ${BARN_M2_PER_STALL} m² per stall`);
+    add(item('shell', 'Building shell', 'building-shell', 'per-m2', stalls * BARN_M2_PER_STALL, 280, 30, false), `invented cost per m² of a steel-frame farm building, ${BARN_M2_PER_STALL} m² per stall`);
     add(
       item('dividers', defaults.divider === 'flexible' ? 'Flexible stall dividers' : 'Steel stall dividers', 'stall-dividers', 'per-stall', null, defaults.divider === 'flexible' ? 160 : 120, defaults.divider === 'flexible' ? 12 : 20),
       'invented cost per stall',
     );
     if (defaults.bed === 'deep-sand') add(item('beds', 'Sand bed curbs and initial fill', 'beds', 'per-stall', null, 90, 30, false), 'invented cost per stall');
     else add(item('beds', 'Stall mattresses', 'beds', 'per-stall', null, 220, 10), 'invented cost per stall');
-    add(item('alley-floor', 'Grooved concrete alleys', 'alley-floor', 'per-m2', stalls * ALLEY_M2_PER_STALL, 40, 30, false), `invented cost per m², ${ALLEY_M2_PER_STALL} m² per stall`);
+    add(item('alley-floor', 'Grooved concrete alleys', 'alley-floor', 'per-m2', stalls * ALLEY_M2_PER_STALL, 55, 30, false), `invented cost per m², ${ALLEY_M2_PER_STALL} m² per stall`);
     if (defaults.manureRemoval === 'automatic-scraper') {
       add(item('scrapers', 'Automatic alley scrapers', 'manure-removal', 'per-item', Math.max(1, Math.ceil(stalls / STALLS_PER_AUTOMATIC_SCRAPER)), 14000, 15), 'invented cost per scraper');
     } else {
       add(item('scraper-blade', 'Tractor scraper blade', 'manure-removal', 'lump-sum', null, 4000, 10), 'invented cost');
     }
     add(item('storage', 'Manure storage', 'manure-storage', 'per-m3', null, 45, 25, false), 'invented cost per m³; volume from the sizing helper');
+    if (defaults.bed === 'deep-sand') add(item('sand-lane', 'Sand settling lane', 'manure-storage', 'lump-sum', null, 35000, 25, false), 'invented cost of a concrete lane where sand settles out before the store');
     add(item('troughs', 'Water troughs', 'water', 'per-item', null, 900, 15), 'invented cost per trough');
     add(item('ventilation', 'Ventilation and lighting', 'ventilation-lighting', 'per-stall', null, 150, 15), 'invented cost per stall');
-    add(item('site-works', 'Site works', 'site-works', 'lump-sum', null, 25000, 30, false), 'invented cost');
-    add(item('fees', 'Design and planning fees', 'fees', 'lump-sum', null, 15000, 30, false), 'invented cost');
+    add(item('feed-barrier', 'Feed barrier and feed lane', 'equipment', 'per-stall', null, 250, 20), 'invented cost per stall');
+    add(item('mixer-wagon', 'Mixer wagon for the barn ration', 'equipment', 'lump-sum', null, 45000, 12), 'invented cost');
+    add(item('feed-storage', 'Extra silage storage for year-round housing', 'equipment', 'lump-sum', null, 45000, 25, false), 'invented cost');
+    add(item('pens', 'Calving and special-needs pens', 'other', 'lump-sum', null, 30000, 25, false), 'invented cost');
+    add(item('parlour', 'Parlour units for the larger herd', 'equipment', 'lump-sum', null, 40000, 15), 'invented cost');
+    add(item('site-works', 'Site works, drainage and services', 'site-works', 'per-stall', null, 350, 30, false), 'invented cost per stall');
+    add(item('fees', 'Design and planning fees', 'fees', 'lump-sum', null, 25000, 30, false), 'invented cost');
     add({ kind: 'contingency', id: 'contingency', description: 'Contingency', rate: 0.1, lifeYears: 30 }, '10 % of the other lines');
   }
   return { lines, sources };
@@ -380,6 +401,8 @@ export function createOption(startingPoint: StartingPoint, herd: Herd, settings:
     water: { troughs, troughPerimeterM: TROUGH_PERIMETER_M, fillRateLitresPerMinute: 40 },
     bedding: { ...defaults.bedding },
     maintenanceRate: defaults.maintenanceRate,
+    insuranceRate: INSURANCE_RATE,
+    existingHousingValue: 0,
     energyLines: energyLinesFor(defaults, stalls),
     manure: { ...defaults.manure, openStorageAreaM2: Math.round(storageWithoutRain / STORE_DEPTH_M) },
     capitalLines: capital.lines,

@@ -6,6 +6,7 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { herdSchema, scenarioSchema, type Finance, type Herd, type Option, type Scenario, type ScenarioInput, type StartingPoint } from '../../shared/schema';
+import { anchoredForShocks } from '../../shared/engine/evaluate';
 import { createOption } from '../../shared/starting-points';
 
 const demoDir = fileURLToPath(new URL('../../scenarios/', import.meta.url));
@@ -42,7 +43,9 @@ const CAIRNBROOK_UNCERTAINTY: NonNullable<NonNullable<ScenarioInput['risk']>['mo
 };
 
 function scenario(farm: DemoFarm['farm'], herd: Herd, name: string, description: string, options: Option[]): Scenario {
-  return scenarioSchema.parse({
+  // The farm's existing cash is measured at these prices: write in the herd margin it holds, so a
+  // file whose prices are changed moves the existing farm's cash with the current option's margin.
+  return anchoredForShocks(scenarioSchema.parse({
     schemaVersion: 1,
     name,
     description,
@@ -54,13 +57,19 @@ function scenario(farm: DemoFarm['farm'], herd: Herd, name: string, description:
     options,
     finance: CAIRNBROOK_FINANCE,
     risk: { monteCarlo: CAIRNBROOK_UNCERTAINTY },
-  } satisfies ScenarioInput);
+  } satisfies ScenarioInput));
 }
 
-/** Cows the new barn is built for: the herd grows from 190 to 220 when it moves in. */
-const ADDED_COWS = 30;
-/** Cairnbrook's own planning figure for a mixed ration fed in the barn all year (kg/cow/day beyond the lying-time effect). */
-const BARN_FEEDING_YIELD_GAIN = 3.5;
+/** Replacement value of the old cubicle house the grazing herd winters in (EUR, invented). */
+const OLD_CUBICLE_HOUSE_VALUE = 400000;
+
+/** Cows the new barn is built for: the herd grows from 190 to 230 when it moves in (the grazing platform holds no more). */
+const ADDED_COWS = 40;
+/**
+ * Cairnbrook's own planning figure for a mixed ration fed in the barn all year against its grazing
+ * herd's 20 kg (kg/cow/day beyond the lying-time effect): about 28–29 kg in the barn.
+ */
+const BARN_FEEDING_YIELD_GAIN = 7.5;
 
 /** A freestall option sized for the enlarged herd, with its extra cows and the barn-feeding yield gain. */
 function barnOption(startingPoint: StartingPoint, herd: Herd, settings: { id: string; name?: string }): Option {
@@ -72,8 +81,18 @@ function barnOption(startingPoint: StartingPoint, herd: Herd, settings: { id: st
     sources: {
       ...option.sources,
       systemYieldAdjustment: { kind: 'assumption', note: "the farm's planning figure for a mixed ration fed in the barn all year" },
-      'herdChange.addedCows': { kind: 'user', note: 'the barn is built for 220 cows; the herd grows by 30 heifers of its own rearing' },
+      'herdChange.addedCows': { kind: 'user', note: `the barn is built for ${herd.cows + ADDED_COWS} cows; the herd grows by ${ADDED_COWS} heifers of its own rearing` },
     },
+  };
+}
+
+/** Cairnbrook as it is: grazing with winter housing in the old cubicle house, which still needs upkeep and insurance. */
+function grazingToday(herd: Herd): Option {
+  const option = createOption('grazing', herd, { id: 'grazing', name: 'Grazing as today', current: true });
+  return {
+    ...option,
+    existingHousingValue: OLD_CUBICLE_HOUSE_VALUE,
+    sources: { ...option.sources, existingHousingValue: { kind: 'assumption', note: "the farm's estimate of what it would cost to rebuild the old cubicle house; it carries the maintenance and insurance rates" } },
   };
 }
 
@@ -85,7 +104,7 @@ function fiveSystems(farm: DemoFarm['farm'], herd: Herd): Scenario {
     'Stay on grass or build: five systems',
     'Cairnbrook today (grazing with winter housing in the old cubicle house) against a new freestall barn with each of the four stall and bed systems.',
     [
-      createOption('grazing', herd, { id: 'grazing', name: 'Grazing as today', current: true }),
+      grazingToday(herd),
       barnOption('steel-freestall', herd, { id: 'steel-freestall' }),
       barnOption('flexible-freestall', herd, { id: 'flexible-freestall' }),
       barnOption('mattress-freestall', herd, { id: 'mattress-freestall' }),
@@ -94,7 +113,7 @@ function fiveSystems(farm: DemoFarm['farm'], herd: Herd): Scenario {
   );
 }
 
-/** A new barn for 220 cows either way: top-dressed mattresses (current) or deep sand. Both carry the barn's capital. */
+/** A new barn for 230 cows either way: top-dressed mattresses (current) or deep sand. Both carry the barn's capital. */
 function mattressOrSand(farm: DemoFarm['farm'], herd: Herd): Scenario {
   const mattress = { ...barnOption('mattress-freestall', herd, { id: 'mattress', name: 'New barn, mattresses' }), current: true };
   return scenario(

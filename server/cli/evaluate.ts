@@ -58,32 +58,58 @@ const years = (value: number | null, reason?: string): string =>
 const irrKindNote = (metrics: OptionResult | IncrementalResult): string =>
   metrics.irrKind === 'borrowing' ? ' (a borrowing rate: saves first, costs later; lower is better)' : '';
 
-function metricLines(metrics: OptionResult | IncrementalResult, money: (amount: number) => string, indent: string): string[] {
-  return [
-    `${indent}NPV             ${money(metrics.npv)}`,
-    `${indent}IRR             ${percent(metrics.irr, metrics.irrReason)}${irrKindNote(metrics)}`,
-    `${indent}Payback         ${years(metrics.paybackYears, metrics.paybackReason)}`,
-  ];
-}
+const ratio = (value: number | null | undefined): string => (value === null || value === undefined ? 'n/a' : value.toFixed(2));
 
-/** Readable per-option summary: NPV, IRR, payback, lowest coverage, and the change against the current option. */
+/**
+ * Readable summary that leads with the change against the current option (NPV, IRR, MIRR, the
+ * paybacks, coverage beside project coverage, the lender's stress) and shows each option's own
+ * flows only as the whole herd's margin.
+ */
 function formatSummary(scenario: Scenario, results: ScenarioResults): string {
   const money = moneyFormatter(scenario.locale, results.currency);
   const threshold = scenario.finance.coverageThreshold;
-  const lines = [`${scenario.name} — ${results.options.length} option(s), ${results.horizonYears} years, ${results.currency}`, ''];
-  for (const option of results.options) {
-    lines.push(`${option.name}${option.current ? ' (current option)' : ''}`);
-    lines.push(...metricLines(option, money, '  '));
+  const current = results.options.find((option) => option.current);
+  const lines = [
+    `${scenario.name} — ${results.options.length} option(s), ${results.horizonYears} years, ${results.currency}`,
+    `Every option is measured against the current option, ${current?.name ?? 'the current option'}.`,
+    '',
+  ];
+  const coverageLine = (option: OptionResult): string => {
     const lowest = option.lowestCoverage;
+    const project = option.lowestProjectCoverage;
+    const wholeFarm = lowest === null ? 'n/a (no debt service)' : `${lowest.value.toFixed(2)} in year ${lowest.year}${lowest.value < threshold ? ` — below the lender's ${threshold.toFixed(2)}` : ''}`;
+    return `  Lowest coverage   whole farm ${wholeFarm}; project ${project === null ? 'n/a' : `${project.value.toFixed(2)} in year ${project.year}`}`;
+  };
+  for (const option of results.options) {
+    const change = option.incremental;
+    if (!change) continue;
+    lines.push(`${option.name} — the change against ${current?.name ?? 'the current option'}`);
+    lines.push(`  NPV of the change ${money(change.npv)}`);
+    lines.push(`  IRR               ${percent(change.irr, change.irrReason)}${irrKindNote(change)}`);
+    lines.push(`  MIRR              ${percent(change.mirr)}`);
+    lines.push(`  Payback           ${years(change.paybackYears, change.paybackReason)} (with the year-${results.horizonYears} salvage and herd value)`);
+    const recovered = change.operationsRecoveredShare;
     lines.push(
-      `  Lowest coverage ${lowest === null ? 'n/a (no debt service)' : `${lowest.value.toFixed(2)} in year ${lowest.year}${lowest.value < threshold ? ` — below the lender's ${threshold.toFixed(2)}` : ''}`}`,
+      `  From operations   ${years(change.paybackFromOperationsYears, change.paybackFromOperationsReason)}${recovered !== null && change.paybackFromOperationsYears === null ? ` (operations recover ${Math.round(recovered * 100)} % of the outlay)` : ''}`,
     );
-    if (option.incremental) {
-      lines.push('  Against the current option:');
-      lines.push(...metricLines(option.incremental, money, '    '));
-      const breakEven = option.incremental.breakEvenMilkPrice;
-      lines.push(`    Break-even milk price ${breakEven === null ? 'none in range' : `${breakEven.toFixed(3)} ${results.currency} per kg`}`);
+    lines.push(coverageLine(option));
+    const breakEven = change.breakEvenMilkPrice;
+    lines.push(`  Break-even milk price ${breakEven === null ? 'none in range' : `${breakEven.toFixed(3)} ${results.currency} per kg`} (NPV of the change = 0)`);
+    const cover = option.breakEvenMilkPriceForCoverage;
+    lines.push(`  Milk price for whole-farm coverage 1.00: ${cover.atOne === null ? 'none in range' : cover.atOne.toFixed(3)}; ${threshold.toFixed(2)}: ${cover.atThreshold === null ? 'none in range' : cover.atThreshold.toFixed(3)} ${results.currency} per kg`);
+    lines.push("  Lender's stress   lowest whole farm / project coverage, NPV of the change, years below threshold");
+    for (const row of option.stress) {
+      lines.push(`    ${row.label.padEnd(46)} ${ratio(row.lowestCoverage).padStart(6)} ${ratio(row.lowestProjectCoverage).padStart(6)} ${(row.npvAgainstCurrent === null ? 'n/a' : money(row.npvAgainstCurrent)).padStart(13)} ${String(row.yearsBelowThreshold).padStart(3)}`);
     }
+    if (option.sourcesAndUses.termPastLifeWarning) lines.push(`  Warning: ${option.sourcesAndUses.termPastLifeWarning}`);
+    lines.push(`  Whole herd's margin under this option (not a return on the barn): NPV ${money(option.npv)}`);
+    lines.push('');
+  }
+  if (current) {
+    lines.push(`${current.name} (current option)`);
+    lines.push(coverageLine(current));
+    if (results.currentOptionCarriesCapital) lines.push('  The current option itself buys new capital: its loan and its margin are both in its coverage.');
+    lines.push(`  Whole herd's margin under this option: NPV ${money(current.npv)}`);
     lines.push('');
   }
   return lines.join('\n');

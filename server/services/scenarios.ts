@@ -97,11 +97,16 @@ export interface ScenarioListItem {
   updatedBy: string | null;
 }
 
-/** Option count and the option with the highest NPV (currency), for the list. */
+/**
+ * Option count and the best option by the NPV of its change against the current option (currency;
+ * the current option itself counts 0, staying as today), for the list: never by an option's own
+ * whole-herd flows, which rank barns by the herd's margin rather than by what building changes.
+ */
 export function summarise(scenario: Scenario, results: ScenarioResults): ScenarioSummary {
   let best: ScenarioSummary['best'] = null;
   for (const option of results.options) {
-    if (best === null || option.npv > best.npv) best = { optionId: option.id, name: option.name, npv: option.npv };
+    const npv = option.incremental?.npv ?? 0;
+    if (best === null || npv > best.npv) best = { optionId: option.id, name: option.name, npv };
   }
   return { optionCount: scenario.options.length, best };
 }

@@ -33,6 +33,7 @@ const NAMED_PATHS: Readonly<Record<string, string>> = {
   'herd.growth.milkPrice': INPUT_NAMES.milkPriceGrowth,
   'herd.existingCashForDebtServicePerYear': INPUT_NAMES.existingCash,
   'herd.existingDebtPaymentsPerYear': INPUT_NAMES.existingDebt,
+  'herd.existingCashHerdMarginPerYear': INPUT_NAMES.herdMarginInExistingCash,
 };
 
 /** Inputs that only restructure the workbook (rows of the schedule): named but fixed by the export. */
@@ -213,9 +214,16 @@ export function addAssumptionsSheet(context: WorkbookContext): ExcelJS.Worksheet
     () => 'Scenario setting',
   );
   section('Farm, herd and markets');
-  write(flattenInputs(shape.herd as SchemaNode, scenario.herd, 'herd', currency), (row) =>
-    row.path.startsWith('herd.manureExcretion') ? 'Reference: ASABE D384.2 Table 1 (from memory) unless the farm changed it' : farmFigure(),
+  // A herd margin not entered is the current option's year-1 cash for debt service: the cell holds what the engine used.
+  const herdMarginEntered = scenario.herd.existingCashHerdMarginPerYear !== null;
+  const herdRows = flattenInputs(shape.herd as SchemaNode, scenario.herd, 'herd', currency).map((row) =>
+    row.path === 'herd.existingCashHerdMarginPerYear' && !herdMarginEntered ? { ...row, value: context.results.existingFarm.herdMarginInExistingCash } : row,
   );
+  write(herdRows, (row) => {
+    if (row.path.startsWith('herd.manureExcretion')) return 'Reference: ASABE D384.2 Table 1 (from memory) unless the farm changed it';
+    if (row.path === 'herd.existingCashHerdMarginPerYear' && !herdMarginEntered) return "Not entered: the current option's year-1 cash for debt service as projected";
+    return farmFigure();
+  });
   section('Finance, discounting and tax');
   write(flattenInputs(shape.finance as SchemaNode, scenario.finance, 'finance', currency), farmFigure);
   section('Risk settings');
@@ -236,6 +244,24 @@ export function addAssumptionsSheet(context: WorkbookContext): ExcelJS.Worksheet
   setupPrint(ws, { lastRow: r - 1, lastColumn: COLUMNS.length - 1, titleRows: `${headerRow}:${headerRow}` });
   ws.eachRow((row) => row.eachCell((cell) => (cell.font ??= BASE_FONT)));
   return ws;
+}
+
+/**
+ * How many of the options' inputs carry an 'assumption' source tag (an invented planning figure
+ * the farm should replace), of all option inputs, for the cover.
+ */
+export function assumptionShare(scenario: WorkbookContext['scenario']): { assumed: number; total: number } {
+  const shape = (scenarioSchema as unknown as SchemaNode).shape ?? {};
+  const optionSchema = ((shape.options as SchemaNode).def.element ?? (shape.options as SchemaNode)) as SchemaNode;
+  let assumed = 0;
+  let total = 0;
+  for (const option of scenario.options) {
+    for (const row of flattenInputs(optionSchema, option, '', scenario.currency)) {
+      total++;
+      if (optionSource(option, row.path)?.kind === 'assumption') assumed++;
+    }
+  }
+  return { assumed, total };
 }
 
 /** Source tag of an option field: exact path, else the nearest parent path that has one. */

@@ -4,6 +4,7 @@
  */
 import type { Writable } from 'node:stream';
 import ExcelJS from 'exceljs';
+import { resolvedGrowth } from '../../shared/engine/growth.js';
 import type { ScenarioResults } from '../../shared/engine/results.js';
 import type { Scenario } from '../../shared/schema/index.js';
 import { addAssumptionsSheet, ASSUMPTIONS_SHEET } from './assumptions.js';
@@ -15,6 +16,7 @@ import { addCoverageSheet, COVERAGE_SHEET } from './coverage.js';
 import { currencyFormat } from './layout.js';
 import { addLoanSheets, LOAN_BY_YEAR_SHEET, LOAN_PAYMENTS_SHEET } from './loan.js';
 import { addRiskSheet, RISK_SHEET, type WorkbookRisk } from './risk.js';
+import { addStressSheet, STRESS_SHEET } from './stress.js';
 
 export type { WorkbookRisk } from './risk.js';
 
@@ -37,7 +39,9 @@ export interface LenderWorkbookInput {
  * currency (nominal); formulas carry the engine's values as cached results.
  */
 export async function buildLenderWorkbook(input: LenderWorkbookInput): Promise<ExcelJS.Workbook> {
-  const { scenario, results } = input;
+  const { results } = input;
+  // The sheets show and compute with every growth rate the engine used, general inflation where the farm entered none.
+  const scenario: Scenario = { ...input.scenario, herd: { ...input.scenario.herd, growth: resolvedGrowth(input.scenario.herd.growth) } };
   if (results.options.length !== scenario.options.length) {
     throw new RangeError(`results: ${results.options.length} option result(s) for ${scenario.options.length} option(s); evaluate the same scenario`);
   }
@@ -75,6 +79,7 @@ export async function buildLenderWorkbook(input: LenderWorkbookInput): Promise<E
   for (const layout of options) addCashFlowSheet(context, layout);
   const loans = addLoanSheets(context);
   addCoverageSheet(context, loans);
+  addStressSheet(context);
   addRiskSheet(context, input.risk);
   fillCoverSheet(cover, context, {
     farm: input.farm,
@@ -83,12 +88,13 @@ export async function buildLenderWorkbook(input: LenderWorkbookInput): Promise<E
     created: input.created,
     sheets: [
       { name: ASSUMPTIONS_SHEET, what: 'Every input with its unit and source; the named inputs the formulas use.' },
-      { name: COMPARISON_SHEET, what: 'The options side by side: capital, financing, NPV, IRR, payback, coverage, against the current option.' },
+      { name: COMPARISON_SHEET, what: "The change against the current option first (NPV, IRR, MIRR, both paybacks), coverage, capital and financing; the whole herd's margin last." },
       ...options.map((o) => ({ name: o.cashFlowSheet, what: `Yearly cash flow, discounting and metrics of "${o.result.name}".` })),
       { name: LOAN_BY_YEAR_SHEET, what: 'Loan of each option per year: payments, interest, principal, closing balance.' },
       { name: LOAN_PAYMENTS_SHEET, what: 'The same loan payment by payment (level payment via PMT()).' },
       { name: COVERAGE_SHEET, what: 'Project and whole-farm debt-service coverage per year, against the lender threshold.' },
-      { name: RISK_SHEET, what: 'Sensitivity of NPV to each key input and the Monte Carlo percentiles.' },
+      { name: STRESS_SHEET, what: "The lender's stress test per option (milk −10 % and −20 %, interest +2 points, feed +10 %, capital +15 %, milk −10 % with interest +2) and the sources and uses of funds." },
+      { name: RISK_SHEET, what: 'Sensitivity of the NPV of the change to each key input; the Monte Carlo chance that the change loses money and its percentiles.' },
     ],
   });
   return workbook;

@@ -4,6 +4,7 @@
  */
 import type ExcelJS from 'exceljs';
 import type { YearLine } from '../../shared/engine/results.js';
+import { resolvedGrowth } from '../../shared/engine/growth.js';
 import { INPUT_NAMES as N, defineName, optionName, type OptionLayout, type WorkbookContext } from './context.js';
 import {
   address,
@@ -134,7 +135,8 @@ export const METRIC_NAME: Readonly<Record<MetricKey, string>> = {
 /** Engine milk price per kg in year t: today's price grown year by year, as the projection compounds it. */
 function grownMilkPrice(context: WorkbookContext, t: number): number {
   let price = context.scenario.herd.milkPricePerKg;
-  for (let y = 1; y <= t; y++) price *= 1 + context.scenario.herd.growth.milkPrice;
+  const growth = resolvedGrowth(context.scenario.herd.growth).milkPrice;
+  for (let y = 1; y <= t; y++) price *= 1 + growth;
   return price;
 }
 

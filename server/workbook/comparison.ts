@@ -52,7 +52,25 @@ export function addComparisonSheet(context: WorkbookContext): ExcelJS.Worksheet 
   styleHeaderRow(ws, headerRow, 1, options.length + 1);
   ws.getRow(headerRow).height = 28;
 
+  const na = (o: OptionLayout, value: number | null | undefined, fallback = 'n/a'): Cached => (o.result.current ? 'n/a' : (value ?? fallback));
   const rows: (ComparisonRow | string)[] = [
+    'The change against the current option (what the decision turns on)',
+    { label: 'NPV of the change', format: 'money', formula: (o) => (o.result.current ? null : metricRef(o, 'incrementalNpv')), value: (o) => na(o, o.result.incremental?.npv), emphasis: true },
+    { label: 'Rank by NPV of the change (1 = best)', format: 'count', formula: () => 'RANK', value: () => null },
+    { label: 'IRR of the change', format: 'percent', formula: (o) => (o.result.current ? null : metricRef(o, 'incrementalIrr')), value: (o) => na(o, o.result.incremental?.irr) },
+    { label: 'MIRR of the change', format: 'percent', value: (o) => na(o, o.result.incremental?.mirr) },
+    { label: 'Payback of the change (years, with the horizon values)', format: 'years', value: (o) => na(o, o.result.incremental?.paybackYears, 'not reached') },
+    { label: 'Payback from operations (years, without salvage and herd value)', format: 'years', value: (o) => na(o, o.result.incremental?.paybackFromOperationsYears, 'not reached') },
+    { label: 'Share of the outlay operations recover', format: 'percent', value: (o) => na(o, o.result.incremental?.operationsRecoveredShare) },
+    { label: 'Break-even milk price (per kg)', format: 'text', value: (o) => (o.result.current ? 'n/a' : (o.result.incremental?.breakEvenMilkPrice ?? 'none in range')) },
+    { label: 'Break-even lying-time response (kg/cow/day per h)', format: 'text', value: (o) => (o.result.current ? 'n/a' : (o.result.incremental?.breakEvenLyingResponse ?? (o.result.incremental?.breakEvenLyingResponseReason === 'same-lying-time' ? 'same lying time' : 'none in range'))) },
+    'Coverage',
+    { label: 'Lowest whole-farm coverage', format: 'ratio', formula: (o) => optionName(o, 'LowestCoverage'), value: (o) => o.result.lowestCoverage?.value ?? '' },
+    { label: 'Year of lowest coverage', format: 'count', formula: (o) => optionName(o, 'LowestCoverageYear'), value: (o) => o.result.lowestCoverage?.year ?? '' },
+    { label: 'Lowest project coverage (the change)', format: 'ratio', value: (o) => o.result.lowestProjectCoverage?.value ?? 'n/a' },
+    { label: 'Years below the coverage threshold', format: 'count', formula: (o) => optionName(o, 'YearsBelowThreshold'), value: (o) => o.result.yearsBelowCoverageThreshold.length },
+    { label: 'Milk price for whole-farm coverage 1.00 (per kg)', format: 'text', value: (o) => o.result.breakEvenMilkPriceForCoverage.atOne ?? 'none in range' },
+    { label: 'Milk price for whole-farm coverage at the threshold (per kg)', format: 'text', value: (o) => o.result.breakEvenMilkPriceForCoverage.atThreshold ?? 'none in range' },
     'Capital and financing',
     { label: 'Stalls', format: 'count', value: (o) => o.result.stalls },
     { label: 'Capital at year 0', format: 'moneyWhole', value: (o) => o.result.capitalTotal },
@@ -60,28 +78,16 @@ export function addComparisonSheet(context: WorkbookContext): ExcelJS.Worksheet 
     { label: 'Grants', format: 'moneyWhole', value: (o) => o.result.financing.grants },
     { label: 'Equity', format: 'moneyWhole', value: (o) => o.result.financing.equity },
     { label: 'Loan', format: 'moneyWhole', value: (o) => o.result.financing.loanAmount },
-    'Results (live)',
-    { label: 'NPV at the discount rate', format: 'money', formula: (o) => metricRef(o, 'npv'), value: (o) => o.result.npv, emphasis: true },
-    { label: 'Rank by NPV (1 = highest)', format: 'count', formula: () => 'RANK', value: () => null },
-    { label: 'IRR', format: 'percent', formula: (o) => metricRef(o, 'irr'), value: (o) => o.result.irr ?? 'n/a' },
-    { label: 'MIRR', format: 'percent', formula: (o) => metricRef(o, 'mirr'), value: (o) => o.result.mirr ?? 'n/a' },
-    { label: 'Simple payback (years)', format: 'years', formula: (o) => metricRef(o, 'payback'), value: (o) => o.result.paybackYears ?? 'n/a' },
-    { label: 'Discounted payback (years)', format: 'years', formula: (o) => metricRef(o, 'discountedPayback'), value: (o) => o.result.discountedPaybackYears ?? 'n/a' },
-    { label: 'Profitability index', format: 'ratio', formula: (o) => metricRef(o, 'profitabilityIndex'), value: (o) => o.result.profitabilityIndex ?? 'n/a' },
-    { label: 'Lowest whole-farm coverage', format: 'ratio', formula: (o) => optionName(o, 'LowestCoverage'), value: (o) => o.result.lowestCoverage?.value ?? '' },
-    { label: 'Year of lowest coverage', format: 'count', formula: (o) => optionName(o, 'LowestCoverageYear'), value: (o) => o.result.lowestCoverage?.year ?? '' },
-    { label: 'Years below the coverage threshold', format: 'count', formula: (o) => optionName(o, 'YearsBelowThreshold'), value: (o) => o.result.yearsBelowCoverageThreshold.length },
-    'Against the current option',
-    { label: 'Incremental NPV', format: 'money', formula: (o) => (o.result.current ? null : metricRef(o, 'incrementalNpv')), value: (o) => o.result.incremental?.npv ?? 'n/a', emphasis: true },
-    { label: 'Incremental IRR', format: 'percent', formula: (o) => (o.result.current ? null : metricRef(o, 'incrementalIrr')), value: (o) => (o.result.current ? 'n/a' : (o.result.incremental?.irr ?? 'n/a')) },
-    { label: 'Break-even milk price (per kg)', format: 'text', value: (o) => (o.result.current ? 'n/a' : (o.result.incremental?.breakEvenMilkPrice ?? 'none in range')) },
-    { label: 'Break-even lying-time response (kg/cow/day per h)', format: 'text', value: (o) => (o.result.current ? 'n/a' : (o.result.incremental?.breakEvenLyingResponse ?? (o.result.incremental?.breakEvenLyingResponseReason === 'same-lying-time' ? 'same lying time' : 'none in range'))) },
     { label: 'Equivalent annual capital cost per stall', format: 'money', value: (o) => o.result.equivalentAnnualCostPerStall ?? 'n/a' },
+    "The whole herd's margin under each option (not a return on the barn)",
+    { label: "NPV of the whole herd's margin", format: 'money', formula: (o) => metricRef(o, 'npv'), value: (o) => o.result.npv },
+    { label: "IRR of the whole herd's margin", format: 'percent', formula: (o) => metricRef(o, 'irr'), value: (o) => o.result.irr ?? 'n/a' },
   ];
 
   let r = headerRow + 1;
   let npvRow = 0;
-  const sortedNpvs = options.map((o) => o.result.npv).sort((a, b) => b - a);
+  const candidates = options.filter((o) => !o.result.current);
+  const sortedNpvs = candidates.map((o) => o.result.incremental?.npv ?? 0).sort((a, b) => b - a);
   for (const spec of rows) {
     if (typeof spec === 'string') {
       r++;
@@ -91,15 +97,18 @@ export function addComparisonSheet(context: WorkbookContext): ExcelJS.Worksheet 
       continue;
     }
     ws.getCell(r, 1).value = spec.label;
-    if (spec.label.startsWith('NPV')) npvRow = r;
+    if (spec.label === 'NPV of the change') npvRow = r;
     options.forEach((layout, i) => {
       const cell = ws.getCell(r, i + 2);
       cell.numFmt = formatOf(spec.format, context);
       cell.alignment = { horizontal: 'right' };
       const formula = spec.formula?.(layout) ?? null;
-      if (formula === 'RANK') {
+      if (formula === 'RANK' && layout.result.current) {
+        cell.value = 'n/a';
+      } else if (formula === 'RANK') {
+        // RANK skips the current option's text cell: only the changes are ranked.
         const npvRange = `${address(npvRow, 2, true)}:${address(npvRow, options.length + 1, true)}`;
-        setFormula(cell, `RANK(${address(npvRow, i + 2)},${npvRange})`, sortedNpvs.indexOf(layout.result.npv) + 1);
+        setFormula(cell, `RANK(${address(npvRow, i + 2)},${npvRange})`, sortedNpvs.indexOf(layout.result.incremental?.npv ?? 0) + 1);
       } else if (formula === null) {
         const value = spec.value(layout);
         cell.value = typeof value === 'number' && spec.format === 'text' ? Number(value.toFixed(4)) : (value ?? '');
@@ -112,7 +121,7 @@ export function addComparisonSheet(context: WorkbookContext): ExcelJS.Worksheet 
   }
   r++;
   const note = ws.getCell(r, 1);
-  note.value = `Discount rate, interest rate and coverage threshold are the named cells ${N.discountRate}, ${N.interestRate} and ${N.coverageThreshold} on Assumptions. Break-even figures are Byrecast engine values (a root search, not a formula). n/a = not defined or not within the horizon; see the option's sheet for the reason.`;
+  note.value = `Discount rate, interest rate and coverage threshold are the named cells ${N.discountRate}, ${N.interestRate} and ${N.coverageThreshold} on Assumptions. Break-even figures, the paybacks of the change and project coverage here are Byrecast engine values (root searches and the change's own series); the stress figures are on the Stress sheet. n/a = not defined or not within the horizon; see the option's sheet for the reason.`;
   styleNote(note);
 
   ws.getColumn(1).width = 44;

@@ -34,6 +34,7 @@ export const INPUT_NAMES = {
   milkPriceGrowth: 'MilkPriceGrowth',
   existingCash: 'ExistingCashForDebtService',
   existingDebt: 'ExistingDebtPayments',
+  herdMarginInExistingCash: 'HerdMarginInExistingCash',
 } as const;
 
 /** Defined name of one option's key cell or row, e.g. optionName(2, 'NPV') → 'Opt2_NPV'. */

@@ -1,16 +1,19 @@
 /** The cover: who and what the workbook is about, how to read it, and the product's cautions. */
 import type ExcelJS from 'exceljs';
+import { OPTION_CAUTIONS } from '../../shared/cautions.js';
+import { assumptionShare } from './assumptions.js';
 import { INPUT_NAMES as N, type WorkbookContext } from './context.js';
 import { BASE_FONT, COLOURS, fitWrappedRow, setupPrint, styleSection, styleTotal } from './layout.js';
 
 export const COVER_SHEET = 'Cover';
 
-/** The cautions Byrecast shows everywhere (product brief), in the order it lists them. */
+/** The cautions Byrecast shows everywhere (docs/product.md), in the order it lists them. */
 export const CAUTIONS = [
   'Results are planning estimates, not financial, legal, tax, engineering or veterinary advice.',
   'Manure storage and agitation release toxic and explosive gases (hydrogen sulfide, methane): never enter a manure pit or closed space; keep people and animals away while agitating.',
   'Building, stall and storage dimensions must follow local building codes, animal-welfare rules and a qualified designer; published guidance is a starting point.',
   'Manure application must follow the farm\'s nutrient management plan and local rules.',
+  ...Object.values(OPTION_CAUTIONS),
 ] as const;
 
 export interface CoverDetails {
@@ -54,6 +57,30 @@ export function fillCoverSheet(ws: ExcelJS.Worksheet, context: WorkbookContext, 
   line('Currency', `${context.results.currency}, nominal (inputs in today's money, grown at their own rates)`);
   line('Horizon', `${context.horizon} operating years after year 0 (the investment at the end of construction); flows at the end of each year`);
   line('Options', context.options.map((o) => `${o.result.name}${o.result.current ? ' (current option, the baseline)' : ''}`).join('; '));
+  const share = assumptionShare(scenario);
+  if (share.total > 0) {
+    line('Assumptions', `${Math.round((share.assumed / share.total) * 100)} % of the options' inputs (${share.assumed} of ${share.total}) are tagged as assumptions: planning figures to replace with the farm's own or a quote (see Assumptions, column Source)`);
+  }
+
+  // What the decision turns on comes first: each option's change against the current option, stressed.
+  r++;
+  ws.getCell(r, 1).value = 'The change against the current option';
+  styleSection(ws.getCell(r, 1));
+  r++;
+  const whole = new Intl.NumberFormat(scenario.locale, { style: 'currency', currency: context.results.currency, maximumFractionDigits: 0 });
+  const threshold = scenario.finance.coverageThreshold;
+  for (const { result } of context.options) {
+    const change = result.incremental;
+    if (!change) continue;
+    const payback = (years: number | null) => (years === null ? 'not reached' : `${years.toFixed(1)} years`);
+    const milk10 = result.stress.find((row) => row.id === 'milk-10');
+    const lowest = result.lowestCoverage;
+    line(
+      result.name,
+      `NPV of the change ${whole.format(change.npv)}; payback ${payback(change.paybackYears)} with the year-${context.horizon} salvage and herd value, ${payback(change.paybackFromOperationsYears)} from operations alone; ` +
+        `lowest whole-farm coverage ${lowest ? lowest.value.toFixed(2) : 'n/a'} (threshold ${threshold.toFixed(2)}), ${milk10?.lowestCoverage != null ? milk10.lowestCoverage.toFixed(2) : 'n/a'} with milk −10 % (Stress sheet).`,
+    );
+  }
 
   r++;
   ws.getCell(r, 1).value = 'Cautions';

@@ -1,7 +1,8 @@
 /**
  * Debt-service coverage per year and option, as live formulas: project coverage = change in
- * cash available for debt service against the current option ÷ this loan's principal + interest;
- * whole-farm coverage = (existing farm cash + that change) ÷ (existing debt payments + this loan's P + I).
+ * cash available for debt service against the current option ÷ the change in principal + interest;
+ * whole-farm coverage = (existing farm cash in year t + that change) ÷ (existing debt payments in
+ * year t + this loan's P + I), the existing farm's cash moving with the current option's margin.
  */
 import type ExcelJS from 'exceljs';
 import { COVERAGE_TIE } from '../../shared/engine/coverage.js';
@@ -58,7 +59,7 @@ export function addCoverageSheet(context: WorkbookContext, loans: Map<number, Lo
   let r = HEADER_ROW + 1;
   const currentCash = (t: number) => `${quoteSheet(context.current.cashFlowSheet)}!${address(CASH_FLOW_ROW.cashForDebtService ?? 0, cashFlowYearColumn(t))}`;
   for (const layout of context.options) {
-    r = writeOptionBlock(ws, context, layout, loans.get(layout.number), r, currentCash, { lowestColumn, lowestYearColumn, belowColumn }) + 1;
+    r = writeOptionBlock(ws, context, layout, { own: loans.get(layout.number), current: loans.get(context.current.number) }, r, currentCash, { lowestColumn, lowestYearColumn, belowColumn }) + 1;
   }
 
   ws.getColumn(1).width = 40;
@@ -78,6 +79,12 @@ export function addCoverageSheet(context: WorkbookContext, loans: Map<number, Lo
   return ws;
 }
 
+/** The loan-by-year sheet's payment cell of year t, or null when that option has no loan. */
+function loanPayment(loan: LoanYearRows | undefined, t: number): string | null {
+  const row = loan?.yearRow(t);
+  return loan && row !== undefined ? `${quoteSheet(LOAN_BY_YEAR_SHEET)}!${address(row, loan.paymentColumn)}` : null;
+}
+
 interface SummaryColumns {
   lowestColumn: number;
   lowestYearColumn: number;
@@ -88,7 +95,7 @@ function writeOptionBlock(
   ws: ExcelJS.Worksheet,
   context: WorkbookContext,
   layout: OptionLayout,
-  loan: LoanYearRows | undefined,
+  loans: { own: LoanYearRows | undefined; current: LoanYearRows | undefined },
   startRow: number,
   currentCash: (t: number) => string,
   columns: SummaryColumns,
@@ -114,13 +121,14 @@ function writeOptionBlock(
     ['change', 'Change against the current option'],
     ['debtService', 'Debt service on this loan (P + I)'],
     ['project', 'Project coverage (ratio)'],
-    ['existingCash', 'Existing farm cash for debt service'],
+    ['existingCash', 'Existing farm cash for debt service (moves with the current option)'],
     ['existingDebt', 'Existing debt payments'],
     ['wholeFarm', 'Whole-farm coverage (ratio)'],
   ];
   for (const [key, label] of labels) ws.getCell(rows[key], 1).value = label;
 
-  const { existingCashForDebtServicePerYear: existingCash, existingDebtPaymentsPerYear: existingDebt } = context.scenario.herd;
+  const { existingFarm } = context.results;
+  const runningDebt = context.scenario.herd.existingDebtPaymentsPerYear;
   for (let t = 1; t <= horizon; t++) {
     const c = yearColumn(t);
     const at = (key: keyof typeof rows) => address(rows[key], c);
@@ -135,16 +143,24 @@ function writeOptionBlock(
     setFormula(ws.getCell(rows.cash, c), `${quoteSheet(layout.cashFlowSheet)}!${address(CASH_FLOW_ROW.cashForDebtService ?? 0, cashFlowYearColumn(t))}`, cash);
     if (isCurrent) ws.getCell(rows.change, c).value = 0;
     else setFormula(ws.getCell(rows.change, c), `${at('cash')}-${currentCash(t)}`, change);
-    const loanRow = loan?.yearRow(t);
-    if (loan && loanRow !== undefined) setFormula(ws.getCell(rows.debtService, c), `${quoteSheet(LOAN_BY_YEAR_SHEET)}!${address(loanRow, loan.paymentColumn)}`, debtService);
+    const ownPayment = loanPayment(loans.own, t);
+    if (ownPayment) setFormula(ws.getCell(rows.debtService, c), ownPayment, debtService);
     else ws.getCell(rows.debtService, c).value = 0;
     if (isCurrent) ws.getCell(rows.project, c).value = '';
-    else setFormula(ws.getCell(rows.project, c), `IF(${at('debtService')}>0,${at('change')}/${at('debtService')},"")`, coverage?.project ?? null);
-    setFormula(ws.getCell(rows.existingCash, c), N.existingCash, existingCash);
-    setFormula(ws.getCell(rows.existingDebt, c), N.existingDebt, existingDebt);
+    else {
+      // The change's debt service: this loan less the current option's own loan, if it has one.
+      const currentPayment = loanPayment(loans.current, t);
+      const due = currentPayment ? `(${at('debtService')}-${currentPayment})` : at('debtService');
+      setFormula(ws.getCell(rows.project, c), `IF(${due}>0,${at('change')}/${due},"")`, coverage?.project ?? null);
+    }
+    // The existing farm's cash moves with the current option's margin: the figure entered − the herd margin it holds + the current option's cash this year.
+    setFormula(ws.getCell(rows.existingCash, c), `${N.existingCash}-${N.herdMarginInExistingCash}+${currentCash(t)}`, existingFarm.cashForDebtServiceByYear[t] ?? 0);
+    // Listed existing loans add their payment up to their last year.
+    const endingLoans = (existingFarm.debtPaymentsByYear[t] ?? 0) - runningDebt;
+    setFormula(ws.getCell(rows.existingDebt, c), endingLoans !== 0 ? `${N.existingDebt}+${endingLoans}` : N.existingDebt, existingFarm.debtPaymentsByYear[t] ?? 0);
     setFormula(
       ws.getCell(rows.wholeFarm, c),
-      `IF(${at('existingDebt')}+${at('debtService')}>0,(${at('existingCash')}+${at('change')})/(${at('existingDebt')}+${at('debtService')}),"")`,
+      `IF(${at('existingDebt')}+${at('debtService')}>=0.005,(${at('existingCash')}+${at('change')})/(${at('existingDebt')}+${at('debtService')}),"")`,
       coverage?.wholeFarm ?? null,
     );
     for (const key of ['cash', 'change', 'debtService', 'existingCash', 'existingDebt'] as const) ws.getCell(rows[key], c).numFmt = money;

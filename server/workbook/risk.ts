@@ -5,7 +5,7 @@
 import type ExcelJS from 'exceljs';
 import type { MonteCarloResult } from '../../shared/engine/risk/monte-carlo.js';
 import type { SensitivityResult } from '../../shared/engine/risk/sensitivity.js';
-import type { RiskInputKey } from '../../shared/schema/index.js';
+import { RISK_INPUT_LABELS } from '../../shared/schema/index.js';
 import type { WorkbookContext } from './context.js';
 import { BASE_FONT, freeze, PERCENT_FORMAT, setupPrint, styleHeaderRow, styleNote, styleSection, writeTitle } from './layout.js';
 
@@ -17,16 +17,7 @@ export interface WorkbookRisk {
   monteCarlo?: MonteCarloResult;
 }
 
-const INPUT_LABELS: Record<RiskInputKey, string> = {
-  milkPrice: 'Milk price',
-  yieldResponse: 'Lying-time milk response',
-  capitalCost: 'Capital cost',
-  interestRate: 'Interest rate',
-  wage: 'Wage',
-  beddingPrice: 'Bedding price',
-  fertiliserPrice: 'Fertiliser prices',
-  herdSize: 'Herd size',
-};
+const INPUT_LABELS = RISK_INPUT_LABELS;
 
 const percentOf = (multiplier: number) => `${multiplier >= 1 ? '+' : '−'}${Math.round(Math.abs(multiplier - 1) * 100)} %`;
 
@@ -97,20 +88,31 @@ export function addRiskSheet(context: WorkbookContext, risk: WorkbookRisk | unde
       (inputs.length === 0 ? 'none (every draw equals the base case)' : inputs.map((input) => `${INPUT_LABELS[input.key]} (${input.distribution})`).join(', '));
     styleNote(ws.getCell(r, 1));
     r++;
-    const header = ['Option', 'NPV mean', 'NPV P10', 'NPV P50', 'NPV P90', 'Chance NPV < 0', `Chance coverage < ${mc.coverageThreshold.toFixed(2)} in any year`, 'IRR P50'];
+    const header = [
+      'Option: the change against the current option',
+      'Chance the change loses money',
+      'NPV of the change P10',
+      'NPV of the change P50',
+      'NPV of the change P90',
+      'NPV of the change, mean',
+      `Chance whole-farm coverage < ${mc.coverageThreshold.toFixed(2)} in any year`,
+      "Whole herd's margin NPV P50 (not a return on the barn)",
+    ];
     header.forEach((h, i) => (ws.getCell(r, i + 1).value = h));
     styleHeaderRow(ws, r, 1, header.length);
-    ws.getRow(r).height = 26;
+    ws.getRow(r).height = 40;
+    for (let c = 1; c <= header.length; c++) ws.getCell(r, c).alignment = { wrapText: true, vertical: 'top' };
     r++;
     for (const option of mc.options) {
+      const change = option.incrementalNpv;
       const cells: [number | string | null, string][] = [
-        [option.npv.mean, money],
-        [option.npv.p10, money],
-        [option.npv.p50, money],
-        [option.npv.p90, money],
-        [option.npv.probabilityNegative, PERCENT_FORMAT],
+        [change ? change.probabilityNegative : 'current option', PERCENT_FORMAT],
+        [change ? change.p10 : 'n/a', money],
+        [change ? change.p50 : 'n/a', money],
+        [change ? change.p90 : 'n/a', money],
+        [change ? change.mean : 'n/a', money],
         [option.probabilityCoverageBelowThreshold ?? (option.coverageReason === 'no-debt-service' ? 'no debt service' : 'n/a'), PERCENT_FORMAT],
-        [option.irr.p50 ?? 'not defined', PERCENT_FORMAT],
+        [option.npv.p50, money],
       ];
       ws.getCell(r, 1).value = `${option.name}${option.current ? ' (current)' : ''}`;
       cells.forEach(([value, fmt], i) => {

@@ -1,4 +1,4 @@
-import type { CapitalItem, CapitalLine } from '../schema';
+import type { CapitalItem, CapitalLine, TaxClass } from '../schema';
 import { growthFactor } from './growth';
 
 /** Quantities the sizing helpers give to capital lines whose quantity is left null. */
@@ -15,6 +15,9 @@ export interface CapitalAsset {
   cost: number;
   lifeYears: number;
   replace: boolean;
+  /** How it is depreciated for tax, and the straight-line tax life (years) for 'straight-line'. */
+  taxClass: TaxClass;
+  taxLifeYears: number;
 }
 
 /** A purchase of an asset: at year 0, or a replacement at the end of its life (cost grown to that year). */
@@ -48,11 +51,11 @@ export function capitalAssets(lines: readonly CapitalLine[], sized: SizedQuantit
     if (line.kind !== 'item') continue;
     const cost = capitalLineQuantity(line, sized) * line.unitCost * costMultiplier;
     itemsTotal += cost;
-    items.push({ id: line.id, description: line.description, cost, lifeYears: line.lifeYears, replace: line.replaceAtEndOfLife });
+    items.push({ id: line.id, description: line.description, cost, lifeYears: line.lifeYears, replace: line.replaceAtEndOfLife, taxClass: line.taxClass, taxLifeYears: line.taxLifeYears ?? line.lifeYears });
   }
   for (const line of lines) {
     if (line.kind !== 'contingency') continue;
-    items.push({ id: line.id, description: line.description, cost: line.rate * itemsTotal, lifeYears: line.lifeYears, replace: false });
+    items.push({ id: line.id, description: line.description, cost: line.rate * itemsTotal, lifeYears: line.lifeYears, replace: false, taxClass: 'economic-life', taxLifeYears: line.lifeYears });
   }
   return items;
 }

@@ -79,6 +79,20 @@ export function straightLineFast(cost: number, life: number): number[] {
   return amounts;
 }
 
+/**
+ * A US MACRS table's depreciation (currency/yr, cents), as depreciation.ts macrsSchedule: the
+ * cost in whole cents × each year's percentage, rounded half-up, the last year taking the rest.
+ */
+export function macrsFast(cost: number, percentages: readonly number[]): number[] {
+  const total = wholeCents(cost);
+  let booked = 0;
+  return percentages.map((pct, i) => {
+    const amount = i === percentages.length - 1 ? total - booked : wholeCents((total * pct) / 10000);
+    booked += amount;
+    return amount / 100;
+  });
+}
+
 // depreciation.ts decliningBalance's amount for one year, in decimal.js (tie years only).
 function ledgerDecliningAmount(book: number, life: number, factor: number, year: number): number {
   const exactBook = currency(book);

@@ -1,12 +1,18 @@
 import type { Option, Scenario } from '../schema';
 import { roundCentsFast } from './cents';
-import { coverageRatio, lowestByYear } from './coverage';
+import { lowestByYear } from './coverage';
+import { breakEvenMilkPriceForCoverage } from './coverage-break-even';
+import { coverageInYear, coverageSummary, existingFarmOf, withExistingCashAnchored, type CoverageSides, type ExistingFarm } from './farm-coverage';
+import { operationsPayback } from './operations-payback';
+import { sourcesAndUses } from './sources-and-uses';
+import { stressTables } from './stress';
 import { capitalRecoveryFactor, discount, mirr, paybackYears } from './finance';
-import { npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan, type Projection } from './projection';
+import { milkingLyingHours, npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
 import type { CoverageYear, FastOptionResult, IncrementalResult, Metrics, OptionResult, ScenarioResults } from './results';
 import { irrFast } from './irr-fast';
 import { findRoot } from './root';
 import { checkStallDimensions, checkWater } from './sizing';
+import { scenarioWarnings } from './warnings';
 
 /** The current option (the schema guarantees exactly one; the first option otherwise). */
 export function currentOptionOf(scenario: Scenario): Option {
@@ -58,19 +64,10 @@ function finiteOrNull(value: number | null): number | null {
   return value !== null && Number.isFinite(value) ? value : null;
 }
 
-/** Coverage per year 1..H: project (incremental) and whole-farm; see CoverageYear. */
-function coverageOf(scenario: Scenario, plan: OptionPlan, own: Projection, current: Projection, isCurrent: boolean): CoverageYear[] {
-  const { existingCashForDebtServicePerYear: existingCash, existingDebtPaymentsPerYear: existingDebt } = scenario.herd;
+/** Coverage per year 1..H: project (incremental) and whole-farm; see farm-coverage.ts coverageInYear. */
+function coverageOf(farm: ExistingFarm, sides: CoverageSides, horizon: number): CoverageYear[] {
   const years: CoverageYear[] = [];
-  for (let t = 1; t <= plan.horizon; t++) {
-    const debtService = (plan.interestByYear[t] ?? 0) + (plan.principalByYear[t] ?? 0);
-    const change = isCurrent ? 0 : (own.cashForDebtService[t] ?? 0) - (current.cashForDebtService[t] ?? 0);
-    years.push({
-      year: t,
-      project: isCurrent ? null : coverageRatio(change, debtService),
-      wholeFarm: coverageRatio(existingCash + change, existingDebt + debtService),
-    });
-  }
+  for (let t = 1; t <= horizon; t++) years.push({ year: t, ...coverageInYear(farm, sides, t) });
   return years;
 }
 
@@ -92,6 +89,11 @@ const MILK_PRICE_SEARCH_MULTIPLE = 10;
 const MILK_PRICE_SEARCH_FLOOR = 1;
 const LYING_RESPONSE_SEARCH_MAX = 5;
 
+/** Upper end of the milk-price searches (currency per kg). */
+function milkPriceSearchMax(scenario: Scenario): number {
+  return Math.max(scenario.herd.milkPricePerKg * MILK_PRICE_SEARCH_MULTIPLE, MILK_PRICE_SEARCH_FLOOR);
+}
+
 type BreakEvens = Pick<IncrementalResult, 'breakEvenMilkPrice' | 'breakEvenMilkPriceReason' | 'breakEvenLyingResponse' | 'breakEvenLyingResponseReason'>;
 
 /** One option as the break-even searches see it: its plan, its milk model and its year-0 flow. */
@@ -111,7 +113,7 @@ function breakEvens(scenario: Scenario, option: SearchInput, current: SearchInpu
   const { finance, herd } = scenario;
   const npvOf = (input: SearchInput, price: number, response: number): number =>
     npvAtMilk(input.model, input.plan, finance, input.yearZero, price, response);
-  const priceHi = Math.max(herd.milkPricePerKg * MILK_PRICE_SEARCH_MULTIPLE, MILK_PRICE_SEARCH_FLOOR);
+  const priceHi = milkPriceSearchMax(scenario);
   const g = herd.lyingResponseKgPerHour;
   const price = findRoot((p) => npvOf(option, p, g) - npvOf(current, p, g), 0, priceHi, { tolerance: priceHi * 1e-10 });
   const result: BreakEvens = {
@@ -139,20 +141,32 @@ function breakEvens(scenario: Scenario, option: SearchInput, current: SearchInpu
 export function evaluateScenario(scenario: Scenario): ScenarioResults {
   const current = currentOptionOf(scenario);
   const { discountRate, interestRate, coverageThreshold } = scenario.finance;
+  const currentLying = milkingLyingHours(scenario.herd, current);
   const evaluated = scenario.options.map((option) => {
     const { plan, loan } = planOption(scenario, option, 'ledger');
-    const projection = projectOption(scenario, option, plan, current.lyingHoursPerDay, true, true);
+    const projection = projectOption(scenario, option, plan, currentLying, true, true);
     // withMilkModel = true always returns the model.
     const search: SearchInput = { plan, model: projection.milk as MilkModel, yearZero: projection.cashFlows[0] ?? 0 };
     return { option, plan, loan, projection, search };
   });
   const base = evaluated.find((entry) => entry.option === current) ?? evaluated[0];
   if (!base) throw new RangeError('options must hold at least one option');
+  const farm = existingFarmOf(scenario, base.projection.cashForDebtService);
+  const stress = stressTables(
+    withExistingCashAnchored(scenario, base.projection.cashForDebtService),
+    farm,
+    evaluated.map(({ option, plan, search }) => ({ option, plan, model: search.model, yearZero: search.yearZero })),
+    evaluated.indexOf(base),
+  );
+  const baseLines = base.projection.lines ?? [];
+  const baseFeedYear1 = baseLines[1]?.feed ?? 0;
+  const priceHi = milkPriceSearchMax(scenario);
 
-  const options = evaluated.map(({ option, plan, loan, projection, search }): OptionResult => {
+  const options = evaluated.map(({ option, plan, loan, projection, search }, index): OptionResult => {
     const isCurrent = option === current;
     const lines = projection.lines ?? [];
-    const coverage = coverageOf(scenario, plan, projection, base.projection, isCurrent);
+    const sides: CoverageSides = { ownCash: projection.cashForDebtService, ownPlan: plan, currentCash: base.projection.cashForDebtService, currentPlan: base.plan, isCurrent };
+    const coverage = coverageOf(farm, sides, plan.horizon);
     const result: OptionResult = {
       id: option.id,
       name: option.name,
@@ -170,6 +184,9 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
       lowestCoverage: lowestByYear(coverage.map((c) => ({ year: c.year, value: c.wholeFarm }))),
       lowestProjectCoverage: lowestByYear(coverage.map((c) => ({ year: c.year, value: c.project }))),
       yearsBelowCoverageThreshold: coverage.filter((c) => c.wholeFarm !== null && c.wholeFarm < coverageThreshold).map((c) => c.year),
+      stress: stress[index] ?? [],
+      breakEvenMilkPriceForCoverage: breakEvenMilkPriceForCoverage(scenario, farm, search.model, plan, priceHi),
+      sourcesAndUses: sourcesAndUses(option, plan, scenario.finance, isCurrent ? 0 : (lines[1]?.feed ?? 0) - baseFeedYear1),
       labourHoursPerYear: lines.map((line) => line.labourHours.total),
       beddingTonnesPerYear: lines.map((line) => line.beddingTonnes),
       manureFertiliserValuePerYear: lines.map((line) => line.manureValue),
@@ -183,12 +200,28 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
     };
     if (!isCurrent) {
       const flows = projection.cashFlows.map((cf, t) => roundCentsFast(cf - (base.projection.cashFlows[t] ?? 0)));
-      const sameLyingTime = option.lyingHoursPerDay === current.lyingHoursPerDay;
-      result.incremental = { ...metricsOf(flows, discountRate, interestRate, 'incremental'), ...breakEvens(scenario, search, base.search, sameLyingTime) };
+      const sameLyingTime = milkingLyingHours(scenario.herd, option) === currentLying;
+      result.incremental = {
+        ...metricsOf(flows, discountRate, interestRate, 'incremental'),
+        ...operationsPayback(lines, baseLines),
+        ...breakEvens(scenario, search, base.search, sameLyingTime),
+      };
     }
     return result;
   });
-  return { horizonYears: scenario.horizonYears, currency: scenario.currency, currentOptionId: current.id, options };
+  return {
+    horizonYears: scenario.horizonYears,
+    currency: scenario.currency,
+    currentOptionId: current.id,
+    currentOptionCarriesCapital: base.plan.capitalTotal > 0,
+    existingFarm: {
+      herdMarginInExistingCash: roundCentsFast(scenario.herd.existingCashForDebtServicePerYear - farm.cashBesideHerd),
+      cashForDebtServiceByYear: base.projection.cashForDebtService.map((cash, t) => (t === 0 ? 0 : roundCentsFast(farm.cashBesideHerd + cash))),
+      debtPaymentsByYear: farm.debtByYear,
+    },
+    options,
+    warnings: scenarioWarnings(scenario),
+  };
 }
 
 export interface FastEvaluationOptions {
@@ -220,29 +253,21 @@ function npvFast(rate: number, flows: readonly number[]): number {
 export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOptions = {}): FastOptionResult[] {
   const current = currentOptionOf(scenario);
   const { discountRate } = scenario.finance;
+  const currentLying = milkingLyingHours(scenario.herd, current);
   const runs = scenario.options.map((option) => {
     const { plan } = planOption(scenario, option, 'fast');
-    return { option, plan, projection: projectOption(scenario, option, plan, current.lyingHoursPerDay, false) };
+    return { option, plan, projection: projectOption(scenario, option, plan, currentLying, false) };
   });
   const base = runs.find((run) => run.option === current) ?? runs[0];
   if (!base) return [];
   const baseNpv = npvFast(discountRate, base.projection.cashFlows);
-  const { existingCashForDebtServicePerYear: existingCash, existingDebtPaymentsPerYear: existingDebt } = scenario.herd;
+  const farm = existingFarmOf(scenario, base.projection.cashForDebtService);
   return runs.map(({ option, plan, projection }, index) => {
     const isCurrent = option === current;
     const flows = projection.cashFlows;
     const optionNpv = npvFast(discountRate, flows);
-    // Same ratios as coverageOf, without building the per-year objects.
-    let minCoverage: number | null = null;
-    let minProjectCoverage: number | null = null;
-    for (let t = 1; t <= plan.horizon; t++) {
-      const debtService = (plan.interestByYear[t] ?? 0) + (plan.principalByYear[t] ?? 0);
-      const change = isCurrent ? 0 : (projection.cashForDebtService[t] ?? 0) - (base.projection.cashForDebtService[t] ?? 0);
-      const wholeFarm = coverageRatio(existingCash + change, existingDebt + debtService);
-      if (wholeFarm !== null && (minCoverage === null || wholeFarm < minCoverage)) minCoverage = wholeFarm;
-      const project = isCurrent ? null : coverageRatio(change, debtService);
-      if (project !== null && (minProjectCoverage === null || project < minProjectCoverage)) minProjectCoverage = project;
-    }
+    const sides: CoverageSides = { ownCash: projection.cashForDebtService, ownPlan: plan, currentCash: base.projection.cashForDebtService, currentPlan: base.plan, isCurrent };
+    const { minCoverage, minProjectCoverage, yearsBelowThreshold } = coverageSummary(farm, sides, plan.horizon, scenario.finance.coverageThreshold);
     let incrementalIrr: number | null = null;
     if (settings.incrementalIrr && !isCurrent) {
       incrementalIrr = irrFast(flows.map((cf, t) => roundCentsFast(cf - (base.projection.cashFlows[t] ?? 0)))).value;
@@ -255,6 +280,19 @@ export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOpti
       incrementalIrr,
       minCoverage,
       minProjectCoverage,
+      yearsBelowThreshold,
     };
   });
+}
+
+/**
+ * The scenario ready to be shocked (sensitivity, Monte Carlo): the herd margin inside the
+ * existing farm cash written in at these prices, so every shocked copy moves the existing
+ * farm's cash with the current option's margin instead of holding it flat.
+ */
+export function anchoredForShocks(scenario: Scenario): Scenario {
+  if (scenario.herd.existingCashHerdMarginPerYear !== null) return scenario;
+  const current = currentOptionOf(scenario);
+  const { plan } = planOption(scenario, current, 'fast');
+  return withExistingCashAnchored(scenario, projectOption(scenario, current, plan, current.lyingHoursPerDay, false).cashForDebtService);
 }

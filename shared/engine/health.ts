@@ -25,3 +25,11 @@ export function healthCostPerYear(cows: number, rates: HealthRates): number {
 export function cullingCostPerYear(extraCullsPer100Cows: number, cows: number, replacementCost: number, cullValue: number): number {
   return ((extraCullsPer100Cows * cows) / 100) * (replacementCost - cullValue);
 }
+
+/**
+ * Culls per 100 cows per year the housing causes (cows): the extra culls entered plus the culls
+ * that follow lameness, lameness incidence (cases per 100 cows per year) × culls per case.
+ */
+export function extraCullsPer100Cows(health: { extraCullsPer100Cows: number; lamenessCasesPer100Cows: number; lamenessCullsPerCase: number }): number {
+  return health.extraCullsPer100Cows + health.lamenessCasesPer100Cows * health.lamenessCullsPerCase;
+}

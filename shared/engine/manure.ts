@@ -65,10 +65,11 @@ export interface StoredVolumeInputs {
   manureKgPerYear: number;
   /** Density of the manure (kg/m³). */
   manureDensityKgPerM3: number;
-  /** Parlour wash water (m³ per cow per day) for the cows' housed days. */
+  /** Parlour wash water (m³ per cow per day) on each milking day. */
   washWaterM3PerCowDay: number;
   cows: number;
-  housedDays: number;
+  /** Days the parlour's wash water goes to the store: every milking day of the year, grazing or housed; 0 when diverted. */
+  washWaterDays: number;
   /** Bedding volume reaching the storage (m³/yr). */
   beddingM3PerYear: number;
   /** Open storage surface (m²) and net rain on it (m/yr). */
@@ -77,13 +78,13 @@ export interface StoredVolumeInputs {
 }
 
 /**
- * Volume passing through the manure storage (m³/yr): manure ÷ density + wash water × N × housed
- * days + bedding + net rain × open area. This is the volume agitated, hauled and spread.
+ * Volume passing through the manure storage (m³/yr): manure ÷ density + wash water × N × wash
+ * water days + bedding + net rain × open area. This is the volume agitated, hauled and spread.
  */
 export function storedVolumeM3PerYear(inputs: StoredVolumeInputs): number {
   return (
     inputs.manureKgPerYear / inputs.manureDensityKgPerM3 +
-    inputs.washWaterM3PerCowDay * inputs.cows * inputs.housedDays +
+    inputs.washWaterM3PerCowDay * inputs.cows * inputs.washWaterDays +
     inputs.beddingM3PerYear +
     inputs.netRainMPerYear * inputs.openStorageAreaM2
   );
@@ -92,4 +93,48 @@ export function storedVolumeM3PerYear(inputs: StoredVolumeInputs): number {
 /** Manure handling cost in today's money (currency/yr): m³ × (handling cost + sand extra handling) per m³. */
 export function manureHandlingCostPerYear(volumeM3: number, handlingCostPerM3: number, sandExtraCostPerM3: number): number {
   return volumeM3 * (handlingCostPerM3 + sandExtraCostPerM3);
+}
+
+/** Nutrients that replace bought fertiliser in a year: N, P₂O₅ and K₂O (kg/yr). */
+export interface CreditedNutrients {
+  nitrogenKg: number;
+  phosphateKg: number;
+  potashKg: number;
+}
+
+/**
+ * Nutrients credited as fertiliser saved (kg/yr): the collected N less the share lost in storage,
+ * plus the credited share of what is dropped on pasture, times availability; P and K the same as
+ * P₂O₅ (× 2.2910) and K₂O (× 1.2051). Credited P₂O₅ and K₂O never pass the crop's need × hectares
+ * when both are known (null cap = no cap): beyond that the manure saves no fertiliser.
+ */
+export function creditedNutrients(
+  collected: CollectedManure,
+  onPasture: CollectedManure,
+  storageNitrogenLoss: number,
+  availability: NutrientAvailability,
+  cap: { phosphateKg: number | null; potashKg: number | null },
+): CreditedNutrients {
+  const phosphateKg = (collected.phosphorusKg + onPasture.phosphorusKg) * P_TO_P2O5 * availability.phosphate;
+  const potashKg = (collected.potassiumKg + onPasture.potassiumKg) * K_TO_K2O * availability.potash;
+  return {
+    nitrogenKg: (collected.nitrogenKg * (1 - storageNitrogenLoss) + onPasture.nitrogenKg) * availability.nitrogen,
+    phosphateKg: cap.phosphateKg === null ? phosphateKg : Math.min(phosphateKg, cap.phosphateKg),
+    potashKg: cap.potashKg === null ? potashKg : Math.min(potashKg, cap.potashKg),
+  };
+}
+
+/** Fertiliser value of credited nutrients in today's money (currency/yr): kg of N, P₂O₅, K₂O × their prices. */
+export function creditedValue(credited: CreditedNutrients, prices: FertiliserPrices): number {
+  return credited.nitrogenKg * prices.nitrogenPerKg + credited.phosphateKg * prices.phosphatePerKg + credited.potashKg * prices.potashPerKg;
+}
+
+/** A crop-need cap (kg/yr): need per hectare × hectares, or null when either is not entered. */
+export function cropNeedCap(needKgPerHa: number | null, hectares: number | null): number | null {
+  return needKgPerHa === null || hectares === null ? null : needKgPerHa * hectares;
+}
+
+/** Scales a per-cow amount of manure and nutrients to a herd (kg/yr). */
+export function scaleManure(perCow: CollectedManure, cows: number): CollectedManure {
+  return { massKg: perCow.massKg * cows, nitrogenKg: perCow.nitrogenKg * cows, phosphorusKg: perCow.phosphorusKg * cows, potassiumKg: perCow.potassiumKg * cows };
 }

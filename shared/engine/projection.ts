@@ -9,10 +9,12 @@ import {
   salvageAtHorizon,
   type CapitalAsset,
 } from './capital';
-import { decliningBalanceFast, loanScheduleFast, loanYearsFast, roundCentsFast, straightLineFast, type LoanYearsFast } from './cents';
+import { decliningBalanceFast, loanScheduleFast, loanYearsFast, macrsFast, roundCentsFast, straightLineFast, type LoanYearsFast } from './cents';
+import { interestDuringConstruction } from './construction';
+import { MACRS_10_YEAR_150DB, MACRS_10_YEAR_200DB, MACRS_20_YEAR_150DB } from './depreciation';
 import { baseFeedCostPerYear, effectiveHousedDays, grazingDaysPerYear, marginalFeedCostPerYear } from './feed';
 import type { LoanSchedule } from './finance';
-import { cullingCostPerYear, healthCostPerYear } from './health';
+import { cullingCostPerYear, extraCullsPer100Cows, healthCostPerYear } from './health';
 import { cowsPerYear, herdPurchasesByYear, herdValueAtHorizon } from './herd-size';
 import {
   bedCareHoursPerYear,
@@ -22,11 +24,12 @@ import {
   scrapingHoursPerYear,
   troughHoursPerYear,
 } from './labour';
-import { collectedManurePerYear, fertiliserValue, K_TO_K2O, manureHandlingCostPerYear, P_TO_P2O5, storedVolumeM3PerYear } from './manure';
+import { collectedManurePerYear, creditedNutrients, creditedValue, cropNeedCap, K_TO_K2O, manureHandlingCostPerYear, P_TO_P2O5, scaleManure, storedVolumeM3PerYear } from './manure';
+import { resolvedGrowth } from './growth';
 import type { YearLine } from './results';
 import { manureStorageVolumeM3, stallsFor } from './sizing';
-import { taxableIncome, taxDepreciation, taxForYear, type DepreciationSchedule } from './tax';
-import { milkSoldKgPerYear, rampFraction, yieldPerCowDay } from './yield';
+import { taxableIncome, taxDepreciation, taxForYear, type DepreciationSchedule, type PurchaseForTax } from './tax';
+import { cappedLyingHours, lactatingShare, MILK_DAYS_PER_YEAR, milkSoldKgPerYear, rampFraction, stockedLyingHours, yieldPerCowDay } from './yield';
 
 /** Everything about an option that does not change with prices: herd, sizing, capital, tax depreciation, loan. */
 export interface OptionPlan {
@@ -45,7 +48,10 @@ export interface OptionPlan {
   taxBookValueAtHorizon: number;
   grants: number;
   equity: number;
+  /** Loan principal (currency), interest during construction included when it is capitalised. */
   loanAmount: number;
+  /** Interest during construction (currency, cents), owed at year 0; in loanAmount when capitalised. */
+  interestDuringConstruction: number;
   /** Loan interest and principal per year (currency), index = year, [0] = 0. */
   interestByYear: number[];
   principalByYear: number[];
@@ -67,7 +73,7 @@ export function optionStorageM3(scenario: Scenario, option: Option, designCows: 
   const beddingTonnesPerDay = beddingTonnesPerYear(option.bedding.kgPerStallDay, stalls, 1);
   return manureStorageVolumeM3({
     manureM3PerDay: manureKgPerDay / herd.manureDensityKgPerM3,
-    washWaterM3PerDay: option.manure.washWaterM3PerCowDay * designCows,
+    washWaterM3PerDay: option.manure.washWaterDiverted ? 0 : option.manure.washWaterM3PerCowDay * designCows,
     beddingM3PerDay: beddingToStorageM3PerYear(beddingTonnesPerDay, option.bedding.shareToManureStorage, option.bedding.bulkDensityTonnesPerM3),
     netRainMPerYear: option.manure.netRainMPerYear,
     openStorageAreaM2: option.manure.openStorageAreaM2,
@@ -86,6 +92,19 @@ function depreciationSchedule(scenario: Scenario): DepreciationSchedule {
   const { depreciation, decliningBalanceFactor } = scenario.finance;
   if (depreciation === 'declining-balance') return (cost, life) => decliningBalanceFast(cost, life, decliningBalanceFactor);
   return straightLineFast;
+}
+
+const MACRS_TABLES = { 'macrs-10-200db': MACRS_10_YEAR_200DB, 'macrs-10-150db': MACRS_10_YEAR_150DB, 'macrs-20-150db': MACRS_20_YEAR_150DB } as const;
+
+/** A capital asset's own tax schedule when its tax class is not its economic life (else none: the scenario's method). */
+function taxClassSchedule(asset: CapitalAsset | undefined): Pick<PurchaseForTax, 'schedule'> {
+  if (!asset || asset.taxClass === 'economic-life') return {};
+  if (asset.taxClass === 'straight-line') {
+    const life = asset.taxLifeYears;
+    return { schedule: (cost) => straightLineFast(cost, life) };
+  }
+  const { percentages } = MACRS_TABLES[asset.taxClass];
+  return { schedule: (cost) => macrsFast(cost, percentages) };
 }
 
 /**
@@ -111,14 +130,22 @@ export function planOption(scenario: Scenario, option: Option, mode: PlanMode): 
   const assets = capitalAssets(option.capitalLines, { stalls, storageM3, troughs: option.water.troughs });
   const capital = capitalTotal(assets);
   const purchases = purchaseSchedule(assets, horizon, inflation);
+  const grants = Math.min(finance.grants, capital);
+  // With grants reducing the depreciable base, each year-0 purchase carries its share of them.
+  const year0Base = finance.grantsReduceDepreciableBase && capital > 0 ? 1 - grants / capital : 1;
   const depreciation = taxDepreciation(
-    purchases.map((p) => ({ year: p.year, cost: p.cost, lifeYears: assets[p.asset]?.lifeYears ?? 1 })),
+    purchases.map((p) => {
+      const asset = assets[p.asset];
+      return { year: p.year, cost: p.year === 0 ? p.cost * year0Base : p.cost, lifeYears: asset?.lifeYears ?? 1, ...taxClassSchedule(asset) };
+    }),
     horizon,
     depreciationSchedule(scenario),
   );
-  const grants = Math.min(finance.grants, capital);
-  const loanAmount = loanAmountFor(capital, grants, finance.equity, finance.loanAmount);
-  const equity = Math.max(0, capital - grants - loanAmount);
+  const capitalLoan = loanAmountFor(capital, grants, finance.equity, finance.loanAmount);
+  const equity = Math.max(0, capital - grants - capitalLoan);
+  // Interest during construction is owed at year 0: added to the loan, or paid from farm cash.
+  const constructionInterest = roundCentsFast(interestDuringConstruction(capitalLoan, finance));
+  const loanAmount = finance.interestDuringConstruction === 'capitalised' ? capitalLoan + constructionInterest : capitalLoan;
 
   const interestByYear = new Array<number>(horizon + 1).fill(0);
   const principalByYear = new Array<number>(horizon + 1).fill(0);
@@ -168,6 +195,7 @@ export function planOption(scenario: Scenario, option: Option, mode: PlanMode): 
       grants,
       equity,
       loanAmount,
+      interestDuringConstruction: constructionInterest,
       interestByYear,
       principalByYear,
       loanBalanceAtHorizon,
@@ -266,16 +294,25 @@ function settleYear(out: Settlement, plan: OptionPlan, finance: Scenario['financ
   out.cashForDebtService = centsTotal(operatingMargin - operatingTax);
 }
 
+/**
+ * The lying time of an option that earns milk (h/day): its expected lying time, less what
+ * overstocking costs, up to the herd's cap. The current option's is the reference L_current.
+ */
+export function milkingLyingHours(herd: Scenario['herd'], option: Option): number {
+  return cappedLyingHours(stockedLyingHours(option.lyingHoursPerDay, option.stockingRate, herd.lyingLossPer10PctOverstocking), herd.lyingResponseCapHours);
+}
+
 /** Yield per cow-day (kg) of an option at a lying-time response, with the ramp of `year`. */
 function optionYield(scenario: Scenario, option: Option, currentLyingHours: number, response: number, year: number): number {
   const { herd } = scenario;
   return yieldPerCowDay({
     baselineKgPerCowDay: herd.yieldKgPerCowDay,
     lyingResponseKgPerHour: response,
-    lyingHours: option.lyingHoursPerDay,
+    lyingHours: milkingLyingHours(herd, option),
     currentLyingHours,
     systemAdjustmentKgPerCowDay: option.systemYieldAdjustment,
     rampFraction: rampFraction(year, herd.lyingResponseYear1Fraction),
+    lactatingShare: lactatingShare(herd.dryDaysPerCowYear),
   });
 }
 
@@ -296,7 +333,7 @@ export function projectOption(
   const round = roundCentsFast;
   const centsTotal = noiseFreeCents;
   const { herd, finance } = scenario;
-  const { growth } = herd;
+  const growth = resolvedGrowth(herd.growth);
   const H = plan.horizon;
   const milkPrice = herd.milkPricePerKg;
   const response = herd.lyingResponseKgPerHour;
@@ -308,7 +345,8 @@ export function projectOption(
   for (const line of option.energyLines) energyToday += line.kwhPerYear * line.pricePerKwh;
   const runningByGrowth = { milkPrice: 0, feed: 0, wages: 0, bedding: 0, fertiliser: 0, general: 0, none: 0 };
   for (const line of option.runningCosts) runningByGrowth[line.growth] += line.amountPerYear;
-  const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate, plan.capitalTotal);
+  // Maintenance and insurance fall on the new capital and on any existing housing the option keeps using.
+  const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate + option.insuranceRate, plan.capitalTotal + option.existingHousingValue);
   const scrapingHours = scrapingHoursPerYear(labour.scrapingPassesPerDay, labour.minutesPerScrapingPass, housedDays);
   const bedCareHours = bedCareHoursPerYear(labour.bedCleaningsPerDay, labour.secondsPerStallCleaning, stalls, housedDays);
   const troughHours = troughHoursPerYear(labour.troughCleaningsPerDay, labour.minutesPerTroughCleaning, option.water.troughs, housedDays);
@@ -327,7 +365,9 @@ export function projectOption(
   const grants0 = round(plan.grants);
   const herd0 = round(plan.herdPurchasesByYear[0] ?? 0);
   cashFlows[0] = centsTotal(grants0 - capital0 - herd0);
-  if (lines) lines.push(yearZeroLine(plan, cashFlows[0], capital0, grants0, herd0, centsTotal(round(plan.loanAmount) + cashFlows[0])));
+  // Financed year 0: loan proceeds less the interest during construction paid out of them or beside them.
+  const financed0 = centsTotal(round(plan.loanAmount) - plan.interestDuringConstruction + cashFlows[0]);
+  if (lines) lines.push(yearZeroLine(plan, cashFlows[0], capital0, grants0, herd0, financed0));
 
   // Every line is linear in the cows of the year: per-cow amounts in today's money, hoisted.
   const yieldYear1 = optionYield(scenario, option, currentLyingHours, response, 1);
@@ -335,16 +375,26 @@ export function projectOption(
   const baselineMilkPerCow = milkSoldKgPerYear(1, herd.yieldKgPerCowDay);
   const feedPerCow = baseFeedCostPerYear(1, housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
   const healthPerCow = healthCostPerYear(1, option.health);
-  const cullingPerCow = cullingCostPerYear(option.health.extraCullsPer100Cows, 1, herd.replacementHeiferCost, herd.cullCowValue);
+  const cullingPerCow = cullingCostPerYear(extraCullsPer100Cows(option.health), 1, herd.replacementHeiferCost, herd.cullCowValue);
   const manurePerCow = collectedManurePerYear(herd.manureExcretion, 1, housedDays, option.manure.collectionEfficiency);
-  const manureValuePerCow = fertiliserValue(manurePerCow, herd.nutrientAvailability, herd.fertiliserPrices);
+  // Dung dropped on grazing days, of which the credited share counts as fertiliser saved.
+  const pasturePerCow = collectedManurePerYear(herd.manureExcretion, 1, grazingDays, option.manure.pastureDungCredit);
+  const nutrientCap = {
+    phosphateKg: cropNeedCap(herd.land.phosphateNeedKgPerHa, herd.land.hectares),
+    potashKg: cropNeedCap(herd.land.potashNeedKgPerHa, herd.land.hectares),
+  };
+  const manureValueToday = (cows: number): number =>
+    creditedValue(
+      creditedNutrients(scaleManure(manurePerCow, cows), scaleManure(pasturePerCow, cows), option.manure.storageNitrogenLoss, herd.nutrientAvailability, nutrientCap),
+      herd.fertiliserPrices,
+    );
   const storedVolume = (cows: number): number =>
     storedVolumeM3PerYear({
       manureKgPerYear: manurePerCow.massKg * cows,
       manureDensityKgPerM3: herd.manureDensityKgPerM3,
       washWaterM3PerCowDay: option.manure.washWaterM3PerCowDay,
       cows,
-      housedDays,
+      washWaterDays: option.manure.washWaterDiverted ? 0 : MILK_DAYS_PER_YEAR,
       beddingM3PerYear: beddingStoredM3,
       openStorageAreaM2: option.manure.openStorageAreaM2,
       netRainMPerYear: option.manure.netRainMPerYear,
@@ -354,6 +404,7 @@ export function projectOption(
   const handlingPerM3 = manureHandlingCostPerYear(1, option.manure.handlingCostPerM3, option.manure.sandExtraHandlingCostPerM3);
 
   const settled = emptySettlement();
+  const lyingGain = (milkingLyingHours(herd, option) - currentLyingHours) * lactatingShare(herd.dryDaysPerCowYear);
   const milk: MilkModel | null = withMilkModel
     ? {
         cows: plan.cows,
@@ -364,15 +415,19 @@ export function projectOption(
         baselineMilkPerCow,
         marginalFeedCostPerKg: herd.marginalFeedCostPerKgMilk,
         yieldFixed: herd.yieldKgPerCowDay + option.systemYieldAdjustment,
-        yieldPerResponseYear1: (option.lyingHoursPerDay - currentLyingHours) * rampFraction(1, herd.lyingResponseYear1Fraction),
-        yieldPerResponseLater: (option.lyingHoursPerDay - currentLyingHours) * rampFraction(2, herd.lyingResponseYear1Fraction),
+        yieldPerResponseYear1: lyingGain * rampFraction(1, herd.lyingResponseYear1Fraction),
+        yieldPerResponseLater: lyingGain * rampFraction(2, herd.lyingResponseYear1Fraction),
       }
     : null;
-  let gMilk = 1, gFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
+  let grownMilk = 1, grownFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
   let lossCarried = 0;
+  const { milkPrice: milkIndex, feed: feedIndex } = herd.yearlyPriceIndex;
   for (let t = 1; t <= H; t++) {
-    gMilk *= 1 + growth.milkPrice;
-    gFeed *= 1 + growth.feed;
+    grownMilk *= 1 + growth.milkPrice;
+    grownFeed *= 1 + growth.feed;
+    // A year's price index (a trough, a spike) scales that year alone; growth carries on from the grown path.
+    const gMilk = grownMilk * (milkIndex?.[t - 1] ?? 1);
+    const gFeed = grownFeed * (feedIndex?.[t - 1] ?? 1);
     gWage *= 1 + growth.wages;
     gBedding *= 1 + growth.bedding;
     gFert *= 1 + growth.fertiliser;
@@ -408,7 +463,7 @@ export function projectOption(
         runningByGrowth.general * gGeneral +
         runningByGrowth.none,
     );
-    const manureValue = round(manureValuePerCow * cows * gFert);
+    const manureValue = round(manureValueToday(cows) * gFert);
     const storedM3 = storedFixedM3 + storedPerCowM3 * cows;
     const manureHandling = round(storedM3 * handlingPerM3 * gGeneral);
     const operatingMargin = centsTotal(
@@ -525,6 +580,16 @@ function yearZeroLine(plan: OptionPlan, net: number, capital: number, grants: nu
   };
 }
 
+/** Operating margin of year t (currency, unrounded) from a milk model at a milk price and lying-time response. */
+function marginAtMilk(model: MilkModel, t: number, milkPrice: number, response: number): number {
+  const cows = model.cows[t] ?? 0;
+  const yieldKg = Math.max(0, model.yieldFixed + response * (t === 1 ? model.yieldPerResponseYear1 : model.yieldPerResponseLater));
+  const milkKg = milkSoldKgPerYear(cows, yieldKg);
+  const milkIncome = milkKg * milkPrice * (model.milkGrowth[t] ?? 1);
+  const feed = (model.feedPerCow * cows + marginalFeedCostPerYear(milkKg - model.baselineMilkPerCow * cows, model.marginalFeedCostPerKg)) * (model.feedGrowth[t] ?? 1);
+  return (model.otherMargin[t] ?? 0) + milkIncome - feed;
+}
+
 /**
  * NPV (currency, flows[0] at t = 0) of an option's project flows at another milk price (currency
  * per kg) and lying-time response (kg/cow/day per hour), from its milk model: the same sums as
@@ -537,12 +602,7 @@ export function npvAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario[
   let total = yearZero;
   let lossCarried = 0;
   for (let t = 1; t <= plan.horizon; t++) {
-    const cows = model.cows[t] ?? 0;
-    const yieldKg = Math.max(0, model.yieldFixed + response * (t === 1 ? model.yieldPerResponseYear1 : model.yieldPerResponseLater));
-    const milkKg = milkSoldKgPerYear(cows, yieldKg);
-    const milkIncome = milkKg * milkPrice * (model.milkGrowth[t] ?? 1);
-    const feed = (model.feedPerCow * cows + marginalFeedCostPerYear(milkKg - model.baselineMilkPerCow * cows, model.marginalFeedCostPerKg)) * (model.feedGrowth[t] ?? 1);
-    settleYear(out, plan, finance, t, (model.otherMargin[t] ?? 0) + milkIncome - feed, lossCarried, identity, identity);
+    settleYear(out, plan, finance, t, marginAtMilk(model, t, milkPrice, response), lossCarried, identity, identity);
     lossCarried = out.lossCarried;
     total += out.net * discount;
     discount *= factor;
@@ -552,3 +612,26 @@ export function npvAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario[
 
 // npvAtMilk runs synchronously and never re-enters, so one settlement record serves every call.
 const scratch = emptySettlement();
+
+/**
+ * Cash available for debt service per year (currency, index = year, [0] = 0; written into `into`)
+ * of an option at another milk price and lying-time response, from its milk model, and the NPV
+ * of its project flows (returned; flows[0] = yearZero at t = 0): the same sums as projectOption
+ * without rounding (the stress table and the coverage break-evens), one pass over the years.
+ */
+export function cashAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario['finance'], yearZero: number, milkPrice: number, response: number, into: number[]): number {
+  const factor = 1 / (1 + finance.discountRate);
+  const out = scratch;
+  let discount = factor;
+  let total = yearZero;
+  let lossCarried = 0;
+  into[0] = 0;
+  for (let t = 1; t <= plan.horizon; t++) {
+    settleYear(out, plan, finance, t, marginAtMilk(model, t, milkPrice, response), lossCarried, identity, identity);
+    lossCarried = out.lossCarried;
+    into[t] = out.cashForDebtService;
+    total += out.net * discount;
+    discount *= factor;
+  }
+  return total;
+}

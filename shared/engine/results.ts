@@ -1,5 +1,8 @@
+import type { CoverageBreakEven } from './coverage-break-even';
 import type { LoanSchedule } from './finance';
 import type { StallCheck, WaterCheck } from './sizing';
+import type { SourcesAndUses } from './sources-and-uses';
+import type { StressResult } from './stress';
 
 /** Labour hours of one year by task (h/yr). */
 export interface LabourHours {
@@ -72,9 +75,9 @@ export interface YearLine {
 
 export interface CoverageYear {
   year: number;
-  /** (this option's cash for debt service − the current option's) ÷ this loan's P+I; null for the current option or when nothing is due. */
+  /** (this option's cash for debt service − the current option's) ÷ (this loan's P+I − the current option's); null for the current option or when the change borrows nothing. */
   project: number | null;
-  /** (existing farm cash + the change above) ÷ (existing debt payments + this loan's P+I); null when nothing is due. */
+  /** (existing farm cash in year t + the change above) ÷ (existing debt payments in year t + this loan's P+I); null when nothing is due. */
   wholeFarm: number | null;
 }
 
@@ -102,6 +105,11 @@ export interface Metrics {
 }
 
 export interface IncrementalResult extends Metrics {
+  /** Payback of the change from operations alone: without the year-H salvage and herd value (years); null with a reason. */
+  paybackFromOperationsYears: number | null;
+  paybackFromOperationsReason?: PaybackReason;
+  /** Share of the change's year-0 outlay its operations recover over the horizon (fraction); null without an outlay. */
+  operationsRecoveredShare: number | null;
   breakEvenMilkPrice: number | null;
   breakEvenMilkPriceReason?: 'none-in-range';
   breakEvenLyingResponse: number | null;
@@ -135,6 +143,11 @@ export interface OptionResult extends Metrics {
   lowestProjectCoverage: { year: number; value: number } | null;
   /** Years whose whole-farm coverage is below the lender's threshold. */
   yearsBelowCoverageThreshold: number[];
+  /** The lender's stress table: this option re-evaluated under each shock (stress.ts STRESS_TESTS order). */
+  stress: StressResult[];
+  /** Milk prices at which the lowest whole-farm coverage is exactly 1.0 and the threshold. */
+  breakEvenMilkPriceForCoverage: CoverageBreakEven;
+  sourcesAndUses: SourcesAndUses;
   /** Per-year arrays: index = year, [0] = year 0. */
   labourHoursPerYear: number[];
   beddingTonnesPerYear: number[];
@@ -143,11 +156,31 @@ export interface OptionResult extends Metrics {
   incremental?: IncrementalResult;
 }
 
+/** Something about the inputs a reader should check before trusting the figures. */
+export interface ModelWarning {
+  code: 'milk-growth-below-feed' | 'organic-nitrogen-over-limit';
+  message: string;
+  /** The option it concerns; absent when it concerns the whole scenario. */
+  optionId?: string;
+}
+
 export interface ScenarioResults {
   horizonYears: number;
   currency: string;
   currentOptionId: string;
+  /** True when the current option itself buys capital: its loan and its margin are both in its coverage. */
+  currentOptionCarriesCapital: boolean;
+  /** The existing farm as whole-farm coverage counts it (currency per year, index = year, [0] = 0). */
+  existingFarm: {
+    /** The herd margin inside the existing farm cash figure: entered, or the current option's year 1. */
+    herdMarginInExistingCash: number;
+    /** Existing farm cash for debt service in year t: the figure entered − that margin + the current option's cash in year t. */
+    cashForDebtServiceByYear: number[];
+    debtPaymentsByYear: number[];
+  };
   options: OptionResult[];
+  /** Input checks: empty when nothing needs a second look. */
+  warnings: ModelWarning[];
 }
 
 /** One option from the fast path (floating point, no ledger detail). */
@@ -162,4 +195,6 @@ export interface FastOptionResult {
   /** Lowest whole-farm coverage over the horizon; null when no year has debt service. */
   minCoverage: number | null;
   minProjectCoverage: number | null;
+  /** Years whose whole-farm coverage is below the lender's threshold (count). */
+  yearsBelowThreshold: number;
 }

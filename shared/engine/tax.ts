@@ -33,6 +33,8 @@ export interface PurchaseForTax {
   year: number;
   cost: number;
   lifeYears: number;
+  /** The purchase's own schedule (its tax class); absent = the scenario's schedule over lifeYears. */
+  schedule?: (cost: number) => number[];
 }
 
 export interface TaxDepreciation {
@@ -51,7 +53,7 @@ export function taxDepreciation(purchases: readonly PurchaseForTax[], horizon: n
   let bookValueAtHorizon = 0;
   for (const purchase of purchases) {
     if (purchase.cost <= 0) continue;
-    const amounts = schedule(purchase.cost, purchase.lifeYears);
+    const amounts = purchase.schedule ? purchase.schedule(purchase.cost) : schedule(purchase.cost, purchase.lifeYears);
     const last = Math.min(amounts.length, horizon - purchase.year);
     for (let i = 0; i < last; i++) {
       const year = purchase.year + i + 1;

@@ -26,7 +26,11 @@ export const financeSchema = z
     taxRate: rate('Tax rate', 0, 0.6, 'Income tax rate; 0 = pre-tax analysis (fraction)').default(0),
     depreciation: choice('Depreciation method', ['straight-line', 'declining-balance'], 'Tax depreciation of capital lines over each life').default('straight-line'),
     decliningBalanceFactor: quantity('Declining-balance factor', '', 1, 3, 'Declining-balance factor (2 = 200 % DB), switching to straight line when larger').default(2),
+    grantsReduceDepreciableBase: flag('Grants reduce the depreciable base', 'True: grants reduce the tax depreciation of the year-0 capital pro rata').default(false),
     lossesOffsetOtherIncome: flag('Losses offset other income', 'True: a taxable loss saves tax that year against other farm income; false: losses carry forward').default(true),
+    constructionMonths: quantity('Construction period', 'months', 0, 36, 'Months from the first loan draw to the end of construction (year 0); 0 = no interest during construction', { int: true }).default(0),
+    interestDuringConstruction: choice('Interest during construction', ['capitalised', 'paid'], "'capitalised' = added to the loan; 'paid' = paid from farm cash at year 0").default('capitalised'),
+    feedStockMonths: quantity('Feed stock', 'months', 0, 12, "Months of the first year's extra feed (against the current option) bought into store before year 1: working capital", { int: true }).default(6),
     coverageThreshold: quantity('Coverage threshold', '', 0.5, 5, "Lender's minimum debt-service coverage ratio (ratio)").default(DEFAULT_COVERAGE_THRESHOLD),
   }, { error: 'Finance must be an object with its fields' })
   .superRefine((finance, ctx) => {
@@ -60,7 +64,11 @@ export const DEFAULT_FINANCE: Finance = {
   taxRate: 0,
   depreciation: 'straight-line',
   decliningBalanceFactor: 2,
+  grantsReduceDepreciableBase: false,
   lossesOffsetOtherIncome: true,
+  constructionMonths: 0,
+  interestDuringConstruction: 'capitalised',
+  feedStockMonths: 6,
   coverageThreshold: DEFAULT_COVERAGE_THRESHOLD,
 };
 
@@ -79,6 +87,10 @@ export const DEFAULT_FINANCE_SOURCES: Record<keyof Finance, Source> = {
   taxRate: assumption('pre-tax analysis until the farm enters its tax rate'),
   depreciation: assumption('straight line over each line’s life'),
   decliningBalanceFactor: assumption('200 % declining balance when that method is chosen'),
+  grantsReduceDepreciableBase: assumption('grants do not reduce the depreciable base'),
   lossesOffsetOtherIncome: assumption('a loss on the project saves tax on other farm income'),
+  constructionMonths: assumption('no construction period entered: no interest during construction'),
+  interestDuringConstruction: assumption('interest during construction is added to the loan'),
+  feedStockMonths: assumption('half a year of the extra feed in store before the first housed season'),
   coverageThreshold: { kind: 'common-practice', note: 'lenders commonly ask for a debt-service coverage of at least 1.25; common practice, no source' },
 };

@@ -26,6 +26,10 @@ export const capitalCategories = [
   'other',
 ] as const;
 
+/** Tax depreciation classes of a capital item, apart from its economic (useful) life. */
+export const taxClasses = ['economic-life', 'straight-line', 'macrs-10-200db', 'macrs-10-150db', 'macrs-20-150db'] as const;
+export type TaxClass = (typeof taxClasses)[number];
+
 export const capitalUnits = ['per-stall', 'per-m2', 'per-m3', 'per-item', 'lump-sum'] as const;
 
 /** Longest id of a capital, energy or running-cost line (characters; the documents table stores capital line ids). */
@@ -59,6 +63,11 @@ const capitalItemSchema = z
     unitCost: money('Capital line unit cost', 'Cost per unit today (currency per unit)', 0, 1e9),
     lifeYears: quantity('Capital line life', 'years', 1, 60, 'Useful life (years)', { int: true }),
     replaceAtEndOfLife: flag('Replace at end of life', 'Bought again at grown cost when its life ends inside the horizon').default(true),
+    taxClass: choice('Tax class', taxClasses, "How the line is depreciated for tax: 'economic-life' = the scenario's method over its useful life; 'straight-line' = straight line over its tax life; 'macrs-…' = the US MACRS GDS tables with the half-year convention").default('economic-life'),
+    taxLifeYears: quantity('Tax life', 'years', 1, 60, 'Years of straight-line tax depreciation (years)', { int: true })
+      .nullable()
+      .default(null)
+      .describe("Years of straight-line tax depreciation for the 'straight-line' tax class; null = the useful life (years)"),
     documentIds: z.array(z.string()).default([]).describe('Ids of attached quotes or documents'),
   })
   .describe('A capital line');
@@ -122,13 +131,14 @@ const perCase = (label: string, what: string) =>
 
 export const healthSchema = z
   .object({
-    lamenessCasesPer100Cows: per100('Lameness cases', 'Lameness cases'),
+    lamenessCasesPer100Cows: per100('Lameness cases', 'New lameness cases, yearly incidence (not prevalence)'),
     lamenessCostPerCase: perCase('Lameness cost', 'Cost of a lameness case'),
     mastitisCasesPer100Cows: per100('Clinical mastitis cases', 'Clinical mastitis cases'),
     mastitisCostPerCase: perCase('Mastitis cost', 'Cost of a clinical mastitis case'),
     injuriesPer100Cows: per100('Injuries', 'Hock, knee and other housing injuries'),
     injuryCostPerCase: perCase('Injury cost', 'Cost of an injury'),
     extraCullsPer100Cows: quantity('Extra culls', 'per 100 cows per year', 0, 100, 'Culls caused by the housing beyond the herd norm (cows per 100 cows per year)'),
+    lamenessCullsPerCase: quantity('Culls per lameness case', 'culls per case', 0, 1, 'Extra culls caused by each lameness case (cows per case)').default(0),
   }, { error: 'Health must be an object with its fields' })
   .describe('Health rates and costs per case; grow with general inflation');
 
@@ -186,6 +196,9 @@ export const manureSchema = z
     sandExtraHandlingCostPerM3: money('Sand extra handling cost', 'Extra cost for sand-laden manure or sand separation today (currency per m3)', 0, 10000),
     storageDays: quantity('Storage period', 'days', 0, 730, 'Days of manure the storage must hold (days)', { int: true }),
     washWaterM3PerCowDay: quantity('Parlour wash water', 'm3/cow/day', 0, 1, 'Parlour and yard wash water to storage (m3 per cow per day)'),
+    washWaterDiverted: flag('Wash water diverted', 'True when the parlour wash water goes elsewhere (e.g. a separate low-rate system), not to the manure store').default(false),
+    storageNitrogenLoss: rate('Nitrogen lost in storage', 0, 1, 'Share of the collected nitrogen lost from the store before spreading (fraction)').default(0),
+    pastureDungCredit: rate('Pasture dung credit', 0, 1, 'Share of the nutrients dropped on pasture on grazing days valued as fertiliser saved (fraction); 0 = not valued').default(0),
     openStorageAreaM2: quantity('Open storage area', 'm2', 0, 1e6, 'Surface area of the storage open to rain (m2)'),
     netRainMPerYear: quantity('Net rain', 'm/yr', 0, 10, 'Rain minus evaporation on the open storage (m per year)'),
     freeboardM: quantity('Freeboard', 'm', 0, 3, 'Freeboard depth kept empty over the open storage area (m)'),
@@ -219,6 +232,8 @@ export const optionSchema = z
     water: waterSchema,
     bedding: beddingSchema,
     maintenanceRate: rate('Maintenance rate', 0, 0.2, 'Maintenance per year as a share of capital (fraction of capital per year)'),
+    insuranceRate: rate('Insurance rate', 0, 0.05, 'Building and equipment insurance per year as a share of capital and existing housing (fraction per year)').default(0),
+    existingHousingValue: money('Existing housing value', "Replacement value today of housing the option keeps using, e.g. the current option's old cubicle house: it carries the maintenance and insurance rates (currency)", 0, 1e9).default(0),
     energyLines: z.array(energyLineSchema).max(50, 'Energy lines: at most 50').default([]).describe('Named electricity uses (kWh per year × price)'),
     manure: manureSchema,
     capitalLines: z.array(capitalLineSchema).max(100, 'Capital lines: at most 100').default([]).describe('Capital lines bought at year 0 (currency, today\'s money)'),

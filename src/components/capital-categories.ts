@@ -1,17 +1,2 @@
-/** What each capital-line category is called on screen (tables, charts). */
-import type { capitalCategories } from '@shared/schema';
-
-export const CAPITAL_CATEGORY_LABELS: Record<(typeof capitalCategories)[number], string> = {
-  'building-shell': 'Building shell',
-  'stall-dividers': 'Stall dividers',
-  beds: 'Beds',
-  'alley-floor': 'Alley floor',
-  'manure-removal': 'Manure removal',
-  'manure-storage': 'Manure storage',
-  water: 'Water',
-  'ventilation-lighting': 'Ventilation and lighting',
-  'site-works': 'Site works',
-  fees: 'Fees',
-  equipment: 'Equipment',
-  other: 'Other',
-};
+/** The capital-category labels live in shared/ (the engine's sources and uses reads them too). */
+export { CAPITAL_CATEGORY_LABELS } from '@shared/capital-categories';

@@ -1,8 +1,7 @@
 /**
  * The scenario API on a real MariaDB: the demo scenarios, create → edit → save → versions →
  * compare → restore, option operations, optimistic locking, server results against the engine
- * run here, and export. Expected behaviour comes from issue 5 ("What to build", "Done when",
- * Contract) unless a check names another source.
+ * run here, and export. Expected behaviour comes from docs/product.md (Scenarios and versions) unless a check names another source.
  */
 import { execFile } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -44,7 +43,7 @@ describe('scenario API', () => {
   }
 
   describe('demo farm', () => {
-    it('lists the two demo scenarios with their option counts and best option by NPV', async () => {
+    it('lists the two demo scenarios with their option counts and best option by the NPV of its change', async () => {
       const res = await owner.get(`${base}/scenarios`);
       expect(res.status).toBe(200);
       const byName = new Map((res.body as { name: string }[]).map((s) => [s.name, s]));
@@ -55,12 +54,14 @@ describe('scenario API', () => {
       ] as const) {
         const fixture = demoScenarioFile(file);
         const results = evaluateScenario(fixture);
-        const best = [...results.options].sort((a, b) => b.npv - a.npv)[0]!;
+        // Best by the change against the current option (the current option counts 0: staying as today).
+        const change = (o: (typeof results.options)[number]) => o.incremental?.npv ?? 0;
+        const best = [...results.options].sort((a, b) => change(b) - change(a))[0]!;
         expect(byName.get(fixture.name)).toMatchObject({
           status: 'draft',
           version: 1,
           optionCount,
-          best: { optionId: best.id, name: best.name, npv: best.npv },
+          best: { optionId: best.id, name: best.name, npv: change(best) },
           updatedBy: 'Maren Holt',
         });
       }
@@ -74,7 +75,7 @@ describe('scenario API', () => {
     });
 
     it('demo fixtures compare a grazing current option with the four freestalls, and mattress (current) with sand', () => {
-      // issue 5, Demo data; PRODUCT.md capability 3 (five starting points).
+      // docs/product.md (Scenarios and versions), Demo data; docs/product.md capability 3 (five starting points).
       const five = demoScenarioFile('cairnbrook-five-systems.json');
       expect(five.options.map((o) => [o.startingPoint, o.current])).toEqual([
         ['grazing', true],
@@ -88,7 +89,7 @@ describe('scenario API', () => {
         ['mattress-topdressed', true],
         ['deep-sand', false],
       ]);
-      // Plausible for a 150–250 cow herd (issue 5, Demo data).
+      // Plausible for a 150–250 cow herd (docs/product.md (Scenarios and versions), Demo data).
       for (const scenario of [five, beds]) expect(scenario.herd.cows).toBeGreaterThanOrEqual(150);
       for (const scenario of [five, beds]) expect(scenario.herd.cows).toBeLessThanOrEqual(250);
     });
@@ -247,7 +248,8 @@ describe('scenario API', () => {
       const mine = structuredClone(created.scenario);
       mine.herd.wagePerHour = 18;
       const theirs = structuredClone(created.scenario);
-      theirs.herd.yieldKgPerCowDay = 27;
+      const savedYield = created.scenario.herd.yieldKgPerCowDay;
+      theirs.herd.yieldKgPerCowDay = savedYield + 1;
 
       const first = await partner.put(`${base}/scenarios/${created.id}`).send({ version: 1, scenario: mine });
       expect(first.status).toBe(200);
@@ -260,12 +262,12 @@ describe('scenario API', () => {
       const latest = await owner.get(`${base}/scenarios/${created.id}`);
       expect(latest.body.version).toBe(2);
       expect(latest.body.scenario.herd.wagePerHour).toBe(18);
-      expect(latest.body.scenario.herd.yieldKgPerCowDay).toBe(26);
+      expect(latest.body.scenario.herd.yieldKgPerCowDay).toBe(savedYield);
 
       // The refused copy is kept as a new scenario, as the client offers.
       const kept = await owner.post(`${base}/scenarios`).send({ scenario: theirs, name: 'Two editors (my copy)' });
       expect(kept.status).toBe(201);
-      expect(kept.body.scenario.herd.yieldKgPerCowDay).toBe(27);
+      expect(kept.body.scenario.herd.yieldKgPerCowDay).toBe(savedYield + 1);
       expect(kept.body.version).toBe(1);
     });
 

@@ -65,7 +65,7 @@ function one(workbook: ExcelJS.Workbook, name: string): Read {
   return named(workbook, name)[0] ?? null;
 }
 
-/** Money agrees to the cent (the brief's tolerance for the ledger). */
+/** Money agrees to the cent (docs/model.md: ledger money in cents). */
 function expectMoney(actual: Read, expected: number, label: string): void {
   expect(typeof actual, `${label}: ${String(actual)}`).toBe('number');
   expect(Math.abs((actual as number) - expected), `${label}: ${String(actual)} vs ${expected}`).toBeLessThanOrEqual(0.01 + 1e-9);
@@ -273,7 +273,8 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
       [INPUT_NAMES.termYears]: scenario.finance.termYears,
       [INPUT_NAMES.coverageThreshold]: scenario.finance.coverageThreshold,
       [INPUT_NAMES.milkPrice]: scenario.herd.milkPricePerKg,
-      [INPUT_NAMES.milkPriceGrowth]: scenario.herd.growth.milkPrice,
+      // The demo leaves milk price growth empty: the named cell holds general inflation, the rate the engine used.
+      [INPUT_NAMES.milkPriceGrowth]: scenario.herd.growth.milkPrice ?? scenario.herd.growth.general,
       [INPUT_NAMES.existingCash]: scenario.herd.existingCashForDebtServicePerYear,
       [INPUT_NAMES.existingDebt]: scenario.herd.existingDebtPaymentsPerYear,
     };
@@ -284,7 +285,7 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
   });
 
   it('carries the document properties, landscape page setup, frozen headers, the cautions and no macros', () => {
-    // Issue 7 and PRODUCT.md capability 8: document property block, A4/Letter landscape, frozen header rows, no macros.
+    // docs/product.md (Lender package) and docs/product.md capability 8: document property block, A4/Letter landscape, frozen header rows, no macros.
     expect(written.creator).toBe('Byrecast');
     expect(written.title).toContain('Cairnbrook Farm');
     expect(written.created.toISOString()).toBe(CREATED.toISOString());
@@ -299,7 +300,7 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
     const cover: string[] = [];
     written.getWorksheet('Cover')?.eachRow((row) => row.eachCell((cell) => cover.push(String(cell.value))));
     const text = cover.join('\n');
-    // PRODUCT.md, "Cautions the product shows" (read).
+    // docs/product.md, "Cautions the product shows" (read).
     for (const phrase of ['planning estimates', 'hydrogen sulfide', 'local building codes', 'nutrient management plan']) expect(text).toContain(phrase);
     for (const detail of ['Cairnbrook Farm', 'Lower Tessly (invented)', scenario.name, 'Version 1', 'Selka Dunmore', '2026-11-30']) expect(text).toContain(detail);
   });

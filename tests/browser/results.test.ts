@@ -94,7 +94,7 @@ describe('results and comparison in Chromium', () => {
         const text = (await cell.innerText()).trim();
         const expected = measure.value(option as OptionResult);
         if (expected === null) {
-          // MODEL.md: a metric that cannot be computed is null with a reason, never a number.
+          // docs/model.md: a metric that cannot be computed is null with a reason, never a number.
           expect(text, `${option.id} ${measure.key}`).toMatch(/^(not defined|not in \d+ yr|no stalls|no debt|no extra outlay|—)/);
           continue;
         }
@@ -103,7 +103,9 @@ describe('results and comparison in Chromium', () => {
         // Same value as `npm run evaluate -- --json` at the precision shown: cents for money, 0.1 % for rates.
         const digits = { money: 2, percent: 3, years: 1, ratio: 2, hours: 0, tonnes: 1 }[measure.kind];
         const scale = measure.kind === 'percent' ? 100 : 1;
-        expect((shown ?? 0) / scale, `${option.id} ${measure.key}: "${text}"`).toBeCloseTo(Number(expected.toFixed(digits)), digits);
+        // Within half a unit of the last digit shown (the screen rounds half away from zero, toFixed on the binary value).
+        const halfStep = 0.5 * 10 ** -digits;
+        expect(Math.abs((shown ?? 0) / scale - expected), `${option.id} ${measure.key}: "${text}" vs ${expected}`).toBeLessThanOrEqual(halfStep + 1e-9);
         checked += 1;
       }
     }
@@ -155,8 +157,14 @@ describe('results and comparison in Chromium', () => {
     await expect.poll(() => page.locator('[data-metric="npv"] .value').innerText()).toBe(
       new Intl.NumberFormat('en-IE', { style: 'currency', currency: 'EUR' }).format(sand?.npv ?? 0).replace('-', '\u2212'),
     );
-    const payback = await page.locator('[data-metric="payback"] .reading').innerText();
-    expect(payback).toMatch(/pays back in year \d+ of 20|does not pay back within the 20-year horizon/);
+    // The change leads: payback from operations alone (no salvage or herd value at the end), then the own figures.
+    const payback = await page.locator('[data-metric="inc-payback-operations"] .reading').innerText();
+    expect(payback).toMatch(/pays the outlay back in year \d+ of 20|not paid back from operations/);
+    expect(await page.locator('[data-metric="npv"] dt').innerText()).toMatch(/whole herd's margin/);
+    // The lender's stress table: base case and the six shocks, the threshold named.
+    await expect.poll(() => page.locator('[data-testid="stress-table"] tbody tr').count()).toBe(7);
+    expect(await page.getByTestId('stress-table').innerText()).toContain('1.25');
+    expect(await page.getByTestId('sources-and-uses').innerText()).toMatch(/Total uses[\s\S]*Total sources/);
     expect(await page.locator('[data-metric="coverage"] .reading').innerText()).toMatch(/coverage lowest in year \d+ at \d\.\d\d — (below|at or above) the lender's 1\.25|no debt service/);
     await page.getByRole('row', { name: /Milk income/ }).first().waitFor();
     await expectNoBrokenNumbers(page);

@@ -47,13 +47,20 @@ describe('npm run evaluate', { timeout: 60_000, concurrent: true }, () => {
     const { code, stdout } = await runCli(valid);
     expect(code).toBe(0);
     expect(stdout).toContain('As now (current option)');
-    expect(stdout).toContain('Against the current option');
-    expect(stdout.match(/NPV/g)?.length).toBe(5 + 4);
+    // Each of the four candidates leads with its change against the current option, then the stress.
+    expect(stdout.match(/— the change against As now/g)?.length).toBe(4);
+    expect(stdout.match(/NPV of the change -?€/g)?.length).toBe(4);
+    expect(stdout.match(/From operations/g)?.length).toBe(4);
+    expect(stdout.match(/Milk price −10 % and interest rate \+2 points/g)?.length).toBe(4);
     expect(stdout).toContain('Lowest coverage');
+    expect(stdout).toMatch(/whole farm [\d.-]+ in year \d+.*; project/);
+    // Own flows only as the whole herd's margin, after the change.
+    const first = stdout.indexOf('NPV of the change');
+    expect(stdout.indexOf("Whole herd's margin")).toBeGreaterThan(first);
   });
 
   it('refuses an invalid scenario with exit code 2 and one line per bad field', async () => {
-    // MODEL.md, Validation: a negative herd, a 300 % interest rate and a horizon of 0 are refused
+    // docs/model.md, Validation: a negative herd, a 300 % interest rate and a horizon of 0 are refused
     // with a message naming the field.
     const input = riskScenarioInput();
     const bad = writeScenario('invalid.json', {

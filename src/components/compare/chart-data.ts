@@ -35,16 +35,21 @@ const CATEGORY_COLOURS = ['#3f6f5a', '#8fb996', '#e0b64a', '#b5562b', '#26323a',
 const yearLabels = (count: number, from = 0): string[] => Array.from({ length: count }, (_, t) => String(t + from));
 const indexOf = (scenario: Scenario, id: string): number => Math.max(0, scenario.options.findIndex((o) => o.id === id));
 
-/** Cumulative discounted cash flow per option, years 0..H, at the scenario's discount rate (currency). */
+/**
+ * Cumulative discounted cash flow of each change against the current option, years 0..H, at the
+ * scenario's discount rate (currency): an option's own flows hold the whole herd's margin and would
+ * show every barn paying back at once, so only the change is drawn (its year H holds the salvage
+ * and herd value).
+ */
 export function cumulativeDiscountedChart(scenario: Scenario, results: ScenarioResults): ChartData {
   const rate = scenario.finance.discountRate;
   return {
     categories: yearLabels(results.horizonYears + 1),
     categoryTitle: 'Year',
     unit: 'money',
-    series: results.options.map((o) => ({
+    series: results.options.filter((o) => !o.current && o.incremental).map((o) => ({
       name: o.name,
-      data: cumulative(discount(rate, o.cashFlows)).map((v) => Math.round(v * 100) / 100),
+      data: cumulative(discount(rate, o.incremental?.cashFlows ?? [])).map((v) => Math.round(v * 100) / 100),
       colour: optionColour(indexOf(scenario, o.id)),
       dash: optionDash(indexOf(scenario, o.id)),
     })),

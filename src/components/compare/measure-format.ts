@@ -25,7 +25,7 @@ export function measureText(measure: Measure, value: number, format: MoneyFormat
 /** Short text and the full reason for a measure an option lacks. */
 export function missingText(measure: Measure, option: OptionResult, horizon: number): { short: string; reason: string } {
   const change = option.incremental;
-  const ofTheChange = ['irr', 'mirr', 'paybackYears', 'discountedPaybackYears', 'profitabilityIndex'].includes(measure.key);
+  const ofTheChange = ['irr', 'mirr', 'paybackYears', 'paybackFromOperationsYears', 'discountedPaybackYears', 'profitabilityIndex', 'lowestProjectCoverage'].includes(measure.key);
   if (ofTheChange && (option.current || !change)) {
     return { short: '—', reason: 'the current option is what the others are measured against' };
   }
@@ -37,6 +37,8 @@ export function missingText(measure: Measure, option: OptionResult, horizon: num
       return { short: 'not defined', reason: irrUndefinedReading(change?.irrReason, change?.cashFlows ?? []) };
     case 'mirr':
       return { short: 'not defined', reason: 'MIRR needs at least one negative and one positive cash flow' };
+    case 'paybackFromOperationsYears':
+      return { short: `not in ${horizon} yr`, reason: `the extra cash from running it does not pay back the outlay within the ${horizon}-year horizon, before salvage and herd value` };
     case 'paybackYears':
     case 'discountedPaybackYears':
       return { short: `not in ${horizon} yr`, reason: `does not pay back within the ${horizon}-year horizon` };
@@ -45,7 +47,10 @@ export function missingText(measure: Measure, option: OptionResult, horizon: num
     case 'capitalPerStall':
     case 'equivalentAnnualCostPerStall':
       return { short: 'no stalls', reason: 'this option has no stalls' };
+    case 'lowestProjectCoverage':
+      return { short: 'no extra loan', reason: 'this option borrows no more than the current one' };
     case 'lowestCoverage':
+    case 'stressedCoverage':
       return { short: 'no debt', reason: 'no debt service falls due in any year' };
     case 'incrementalNpv':
       return { short: 'not defined', reason: 'no current option to compare with' };

@@ -30,7 +30,10 @@ export type MeasureKey =
   | 'labourHours'
   | 'beddingTonnes'
   | 'manureValue'
-  | 'lowestCoverage';
+  | 'lowestCoverage'
+  | 'paybackFromOperationsYears'
+  | 'lowestProjectCoverage'
+  | 'stressedCoverage';
 
 const year1 = (values: readonly number[]): number | null => values[1] ?? null;
 
@@ -47,24 +50,34 @@ const investmentIrr = (o: OptionResult): number | null => {
   return inc && inc.irrKind !== 'borrowing' ? inc.irr : null;
 };
 
-/** Every measure the comparison shows, in table order. */
+/** Lowest whole-farm coverage under the bank's combined shock: milk −10 % with interest +2 points. */
+const stressedCoverage = (o: OptionResult): number | null => o.stress.find((s) => s.id === 'milk-10-rate+2')?.lowestCoverage ?? null;
+
+/**
+ * Every measure the comparison shows, in table order: the change against the current option
+ * first, then coverage as the bank reads it, then the option's own figures (its NPV holds the
+ * whole herd's margin and is labelled so).
+ */
 export const MEASURES: readonly Measure[] = [
-  { key: 'npv', label: 'NPV', kind: 'money', higherIsBetter: true, value: (o) => o.npv },
-  { key: 'incrementalNpv', label: 'NPV against the current option', kind: 'money', higherIsBetter: true, value: (o) => (o.current ? 0 : (o.incremental?.npv ?? null)) },
+  { key: 'incrementalNpv', label: 'NPV of the change against the current option', kind: 'money', higherIsBetter: true, value: (o) => (o.current ? 0 : (o.incremental?.npv ?? null)) },
   { key: 'irr', label: 'IRR of the change', kind: 'percent', higherIsBetter: true, value: (o) => investmentIrr(o) },
   { key: 'mirr', label: 'MIRR of the change', kind: 'percent', higherIsBetter: true, value: (o) => change(o)?.mirr ?? null },
-  { key: 'paybackYears', label: 'Payback of the change', kind: 'years', higherIsBetter: false, value: (o) => change(o)?.paybackYears ?? null },
+  { key: 'paybackFromOperationsYears', label: 'Payback of the change from operations', kind: 'years', higherIsBetter: false, value: (o) => change(o)?.paybackFromOperationsYears ?? null },
+  { key: 'paybackYears', label: 'Payback of the change, salvage and herd value included', kind: 'years', higherIsBetter: false, value: (o) => change(o)?.paybackYears ?? null },
   { key: 'discountedPaybackYears', label: 'Discounted payback of the change', kind: 'years', higherIsBetter: false, value: (o) => change(o)?.discountedPaybackYears ?? null },
   { key: 'profitabilityIndex', label: 'Profitability index of the change', kind: 'ratio', higherIsBetter: true, value: (o) => change(o)?.profitabilityIndex ?? null },
+  { key: 'lowestCoverage', label: 'Lowest whole-farm coverage', kind: 'ratio', higherIsBetter: true, value: (o) => o.lowestCoverage?.value ?? null },
+  { key: 'lowestProjectCoverage', label: 'Lowest project coverage', kind: 'ratio', higherIsBetter: true, value: (o) => (o.current ? null : (o.lowestProjectCoverage?.value ?? null)) },
+  { key: 'stressedCoverage', label: 'Lowest whole-farm coverage, milk −10 % and interest +2 points', kind: 'ratio', higherIsBetter: true, value: stressedCoverage },
   { key: 'capitalPerStall', label: 'Capital per stall', kind: 'money', higherIsBetter: false, value: (o) => o.capitalPerStall },
   { key: 'equivalentAnnualCostPerStall', label: 'Equivalent annual cost per stall', kind: 'money', higherIsBetter: false, value: (o) => o.equivalentAnnualCostPerStall },
   { key: 'labourHours', label: 'Labour, year 1 (h)', kind: 'hours', higherIsBetter: false, value: (o) => year1(o.labourHoursPerYear) },
   { key: 'beddingTonnes', label: 'Bedding bought, year 1 (t)', kind: 'tonnes', higherIsBetter: false, value: (o) => year1(o.beddingTonnesPerYear) },
   { key: 'manureValue', label: 'Manure fertiliser value, year 1', kind: 'money', higherIsBetter: true, value: (o) => year1(o.manureFertiliserValuePerYear) },
-  { key: 'lowestCoverage', label: 'Lowest whole-farm coverage', kind: 'ratio', higherIsBetter: true, value: (o) => o.lowestCoverage?.value ?? null },
+  { key: 'npv', label: "NPV of the whole herd's margin (not a return on the barn)", kind: 'money', higherIsBetter: true, value: (o) => o.npv },
 ];
 
-/** The measure with this key (NPV when the key is unknown, e.g. from an old saved preference). */
+/** The measure with this key (the NPV of the change when the key is unknown, e.g. from an old saved preference). */
 export function measureByKey(key: string): Measure {
   return MEASURES.find((m) => m.key === key) ?? (MEASURES[0] as Measure);
 }

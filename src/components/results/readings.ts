@@ -34,7 +34,7 @@ export function countSignChanges(flows: readonly number[]): number {
 
 /**
  * Operating year (1-based) in which a payback of `years` falls: 6.3 → 7, 7 → 7. Cash flows fall
- * at the end of each year (MODEL.md), so a payback of exactly t years is reached in year t.
+ * at the end of each year (docs/model.md), so a payback of exactly t years is reached in year t.
  */
 export function paybackYear(years: number): number {
   return Math.max(1, Math.ceil(years - 1e-9));
@@ -47,6 +47,18 @@ export function paybackReading(years: number | null, horizon: number, discounted
   if (years === null) return `does not pay back${how} within the ${horizon}-year horizon`;
   if (years === 0) return 'nothing to pay back: no money is out at year 0';
   return `pays back${how} in year ${paybackYear(years)} of ${horizon}`;
+}
+
+/**
+ * Payback from operations alone (no salvage or herd value at the end), in words: when it is
+ * not reached, how much of the outlay the operations win back over the horizon.
+ */
+export function operationsPaybackReading(years: number | null, reason: PaybackReason | undefined, recoveredShare: number | null, horizon: number, f: ReadingFormat): string {
+  if (reason === 'no-net-investment') return 'nothing to pay back: the change saves money at year 0';
+  if (years !== null) return `the extra cash from running it pays the outlay back in year ${paybackYear(years)} of ${horizon}, before anything is sold at the end`;
+  if (recoveredShare === null) return `not paid back from operations within the ${horizon}-year horizon`;
+  if (recoveredShare <= 0) return `not paid back from operations: over ${horizon} years running it earns less cash than staying put, so none of the outlay comes back`;
+  return `not paid back from operations: over ${horizon} years running it wins back ${f.percent(recoveredShare)} of the outlay; the rest rests on salvage and herd value at the end`;
 }
 
 /** Why an IRR is missing, in words, from the engine's reason and the flows themselves. */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { OptionResult } from '../../../shared/engine/results';
-import { measureByKey, rankOptions } from '../../../src/components/compare/ranking';
+import { MEASURES, measureByKey, rankOptions } from '../../../src/components/compare/ranking';
 
 /** Only the fields the measures read; the rest of OptionResult does not matter to ranking. */
 function option(id: string, fields: Partial<OptionResult>): OptionResult {
@@ -9,7 +9,7 @@ function option(id: string, fields: Partial<OptionResult>): OptionResult {
 
 describe('ranking options by a measure', () => {
   it('puts the highest NPV first', () => {
-    // A larger NPV is the better investment (MODEL.md Results; common practice, no source).
+    // A larger NPV is the better investment (docs/model.md Results; common practice, no source).
     const ranked = rankOptions([option('a', { npv: 10 }), option('b', { npv: 30 }), option('c', { npv: -5 })], measureByKey('npv'));
     expect(ranked.map((r) => r.option.id)).toEqual(['b', 'a', 'c']);
     expect(ranked.map((r) => r.rank)).toEqual([1, 2, 3]);
@@ -24,7 +24,7 @@ describe('ranking options by a measure', () => {
   });
 
   it('takes rates of return and payback on the change against the current option, never the whole-herd flows', () => {
-    // MODEL.md: the decision figures are the incremental ones; the current option is the yardstick.
+    // docs/model.md: the decision figures are the incremental ones; the current option is the yardstick.
     const current = option('today', { current: true, irr: 0.5, paybackYears: 1 });
     const barn = option('barn', { irr: 0.6, paybackYears: 1.2, incremental: { irr: 0.04, irrKind: 'investment', paybackYears: 14, cashFlows: [-100, 10] } as OptionResult['incremental'] });
     expect(measureByKey('irr').value(barn)).toBe(0.04);
@@ -49,7 +49,22 @@ describe('ranking options by a measure', () => {
     expect(ranked.map((r) => r.option.id)).toEqual(['b', 'a']);
   });
 
-  it('falls back to NPV for an unknown measure key', () => {
-    expect(measureByKey('nonsense').key).toBe('npv');
+  it('falls back to the NPV of the change for an unknown measure key, and lists the change first', () => {
+    // The decision is made on the change against the current option (shared/engine/README.md, Project view).
+    expect(measureByKey('nonsense').key).toBe('incrementalNpv');
+    expect(MEASURES[0]?.key).toBe('incrementalNpv');
+    expect(MEASURES.find((m) => m.key === 'npv')?.label).toMatch(/whole herd's margin/);
+  });
+
+  it('ranks by payback from operations and by stressed coverage as the engine reports them', () => {
+    // A shorter payback and a higher coverage are better (common practice, no source).
+    const barn = (id: string, payback: number | null, stressed: number) =>
+      option(id, {
+        incremental: { paybackFromOperationsYears: payback, cashFlows: [-100, 10] } as unknown as OptionResult['incremental'],
+        stress: [{ id: 'milk-10-rate+2', label: '', lowestCoverage: stressed, lowestProjectCoverage: null, npvAgainstCurrent: 0, yearsBelowThreshold: 0 }],
+      });
+    const options = [barn('a', null, 1.4), barn('b', 12, 0.9), barn('c', 8, 1.1)];
+    expect(rankOptions(options, measureByKey('paybackFromOperationsYears')).map((r) => r.option.id)).toEqual(['c', 'b', 'a']);
+    expect(rankOptions(options, measureByKey('stressedCoverage')).map((r) => r.option.id)).toEqual(['a', 'c', 'b']);
   });
 });

@@ -30,7 +30,7 @@ export function bareOption(id: string, current: boolean, changes: Partial<Option
 
 /**
  * The hand-calculated case: 100 cows, 30 kg at 0.40 with no growth; the candidate lies 1 h longer
- * (g = 1.0, half in year 1) and costs one 100 000 lump sum (life 20, not replaced), all borrowed at
+ * (g = 1.0 on every day, half in year 1) and costs one 100 000 lump sum (life 20, not replaced), all borrowed at
  * 5 % over 5 annual payments; horizon 5, discount 6 %, no tax; fertiliser prices 0.
  */
 export function handScenarioInput(): ScenarioInput {
@@ -54,6 +54,8 @@ export function handScenarioInput(): ScenarioInput {
       cullCowValue: 800,
       existingCashForDebtServicePerYear: 50_000,
       existingDebtPaymentsPerYear: 20_000,
+      // The hand figures count the lying-time response on every day of the year.
+      dryDaysPerCowYear: 0,
     },
     options: [
       bareOption('current', true),

@@ -1,6 +1,11 @@
 import { describe, expect, it } from 'vitest';
+import { evaluateScenario } from '../../../shared/engine/evaluate';
+import { organicNitrogenPerHa } from '../../../shared/engine/warnings';
 import {
   collectedManurePerYear,
+  creditedNutrients,
+  creditedValue,
+  cropNeedCap,
   fertiliserValue,
   K2O_TO_K,
   K_TO_K2O,
@@ -10,6 +15,7 @@ import {
   storedVolumeM3PerYear,
 } from '../../../shared/engine/manure';
 import { KG_PER_LB } from '../../../shared/units';
+import { bareOption, handScenario } from './hand-scenario';
 
 const ASABE_LACTATING = { massKgPerCowDay: 68, nitrogenKgPerCowDay: 0.45, phosphorusKgPerCowDay: 0.078, potassiumKgPerCowDay: 0.1 };
 
@@ -70,7 +76,7 @@ describe('manure collected and its fertiliser value', () => {
 
 describe('stored volume and handling cost', () => {
   it('adds manure, wash water, bedding and net rain', () => {
-    // Manure 2 829 480 kg ÷ 1000 kg/m³ (REFERENCES.md, from memory) = 2829.48 m³
+    // Manure 2 829 480 kg ÷ 1000 kg/m³ (docs/references.md, from memory) = 2829.48 m³
     // wash water 0.05 m³ × 120 cows × 365 days = 2190 m³ (common practice: wash water joins the store)
     // bedding 566.6625 m³; net rain 0.4 m × 1000 m² = 400 m³ → 5986.1425 m³.
     const m3 = storedVolumeM3PerYear({
@@ -78,7 +84,7 @@ describe('stored volume and handling cost', () => {
       manureDensityKgPerM3: 1000,
       washWaterM3PerCowDay: 0.05,
       cows: 120,
-      housedDays: 365,
+      washWaterDays: 365,
       beddingM3PerYear: 566.6625,
       openStorageAreaM2: 1000,
       netRainMPerYear: 0.4,
@@ -89,5 +95,72 @@ describe('stored volume and handling cost', () => {
   it('charges handling plus the sand extra per m³', () => {
     // 5986.1425 m³ × (2.50 + 1.50) = 23 944.57 (sand-laden manure costs more to handle: common practice, no source).
     expect(manureHandlingCostPerYear(5986.1425, 2.5, 1.5)).toBeCloseTo(23_944.57, 6);
+  });
+});
+
+describe('manure treated alike in grazing and housed options (docs: shared/engine/README.md, "Manure")', () => {
+  const none = { massKg: 0, nitrogenKg: 0, phosphorusKg: 0, potassiumKg: 0 };
+  const availability = { nitrogen: 0.35, phosphate: 1, potash: 1 };
+
+  it('loses the storage share of collected N, credits a share of pasture dung, and caps P2O5 and K2O at crop need', () => {
+    // Collected 1 000 kg N, 100 kg P, 200 kg K; on pasture 500 kg N, 50 kg P, 100 kg K credited at 40 %
+    // (collectedManurePerYear with the credit as the share) → 200 kg N, 20 kg P, 40 kg K.
+    const collected = { massKg: 0, nitrogenKg: 1000, phosphorusKg: 100, potassiumKg: 200 };
+    const pasture = { massKg: 0, nitrogenKg: 200, phosphorusKg: 20, potassiumKg: 40 };
+    // N: (1 000 × (1 − 0.25) + 200) × 0.35 (Cornell CSS 412, year applied, read) = 950 × 0.35 = 332.5 kg.
+    // P2O5: 120 × 2.291 (Virginia Tech SPES-201NP) = 274.92 kg; K2O: 240 × 1.2051 = 289.224 kg.
+    const uncapped = creditedNutrients(collected, pasture, 0.25, availability, { phosphateKg: null, potashKg: null });
+    expect(uncapped.nitrogenKg).toBeCloseTo(332.5, 9);
+    expect(uncapped.phosphateKg).toBeCloseTo(274.92, 9);
+    expect(uncapped.potashKg).toBeCloseTo(289.224, 9);
+    // Crop need 20 kg P2O5 and 40 kg K2O per ha on 10 ha → caps 200 and 400 kg: P2O5 capped, K2O not.
+    const capped = creditedNutrients(collected, pasture, 0.25, availability, { phosphateKg: cropNeedCap(20, 10), potashKg: cropNeedCap(40, 10) });
+    expect(capped.phosphateKg).toBe(200);
+    expect(capped.potashKg).toBeCloseTo(289.224, 9);
+    // No hectares entered → no cap.
+    expect(cropNeedCap(20, null)).toBeNull();
+    // Value at 1.20 N, 1.00 P2O5, 0.75 K2O: 332.5 × 1.2 + 200 × 1 + 289.224 × 0.75 = 399 + 200 + 216.918 = 815.918.
+    expect(creditedValue(capped, { nitrogenPerKg: 1.2, phosphatePerKg: 1, potashPerKg: 0.75 })).toBeCloseTo(815.918, 9);
+    // Nothing on pasture, no loss: the old formula.
+    expect(creditedNutrients(collected, none, 0, availability, { phosphateKg: null, potashKg: null }).nitrogenKg).toBeCloseTo(350, 9);
+  });
+
+  it('sends parlour wash water to the store on every milking day, grazing or housed, unless diverted', () => {
+    // Hand case current option turned into grazing with 150 housed days; 0.05 m³ wash water per cow per day;
+    // nothing else reaches the store but manure: 100 cows × 68 kg × 150 days × 0.9 = 918 000 kg ÷ 1000 = 918 m³;
+    // wash water 0.05 × 100 × 365 = 1 825 m³ (not × 150 housed days) → 2 743 m³ × 2.00 handling = 5 486.00.
+    const grazing = (diverted: boolean) =>
+      handScenario((input) => {
+        input.options[0] = bareOption('current', true, {
+          kind: 'grazing',
+          housedDaysPerYear: 150,
+          manure: { collectionEfficiency: 0.9, handlingCostPerM3: 2, sandExtraHandlingCostPerM3: 0, storageDays: 120, washWaterM3PerCowDay: 0.05, washWaterDiverted: diverted, openStorageAreaM2: 0, netRainMPerYear: 0, freeboardM: 0 },
+        });
+      });
+    const year1 = evaluateScenario(grazing(false)).options[0]?.years[1];
+    expect(year1?.manure.storedM3).toBeCloseTo(2743, 9);
+    expect(year1?.manureHandling).toBe(5486);
+    // Diverted: only the 918 m³ of manure → 1 836.00.
+    expect(evaluateScenario(grazing(true)).options[0]?.years[1]?.manureHandling).toBe(1836);
+  });
+});
+
+describe('organic nitrogen per hectare against the farm’s own limit', () => {
+  it('notes an option whose herd passes the limit, and none without land or limit', () => {
+    // Hand case: 100 cows × 0.45 kg N a day (ASABE D384.2, from memory) × 365 = 16 425 kg N a year;
+    // on 80 ha = 205.3 kg N/ha, above a limit of 170 kg/ha (a limit the farm enters; no source needed).
+    const withLand = handScenario((input) => {
+      input.herd.land = { hectares: 80, organicNitrogenLimitKgPerHa: 170 };
+    });
+    expect(organicNitrogenPerHa(withLand, withLand.options[0] as (typeof withLand.options)[number])).toBeCloseTo(16_425 / 80, 9);
+    const warnings = evaluateScenario(withLand).warnings.filter((w) => w.code === 'organic-nitrogen-over-limit');
+    expect(warnings.map((w) => w.optionId)).toEqual(['current', 'candidate']);
+    expect(warnings[0]?.message).toMatch(/about 205 kg N per hectare/);
+    // On 100 ha: 164.25 kg/ha, within the limit.
+    const roomy = handScenario((input) => {
+      input.herd.land = { hectares: 100, organicNitrogenLimitKgPerHa: 170 };
+    });
+    expect(evaluateScenario(roomy).warnings).toEqual([]);
+    expect(evaluateScenario(handScenario()).warnings).toEqual([]);
   });
 });

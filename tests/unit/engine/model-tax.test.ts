@@ -1,10 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { straightLineFast } from '../../../shared/engine/cents';
+import { macrsFast, straightLineFast } from '../../../shared/engine/cents';
 import { coverageRatio, lowestByYear } from '../../../shared/engine/coverage';
-import { decliningBalance, straightLine } from '../../../shared/engine/depreciation';
+import { decliningBalance, MACRS_10_YEAR_150DB, MACRS_10_YEAR_200DB, MACRS_20_YEAR_150DB, macrsSchedule, straightLine } from '../../../shared/engine/depreciation';
+import { evaluateScenario } from '../../../shared/engine/evaluate';
 import { taxableIncome, taxDepreciation, taxForYear } from '../../../shared/engine/tax';
+import { handScenario } from './hand-scenario';
 
-describe('taxable income (MODEL.md: operating margin − depreciation − loan interest)', () => {
+describe('taxable income (docs/model.md: operating margin − depreciation − loan interest)', () => {
   it('deducts depreciation and interest and adds a disposal gain', () => {
     // 50 000 − 10 000 − 4000 + 0 = 36 000; in H with salvage 8000 over book 6000: + 2000 = 38 000.
     expect(taxableIncome(50_000, 10_000, 4000, 0)).toBe(36_000);
@@ -19,7 +21,7 @@ describe('tax and losses', () => {
   });
 
   it('gives a saving on a loss when losses offset other farm income', () => {
-    // −20 000 × 25 % = −5000 (a refund against other income; MODEL.md default).
+    // −20 000 × 25 % = −5000 (a refund against other income; docs/model.md default).
     expect(taxForYear(-20_000, 0.25, true, 0)).toEqual({ tax: -5000, lossCarried: 0 });
   });
 
@@ -86,5 +88,48 @@ describe('debt-service coverage (FFSC, farmdoc daily (8):175, 2018: cash availab
     expect(lowestByYear(noisy)).toEqual({ year: 1, value: 1.4742054585405513 });
     // A real difference, however small next to the display precision, still counts.
     expect(lowestByYear([{ year: 1, value: 1.2 }, { year: 2, value: 1.2 - 1e-6 }])).toEqual({ year: 2, value: 1.2 - 1e-6 });
+  });
+});
+
+describe('tax class apart from economic life (docs: shared/engine/README.md, "Tax")', () => {
+  it('gets the same cents as the decimal.js MACRS schedule from the floating-point twin', () => {
+    // IRS Publication 946, Table A-1 (read in a copy): 10-year 200 % DB, half-year: 10.00 % in year 1.
+    expect(macrsFast(120_000, MACRS_10_YEAR_200DB.percentages)).toEqual(macrsSchedule(120_000, MACRS_10_YEAR_200DB));
+    for (const cost of [0.01, 1.25, 999.99, 12_345.67, 250_000, 1_234_567.89]) {
+      for (const table of [MACRS_10_YEAR_200DB, MACRS_10_YEAR_150DB, MACRS_20_YEAR_150DB]) expect(macrsFast(cost, table.percentages)).toEqual(macrsSchedule(cost, table));
+    }
+  });
+
+  it('depreciates a barn over the 20-year 150 % table while its economic life stays 30 years', () => {
+    // Iowa State CALT worked example (read): a 120 000 farm building on the 20-year 150 % DB table
+    // deducts 4 500 in year 1 (3.75 %). Hand case with tax 25 %, the candidate's barn is that building:
+    // life 30 years (economic), tax class macrs-20-150db.
+    const scenario = handScenario((input) => {
+      input.finance.taxRate = 0.25;
+      const barn = input.options[1]?.capitalLines?.[0];
+      if (barn?.kind === 'item') Object.assign(barn, { unitCost: 120_000, lifeYears: 30, taxClass: 'macrs-20-150db' });
+    });
+    const candidate = evaluateScenario(scenario).options.find((o) => o.id === 'candidate');
+    expect(candidate?.years[1]?.depreciation).toBe(4500);
+    // Year 2: 7.219 % = 8 662.80; salvage still follows the 30-year economic life: 120 000 × 25/30 = 100 000 at H = 5.
+    expect(candidate?.years[2]?.depreciation).toBe(8662.8);
+    expect(candidate?.years[5]?.salvage).toBe(100_000);
+  });
+
+  it('depreciates straight line over a tax life of its own, and grants can reduce the base', () => {
+    // 100 000 over a 10-year tax life (economic life 20): 10 000 a year.
+    const tenYears = handScenario((input) => {
+      input.finance.taxRate = 0.25;
+      const barn = input.options[1]?.capitalLines?.[0];
+      if (barn?.kind === 'item') Object.assign(barn, { taxClass: 'straight-line', taxLifeYears: 10 });
+    });
+    expect(evaluateScenario(tenYears).options.find((o) => o.id === 'candidate')?.years[1]?.depreciation).toBe(10_000);
+    // A 40 000 grant with grants reducing the base: (100 000 − 40 000) ÷ 10 = 6 000 a year.
+    const granted = handScenario((input) => {
+      input.finance = { ...input.finance, taxRate: 0.25, grants: 40_000, grantsReduceDepreciableBase: true };
+      const barn = input.options[1]?.capitalLines?.[0];
+      if (barn?.kind === 'item') Object.assign(barn, { taxClass: 'straight-line', taxLifeYears: 10 });
+    });
+    expect(evaluateScenario(granted).options.find((o) => o.id === 'candidate')?.years[1]?.depreciation).toBe(6000);
   });
 });

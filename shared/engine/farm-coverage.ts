@@ -1,0 +1,111 @@
+import type { Herd, Scenario } from '../schema';
+import { coverageRatio } from './coverage';
+import type { OptionPlan } from './projection';
+
+/**
+ * The existing farm as whole-farm coverage sees it (currency per year, nominal):
+ * - `cashBesideHerd`: existing farm cash − the herd margin it includes, so that the existing
+ *   farm's cash in year t = cashBesideHerd + the current option's cash for debt service in year t
+ *   (it moves with milk, feed, wages and inputs at the same prices as every option);
+ * - `debtByYear`: existing debt payments per year, index = year, [0] = 0: the payments running
+ *   through the horizon plus each listed loan up to its last year.
+ */
+export interface ExistingFarm {
+  cashBesideHerd: number;
+  debtByYear: number[];
+}
+
+/** Existing debt payments per year (currency), index = year: running payments + listed loans until their last year. */
+export function existingDebtByYear(herd: Herd, horizon: number): number[] {
+  const byYear = new Array<number>(horizon + 1).fill(0);
+  for (let t = 1; t <= horizon; t++) {
+    let due = herd.existingDebtPaymentsPerYear;
+    for (const loan of herd.existingLoans) if (t <= loan.lastYear) due += loan.paymentPerYear;
+    byYear[t] = due;
+  }
+  return byYear;
+}
+
+/**
+ * The herd margin the existing farm cash figure includes (currency per year): the entered one,
+ * else the current option's year-1 cash for debt service (so in year 1 of the base case the
+ * existing farm's cash is exactly the figure entered).
+ */
+export function herdMarginInExistingCash(herd: Herd, currentCashForDebtService: readonly number[]): number {
+  return herd.existingCashHerdMarginPerYear ?? currentCashForDebtService[1] ?? 0;
+}
+
+/** The existing farm of a scenario, given the current option's cash for debt service per year. */
+export function existingFarmOf(scenario: Scenario, currentCashForDebtService: readonly number[]): ExistingFarm {
+  const { herd } = scenario;
+  return {
+    cashBesideHerd: herd.existingCashForDebtServicePerYear - herdMarginInExistingCash(herd, currentCashForDebtService),
+    debtByYear: existingDebtByYear(herd, scenario.horizonYears),
+  };
+}
+
+/** Debt service of an option's loan in year t (currency): interest + principal. */
+export function loanDueIn(plan: OptionPlan, t: number): number {
+  return (plan.interestByYear[t] ?? 0) + (plan.principalByYear[t] ?? 0);
+}
+
+/** One option's cash for debt service and loan, and the current option's, as the ratios need them. */
+export interface CoverageSides {
+  ownCash: readonly number[];
+  ownPlan: OptionPlan;
+  currentCash: readonly number[];
+  currentPlan: OptionPlan;
+  isCurrent: boolean;
+}
+
+/**
+ * Coverage ratios of year t (FFSC definition, cash available for debt service ÷ scheduled P + I):
+ * - whole farm = (existing farm cash in year t + the change in cash against the current option)
+ *   ÷ (existing debt payments in year t + this option's loan), i.e. (cashBesideHerd + this
+ *   option's cash) ÷ (existing debt + this option's loan): each option replaces the current one,
+ *   so a current option carrying new capital counts its own loan and its own margin;
+ * - project = the change in cash ÷ the change in debt service (this option's loan − the
+ *   current option's); null for the current option and when the change borrows nothing more.
+ */
+export function coverageInYear(farm: ExistingFarm, sides: CoverageSides, t: number): { project: number | null; wholeFarm: number | null } {
+  const ownCash = sides.ownCash[t] ?? 0;
+  const ownDue = loanDueIn(sides.ownPlan, t);
+  const wholeFarm = coverageRatio(farm.cashBesideHerd + ownCash, (farm.debtByYear[t] ?? 0) + ownDue);
+  if (sides.isCurrent) return { project: null, wholeFarm };
+  const change = ownCash - (sides.currentCash[t] ?? 0);
+  return { project: coverageRatio(change, ownDue - loanDueIn(sides.currentPlan, t)), wholeFarm };
+}
+
+/** Lowest whole-farm and project coverage over years 1..H and the count of years below the threshold. */
+export interface CoverageSummary {
+  minCoverage: number | null;
+  minProjectCoverage: number | null;
+  yearsBelowThreshold: number;
+}
+
+/** The summary of {@link coverageInYear} over the horizon, without per-year objects (the fast path). */
+export function coverageSummary(farm: ExistingFarm, sides: CoverageSides, horizon: number, threshold: number): CoverageSummary {
+  let minCoverage: number | null = null;
+  let minProjectCoverage: number | null = null;
+  let yearsBelowThreshold = 0;
+  for (let t = 1; t <= horizon; t++) {
+    const { project, wholeFarm } = coverageInYear(farm, sides, t);
+    if (wholeFarm !== null) {
+      if (minCoverage === null || wholeFarm < minCoverage) minCoverage = wholeFarm;
+      if (wholeFarm < threshold) yearsBelowThreshold += 1;
+    }
+    if (project !== null && (minProjectCoverage === null || project < minProjectCoverage)) minProjectCoverage = project;
+  }
+  return { minCoverage, minProjectCoverage, yearsBelowThreshold };
+}
+
+/**
+ * The scenario with the herd margin inside the existing farm cash written in (its current
+ * option's year-1 cash for debt service when not entered), so that a shocked copy of it keeps
+ * the existing farm's figure measured at these prices and the farm takes the shock too.
+ */
+export function withExistingCashAnchored(scenario: Scenario, currentCashForDebtService: readonly number[]): Scenario {
+  if (scenario.herd.existingCashHerdMarginPerYear !== null) return scenario;
+  const margin = herdMarginInExistingCash(scenario.herd, currentCashForDebtService);
+  return { ...scenario, herd: { ...scenario.herd, existingCashHerdMarginPerYear: margin } };
+}

@@ -1,0 +1,115 @@
+import type { Option, Scenario } from '../schema';
+import { coverageSummary, type ExistingFarm } from './farm-coverage';
+import { cashAtMilk, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
+import { scaleCapitalCost, scaleMilkPrice } from './risk/perturb';
+
+/** The lender's shocks, each applied to the inputs as entered. */
+export const STRESS_TESTS = [
+  { id: 'milk-10', label: 'Milk price −10 %', milk: 0.9, ratePoints: 0, feed: 1, capital: 1 },
+  { id: 'milk-20', label: 'Milk price −20 %', milk: 0.8, ratePoints: 0, feed: 1, capital: 1 },
+  { id: 'rate+2', label: 'Interest rate +2 points', milk: 1, ratePoints: 0.02, feed: 1, capital: 1 },
+  { id: 'feed+10', label: 'Feed cost +10 %', milk: 1, ratePoints: 0, feed: 1.1, capital: 1 },
+  { id: 'capital+15', label: 'Capital cost +15 %', milk: 1, ratePoints: 0, feed: 1, capital: 1.15 },
+  { id: 'milk-10-rate+2', label: 'Milk price −10 % and interest rate +2 points', milk: 0.9, ratePoints: 0.02, feed: 1, capital: 1 },
+] as const;
+
+export type StressTest = (typeof STRESS_TESTS)[number];
+export type StressId = StressTest['id'];
+
+/** One option under one shock (ratios; currency for the NPV). */
+export interface StressResult {
+  id: StressId;
+  label: string;
+  /** Lowest whole-farm coverage over the horizon; null when nothing is due. */
+  lowestCoverage: number | null;
+  lowestProjectCoverage: number | null;
+  /** NPV of the change against the current option under the shock; null for the current option. */
+  npvAgainstCurrent: number | null;
+  /** Years whose whole-farm coverage is below the lender's threshold (count). */
+  yearsBelowThreshold: number;
+}
+
+/**
+ * Feed cost × m: every option's feed per cow-day (housed and grazing), the herd baseline's and
+ * the marginal feed cost of extra milk.
+ */
+export function scaleFeedCost(scenario: Scenario, m: number): Scenario {
+  const scale = (feed: Option['feedCostPerCowDay']) => ({ housed: feed.housed * m, grazing: feed.grazing * m });
+  return {
+    ...scenario,
+    herd: { ...scenario.herd, feedCostPerCowDay: scale(scenario.herd.feedCostPerCowDay), marginalFeedCostPerKgMilk: scenario.herd.marginalFeedCostPerKgMilk * m },
+    options: scenario.options.map((option) => ({ ...option, feedCostPerCowDay: scale(option.feedCostPerCowDay) })),
+  };
+}
+
+/** The scenario with one stress test's shocks applied (the discount rate is left alone). */
+export function shockScenario(scenario: Scenario, test: StressTest): Scenario {
+  let shocked = scenario;
+  if (test.milk !== 1) shocked = scaleMilkPrice(shocked, test.milk);
+  if (test.feed !== 1) shocked = scaleFeedCost(shocked, test.feed);
+  if (test.capital !== 1) shocked = scaleCapitalCost(shocked, test.capital);
+  if (test.ratePoints !== 0) shocked = { ...shocked, finance: { ...shocked.finance, interestRate: shocked.finance.interestRate + test.ratePoints } };
+  return shocked;
+}
+
+/** One option as the stress table re-evaluates it: its plan, its milk model and its year-0 flow. */
+export interface StressOption {
+  option: Option;
+  plan: OptionPlan;
+  model: MilkModel;
+  yearZero: number;
+}
+
+/** Cash for debt service per year and NPV (currency) of one option under a shocked scenario. */
+function underShock(shocked: Scenario, test: StressTest, entry: StressOption, index: number, currentLyingHours: number): { cash: number[]; plan: OptionPlan; npv: number } {
+  let { plan, model, yearZero } = entry;
+  const option = shocked.options[index] ?? entry.option;
+  // Interest and capital change the plan (loan, depreciation); capital also the maintenance inside the margin.
+  const buysCapital = entry.plan.capitalTotal > 0;
+  if (buysCapital && (test.ratePoints !== 0 || test.capital !== 1)) plan = planOption(shocked, option, 'fast').plan;
+  if (buysCapital && test.capital !== 1) {
+    const projection = projectOption(shocked, option, plan, currentLyingHours, false, true);
+    model = projection.milk ?? model;
+    yearZero = projection.cashFlows[0] ?? 0;
+  }
+  // Feed per cow and per extra kg of milk are linear in the feed prices.
+  if (test.feed !== 1) model = { ...model, feedPerCow: model.feedPerCow * test.feed, marginalFeedCostPerKg: model.marginalFeedCostPerKg * test.feed };
+  const { finance, herd } = shocked;
+  const cash = new Array<number>(plan.horizon + 1);
+  const npv = cashAtMilk(model, plan, finance, yearZero, herd.milkPricePerKg, herd.lyingResponseKgPerHour, cash);
+  return { cash, plan, npv };
+}
+
+/**
+ * The lender's stress table, per option (index = option) and shock (STRESS_TESTS order): the
+ * scenario, with the existing farm's figure anchored at its own prices, shocked and evaluated
+ * again. Each option is re-evaluated from its milk model (milk, feed and tax unrounded, as the
+ * break-even searches), re-planned when the interest rate or the capital moves and re-projected
+ * when the capital moves, so the figures agree with a full evaluation of the shocked scenario
+ * within the cents of rounding.
+ */
+export function stressTables(anchored: Scenario, farm: ExistingFarm, entries: readonly StressOption[], currentIndex: number): StressResult[][] {
+  const currentLyingHours = entries[currentIndex]?.option.lyingHoursPerDay ?? 0;
+  const threshold = anchored.finance.coverageThreshold;
+  const tables = entries.map((): StressResult[] => []);
+  for (const test of STRESS_TESTS) {
+    const shocked = shockScenario(anchored, test);
+    const runs = entries.map((entry, index) => underShock(shocked, test, entry, index, currentLyingHours));
+    const current = runs[currentIndex];
+    if (!current) continue;
+    runs.forEach((run, index) => {
+      const isCurrent = index === currentIndex;
+      const sides = { ownCash: run.cash, ownPlan: run.plan, currentCash: current.cash, currentPlan: current.plan, isCurrent };
+      const summary = coverageSummary(farm, sides, run.plan.horizon, threshold);
+      tables[index]?.push({
+        id: test.id,
+        label: test.label,
+        lowestCoverage: summary.minCoverage,
+        lowestProjectCoverage: summary.minProjectCoverage,
+        npvAgainstCurrent: isCurrent ? null : run.npv - current.npv,
+        yearsBelowThreshold: summary.yearsBelowThreshold,
+      });
+    });
+  }
+  return tables;
+}

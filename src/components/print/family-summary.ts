@@ -1,0 +1,121 @@
+/**
+ * The family's one-page summary in everyday words: each option ranked by what it changes against
+ * the current option, what that means day to day, and the assumptions that drive the answer with
+ * their break-evens. Pure: reads the engine's results and the sensitivity as they are.
+ */
+import type { OptionResult, ScenarioResults } from '@shared/engine/results';
+import type { SensitivityResult } from '@shared/engine/risk/sensitivity';
+import type { Scenario } from '@shared/schema';
+import type { ReadingFormat } from '@/components/results/readings';
+import { RISK_INPUT_LABELS } from '@/components/risk/risk-labels';
+
+export interface FamilyOption {
+  id: string;
+  name: string;
+  /** One sentence: better or worse than the current option, in today's money. */
+  headline: string;
+  better: boolean;
+  /** Everyday consequences: hours a day, bedding a week, cash left after the loans each year. */
+  dayToDay: string[];
+}
+
+export interface FamilySummary {
+  question: string;
+  /** The current option's cash left after the loans, as the yardstick. */
+  staying: string | null;
+  options: FamilyOption[];
+  drivers: string[];
+}
+
+const DAYS_PER_YEAR = 365;
+const WEEKS_PER_YEAR = 52;
+
+/** Whole-farm cash left in year t after every loan payment (currency): existing farm + the change − existing debt − this loan. */
+export function cashLeftAfterLoans(results: ScenarioResults, option: OptionResult, current: OptionResult, t: number): number {
+  const farm = results.existingFarm;
+  const change = option.current ? 0 : (option.years[t]?.cashAvailableForDebtService ?? 0) - (current.years[t]?.cashAvailableForDebtService ?? 0);
+  const loanPayment = option.loan.years[t - 1]?.payment ?? 0;
+  return (farm.cashForDebtServiceByYear[t] ?? 0) + change - (farm.debtPaymentsByYear[t] ?? 0) - loanPayment;
+}
+
+function moreOrLess(value: number, f: ReadingFormat, digits: number, unit: string): string {
+  if (Math.abs(value) < 0.5 * 10 ** -digits) return `no change in ${unit}`;
+  return `${f.number(Math.abs(value), digits)} ${unit} ${value > 0 ? 'more' : 'less'}`;
+}
+
+function dayToDay(results: ScenarioResults, option: OptionResult, current: OptionResult, horizon: number, f: ReadingFormat): string[] {
+  const hoursPerDay = ((option.labourHoursPerYear[1] ?? 0) - (current.labourHoursPerYear[1] ?? 0)) / DAYS_PER_YEAR;
+  const beddingPerWeek = ((option.beddingTonnesPerYear[1] ?? 0) - (current.beddingTonnesPerYear[1] ?? 0)) / WEEKS_PER_YEAR;
+  const lines = [`Work: ${moreOrLess(hoursPerDay, f, 1, 'hours a day')} than today.`, `Bedding: ${moreOrLess(beddingPerWeek, f, 1, 'tonnes a week')} to buy and spread.`];
+  let lowest = { year: 1, cash: Number.POSITIVE_INFINITY };
+  for (let t = 1; t <= horizon; t++) {
+    const cash = cashLeftAfterLoans(results, option, current, t);
+    if (cash < lowest.cash) lowest = { year: t, cash };
+  }
+  const first = cashLeftAfterLoans(results, option, current, 1);
+  const tail = lowest.year === 1 ? '' : `; the tightest year is year ${lowest.year} with ${f.money(lowest.cash)}`;
+  lines.push(`Cash left for the farm after every loan payment: ${f.money(first)} in year 1${tail}.`);
+  return lines;
+}
+
+/** The two or three inputs that move the best option's answer most, with the break-evens in words. */
+function drivers(scenario: Scenario, best: OptionResult | undefined, currentName: string, sens: SensitivityResult | null, f: ReadingFormat, perKg: (price: number) => string): string[] {
+  if (!best?.incremental) return [];
+  const inc = best.incremental;
+  const price = scenario.herd.milkPricePerKg;
+  const out: string[] = [];
+  const swings = sens?.options.find((o) => o.optionId === best.id)?.incrementalNpv ?? [];
+  for (const swing of swings.slice(0, 3)) {
+    const label = RISK_INPUT_LABELS[swing.key];
+    let sentence = `${label}: from its low to its high value the ${best.name} ends between ${f.money(swing.atLow)} and ${f.money(swing.atHigh)} against ${currentName}.`;
+    if (swing.key === 'milkPrice') {
+      sentence +=
+        inc.breakEvenMilkPrice === null
+          ? ` No milk price up to ten times today's makes it as good as ${currentName}.`
+          : ` It only matches ${currentName} when milk pays ${perKg(inc.breakEvenMilkPrice)} (today ${perKg(price)}).`;
+      const atThreshold = best.breakEvenMilkPriceForCoverage.atThreshold;
+      if (atThreshold !== null) sentence += ` The bank's coverage of ${f.number(scenario.finance.coverageThreshold, 2)} holds while milk pays at least ${perKg(atThreshold)}.`;
+    }
+    if (swing.key === 'yieldResponse' && inc.breakEvenLyingResponse !== null) {
+      sentence += ` Cows would need to give ${f.number(inc.breakEvenLyingResponse, 2)} kg more milk a day for each extra hour lying down for it to break even; ${f.number(scenario.herd.lyingResponseKgPerHour, 2)} kg is assumed.`;
+    }
+    out.push(sentence);
+  }
+  return out;
+}
+
+/**
+ * The summary; the options other than the current one ranked by the NPV of the change, best
+ * first. `perKg` writes a milk price (money per kg, to the tenth of a cent).
+ */
+export function familySummary(scenario: Scenario, results: ScenarioResults, sens: SensitivityResult | null, f: ReadingFormat, perKg: (price: number) => string): FamilySummary {
+  const current = results.options.find((o) => o.current) ?? results.options[0];
+  const currentName = current?.name ?? 'the current option';
+  const horizon = results.horizonYears;
+  const ranked = results.options.filter((o) => !o.current && o.incremental).sort((a, b) => (b.incremental?.npv ?? 0) - (a.incremental?.npv ?? 0));
+  const options = current
+    ? ranked.map((o): FamilyOption => {
+        const npv = o.incremental?.npv ?? 0;
+        const better = npv >= 0;
+        return {
+          id: o.id,
+          name: o.name,
+          better,
+          headline: better
+            ? `leaves the family ${f.money(npv)} better off than ${currentName} over ${horizon} years, in today's money.`
+            : `leaves the family ${f.money(-npv)} worse off than ${currentName} over ${horizon} years, in today's money.`,
+          dayToDay: dayToDay(results, o, current, horizon, f),
+        };
+      })
+    : [];
+  const staying = current ? `Staying with ${currentName}: ${f.money(cashLeftAfterLoans(results, current, current, 1))} left for the farm after every loan payment in year 1.` : null;
+  return {
+    staying,
+    question:
+      ranked.length === 1
+        ? `Should the farm stay with ${currentName} or change to ${ranked[0]?.name ?? 'the other option'}?`
+        : `Should the farm stay with ${currentName} or change to one of these ${ranked.length} options?`,
+    options,
+    drivers: drivers(scenario, ranked[0], currentName, sens, f, perKg),
+  };
+}
