@@ -17,8 +17,6 @@ export interface WorkbookRisk {
   monteCarlo?: MonteCarloResult;
 }
 
-const INPUT_LABELS = RISK_INPUT_LABELS;
-
 const percentOf = (multiplier: number) => `${multiplier >= 1 ? '+' : '−'}${Math.round(Math.abs(multiplier - 1) * 100)} %`;
 
 /** Builds the risk sheet. */
@@ -59,7 +57,7 @@ export function addRiskSheet(context: WorkbookContext, risk: WorkbookRisk | unde
       ws.getCell(r, 3).numFmt = money;
       r++;
       for (const swing of swings) {
-        ws.getCell(r, 1).value = INPUT_LABELS[swing.key];
+        ws.getCell(r, 1).value = RISK_INPUT_LABELS[swing.key];
         ws.getCell(r, 2).value = percentOf(swing.lowMultiplier);
         ws.getCell(r, 3).value = swing.atLow;
         ws.getCell(r, 4).value = percentOf(swing.highMultiplier);
@@ -85,7 +83,7 @@ export function addRiskSheet(context: WorkbookContext, risk: WorkbookRisk | unde
     const inputs = context.scenario.risk.monteCarlo.inputs;
     ws.getCell(r, 1).value =
       `${mc.drawsDone.toLocaleString('en')} draws, seed ${mc.seed}${mc.cancelled ? ' (stopped early)' : ''}; uncertain inputs: ` +
-      (inputs.length === 0 ? 'none (every draw equals the base case)' : inputs.map((input) => `${INPUT_LABELS[input.key]} (${input.distribution})`).join(', '));
+      (inputs.length === 0 ? 'none (every draw equals the base case)' : inputs.map((input) => `${RISK_INPUT_LABELS[input.key]} (${input.distribution})`).join(', '));
     styleNote(ws.getCell(r, 1));
     r++;
     const header = [

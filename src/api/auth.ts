@@ -1,25 +1,15 @@
 import type {
   ChangePasswordInput,
-  FarmRole,
   PasswordResetInput,
   PasswordResetRequestInput,
   SignInInput,
   SignUpInput,
   UpdateProfileInput,
 } from '@shared/schema/accounts';
+import type { Session, SessionUser } from '@shared/responses';
 import { http } from './client';
 
-export interface SessionUser {
-  id: number;
-  email: string;
-  name: string;
-  isAdmin: boolean;
-}
-
-export interface Session {
-  user: SessionUser;
-  memberships: { farmId: number; role: FarmRole }[];
-}
+export type { Session, SessionUser };
 
 export const authApi = {
   /** null when signed out. */

@@ -1,41 +1,11 @@
 /** Preferences, decisions and the saved Monte Carlo result of a scenario. */
 import type { MonteCarloResult } from '@shared/engine/risk/monte-carlo';
-import type { FarmRole } from '@shared/schema/accounts';
+import type { Decision, Preference, PreferencesView, RiskResultView } from '@shared/responses';
 import { http } from './client';
 
-export interface Preference {
-  userId: number;
-  name: string;
-  role: FarmRole | null;
-  optionId: string;
-  reason: string;
-  updatedAt: string;
-}
-
-export interface Decision {
-  id: number;
-  optionId: string;
-  optionName: string;
-  decidedBy: { id: number; name: string } | null;
-  decidedAt: string;
-  note: string;
-  scenarioVersion: number;
-}
-
-export interface PreferencesView {
-  preferences: Preference[];
-  decision: Decision | null;
-  earlierDecisions: Decision[];
-}
-
-export interface SavedRiskResult {
-  result: MonteCarloResult;
-  scenarioVersion: number;
-  inputsHash: string;
-  fresh: boolean;
-  savedBy: string | null;
-  savedAt: string;
-}
+export type { Decision, Preference, PreferencesView };
+/** The Monte Carlo result kept with a scenario. */
+export type SavedRiskResult = RiskResultView;
 
 const base = (farmId: number, scenarioId: number) => `/farms/${farmId}/scenarios/${scenarioId}`;
 

@@ -212,6 +212,26 @@ describe('lender shares', () => {
       expect((await bank.get(`${farm()}/documents/${onFarm.body.id}/download`)).status).toBe(404);
     });
 
+    it('shows the lender the quotes of the shared scenario, and answers 404 for a scenario not shared', async () => {
+      // docs/product.md (Lender package): a lender sees only what is shared; a scenario they cannot see is "not found".
+      const seen = (await owner.get(scenario(mattressId))).body as { scenario: Scenario };
+      const line = seen.scenario.options.flatMap((o) => o.capitalLines).find((l) => l.kind === 'item');
+      expect(line).toBeDefined();
+      const quote = await owner
+        .post(`${farm()}/documents`)
+        .field('scenarioId', String(mattressId))
+        .field('capitalLineId', line!.id)
+        .attach('file', pdfBytes(), 'Stall quote.pdf');
+      expect(quote.status).toBe(201);
+      expect((await owner.patch(`${farm()}/documents/${quote.body.id}`).send({ quoteAmount: 41250 })).status).toBe(200);
+
+      const shared = await bank.get(`${scenario(mattressId)}/quotes`);
+      expect(shared.status).toBe(200);
+      expect(shared.body.lines).toEqual([{ capitalLineId: line!.id, quoted: true, quoteTotal: 41250, documents: [{ id: quote.body.id, fileName: 'Stall quote.pdf', quoteAmount: 41250 }] }]);
+      expect((await bank.get(`${scenario(fiveSystemsId)}/quotes`)).status).toBe(404);
+      expect((await bank.get(scenario(fiveSystemsId))).status).toBe(404);
+    });
+
     it('ends access at once when the share is revoked', async () => {
       expect((await owner.post(`${farm()}/lender-shares/${firstShareId}/revoke`)).status).toBe(200);
       expect((await bank.get(`${farm()}/scenarios`)).body).toEqual([]);

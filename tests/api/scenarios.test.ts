@@ -12,6 +12,8 @@ import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { evaluateScenario } from '../../shared/engine/evaluate.js';
 import { scenarioSchema, type Scenario } from '../../shared/schema/index.js';
+import { eq } from 'drizzle-orm';
+import { scenariosTable, scenarioVersionsTable } from '../../server/db/schema/index.js';
 import { createTestApp, type TestApp } from '../helpers/app.js';
 import { asJson, demoScenarioFile, farmIdByName, signedIn } from '../helpers/scenarios.js';
 
@@ -239,6 +241,31 @@ describe('scenario API', () => {
       // shared/schema/scenario.ts: a scenario holds at most 12 options.
       expect(res.body.error.fields['scenario.options']).toMatch(/at most 12/);
       expect((await owner.get(`${base}/scenarios/${created.id}`)).body.version).toBe(version);
+    });
+  });
+
+  describe('documents saved before a field existed', () => {
+    it('reads and evaluates an older document, filling the fields added since with their defaults', async () => {
+      const created = await createScenario('Saved long ago');
+      // Strip fields the schema added later (insurance, existing housing, tax class, lying cap…)
+      // from the stored version, as a document saved before them would be.
+      const old = structuredClone(created.scenario) as unknown as Record<string, unknown> & Scenario;
+      const herd = old.herd as unknown as Record<string, unknown>;
+      delete herd.dryDaysPerCowYear;
+      delete herd.lyingResponseCapHours;
+      delete herd.land;
+      for (const option of old.options as unknown as Record<string, unknown>[]) {
+        delete option.insuranceRate;
+        delete option.existingHousingValue;
+        for (const line of option.capitalLines as Record<string, unknown>[]) delete line.taxClass;
+      }
+      await t.database.db.update(scenarioVersionsTable).set({ document: old }).where(eq(scenarioVersionsTable.scenarioId, created.id));
+      await t.database.db.update(scenariosTable).set({ document: old }).where(eq(scenariosTable.id, created.id));
+      const read = await owner.get(`${base}/scenarios/${created.id}`);
+      expect(read.status).toBe(200);
+      expect(read.body.scenario.herd.dryDaysPerCowYear).toBe(60);
+      expect(read.body.scenario.options[0].insuranceRate).toBe(0);
+      expect(Number.isFinite(read.body.results.options[0].npv)).toBe(true);
     });
   });
 

@@ -3,6 +3,7 @@ import { and, asc, desc, eq } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/mysql-core';
 import type { Database } from '../client.js';
 import { scenariosTable, scenarioVersionsTable, usersTable, type ScenarioStatus } from '../schema/index.js';
+import { scenarioSchema } from '../../../shared/schema/index.js';
 
 /** What the list shows without reading documents. */
 export interface ScenarioSummary {
@@ -39,6 +40,16 @@ function parseJson(value: unknown): unknown {
   return typeof value === 'string' ? JSON.parse(value) : value;
 }
 
+/**
+ * A stored scenario document with the defaults of fields added since it was saved filled in (the
+ * schema gives each new field a default that keeps old documents valid); a document the schema
+ * no longer accepts is returned as stored, for the service to refuse with a clear error.
+ */
+function storedDocument(value: unknown): unknown {
+  const parsed = scenarioSchema.safeParse(parseJson(value));
+  return parsed.success ? parsed.data : parseJson(value);
+}
+
 function person(id: number | null, name: string | null): { id: number; name: string } | null {
   return id !== null && name !== null ? { id, name } : null;
 }
@@ -67,7 +78,7 @@ function toRecord({ row, creatorName, updaterName }: ScenarioSelectRow): Scenari
     name: row.name,
     status: row.status,
     version: row.version,
-    document: parseJson(row.document),
+    document: storedDocument(row.document),
     summary: parseJson(row.summary) as ScenarioSummary,
     createdBy: person(row.createdBy, creatorName),
     updatedBy: person(row.updatedBy, updaterName),
@@ -209,5 +220,5 @@ export async function findVersion(db: Executor, scenarioId: number, version: num
     .leftJoin(usersTable, eq(usersTable.id, scenarioVersionsTable.authorId))
     .where(and(eq(scenarioVersionsTable.scenarioId, scenarioId), eq(scenarioVersionsTable.version, version)));
   if (!row) return null;
-  return { version: row.version, document: parseJson(row.document), note: row.note, createdAt: row.createdAt, author: person(row.authorId, row.authorName) };
+  return { version: row.version, document: storedDocument(row.document), note: row.note, createdAt: row.createdAt, author: person(row.authorId, row.authorName) };
 }
