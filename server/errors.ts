@@ -55,6 +55,17 @@ interface HttpishError {
   message?: string;
 }
 
+const CONNECTION_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'ENOTFOUND', 'PROTOCOL_CONNECTION_LOST', 'ER_CON_COUNT_ERROR', 'ER_SERVER_SHUTDOWN']);
+
+/** True when the error (or one it wraps, as Drizzle does) says the database cannot be reached, not that a query was wrong. */
+export function isDatabaseUnavailable(err: unknown): boolean {
+  for (let e = err, depth = 0; e && typeof e === 'object' && depth < 5; e = (e as { cause?: unknown }).cause, depth++) {
+    const { code, fatal, message } = e as { code?: unknown; fatal?: unknown; message?: unknown };
+    if (fatal === true || (typeof code === 'string' && CONNECTION_CODES.has(code)) || message === 'Pool is closed.') return true;
+  }
+  return false;
+}
+
 /** The one error middleware: known errors keep their status, the rest become 500 without a stack. */
 export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err: unknown, _req, res, _next) => {
@@ -87,6 +98,11 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
               ? httpish.message
               : 'Bad request';
       res.status(status).json({ error: { code, message } });
+      return;
+    }
+    if (isDatabaseUnavailable(err)) {
+      logger.warn({ err }, 'database unavailable');
+      res.status(503).json({ error: { code: 'database_unavailable', message: 'Byrecast cannot reach its database just now. Try again in a moment.' } });
       return;
     }
     logger.error({ err }, 'unhandled error');

@@ -12,7 +12,8 @@ export interface DatabaseHandle {
 
 /** Opens a connection pool; `mode: 'planetscale'` because MariaDB lacks LATERAL joins. */
 export function openDatabase(url: string, connectionLimit = 10): DatabaseHandle {
-  const pool = mysql.createPool({ uri: url, connectionLimit, timezone: 'Z', dateStrings: false });
+  // A stopped database must answer in seconds (503), not hang a request: short connect timeout.
+  const pool = mysql.createPool({ uri: url, connectionLimit, timezone: 'Z', dateStrings: false, connectTimeout: 2_000 });
   const db = drizzle({ client: pool, schema, mode: 'planetscale' });
   return { db, pool, close: () => pool.end() };
 }

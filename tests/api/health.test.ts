@@ -40,6 +40,21 @@ describe('GET /api/health', () => {
     expect(res.body.database).toBe('down');
   });
 
+  it('answers API routes 503 database_unavailable within 3 s while the database is gone, without crashing', async () => {
+    const broken = await createTestApp({ seedDemo: true });
+    const owner = await request(broken.app).post('/api/auth/sign-in').send({ email: 'owner@byrecast.test', password: 'byrecast-demo' });
+    const cookie = (owner.headers['set-cookie'] as unknown as string[])[0]!.split(';')[0]!;
+    await broken.database.pool.end();
+    for (const [method, path] of [['get', '/api/farms'], ['get', '/api/auth/me'], ['post', '/api/auth/sign-in']] as const) {
+      const started = Date.now();
+      const res = await request(broken.app)[method](path).set('cookie', cookie).send({ email: 'owner@byrecast.test', password: 'byrecast-demo' });
+      expect(res.status, path).toBe(503);
+      expect(res.body.error.code, path).toBe('database_unavailable');
+      expect(Date.now() - started, path).toBeLessThan(3_000);
+    }
+    expect((await request(broken.app).get('/api/health')).status).toBe(503);
+  });
+
   it('answers unknown API routes with the error shape, not HTML', async () => {
     const res = await request(t.app).get('/api/nope');
     expect(res.status).toBe(404);

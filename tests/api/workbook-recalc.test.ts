@@ -166,8 +166,7 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
   let recalculated: ExcelJS.Workbook;
   let recalculatedWithNewRates: ExcelJS.Workbook;
   let fileBytes: Buffer;
-  // The second demo: a level loan on a steady herd, so every year's coverage is the same ratio
-  // apart from floating-point noise, and the year of the lowest is decided by the tie rule.
+  // The second demo, whose years of coverage lie close together.
   const levelScenario = demoScenario('cairnbrook-mattress-or-sand');
   const levelResults = evaluateScenario(levelScenario);
   let recalculatedLevel: ExcelJS.Workbook;
@@ -220,12 +219,9 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
     checkAllOptions(recalculated, results);
   });
 
-  it('finds the same year of lowest coverage as the app when the years tie', () => {
-    const mattress = levelResults.options[0]!;
-    // The engine's tie rule: equal lows (to 1e-9) go to the earliest year; here that is year 1.
-    const ratios = mattress.coverage.map((c) => c.wholeFarm ?? NaN);
-    expect(Math.max(...ratios) - Math.min(...ratios)).toBeLessThan(1e-9);
-    expect(mattress.lowestCoverage?.year).toBe(1);
+  it('finds the same year of lowest coverage as the app on the second demo too', () => {
+    // The tie rule itself (equal lows to 1e-9 go to the earliest year) is checked on noisy ratios
+    // in tests/unit/engine/model-tax.test.ts; here LibreOffice must land on the engine's year.
     checkAllOptions(recalculatedLevel, levelResults);
   });
 
