@@ -12,7 +12,9 @@ import type { AppConfig } from './config.js';
 import { databaseIsUp, type Database } from './db/client.js';
 import { AppError, errorHandler, notFound } from './errors.js';
 import type { Mailer } from './mail/mailer.js';
+import { requestLogOptions } from './logger.js';
 import { apiRoutes } from './routes/index.js';
+import { refuseMalformedText } from './well-formed-text.js';
 
 export interface AppDeps {
   db: Database;
@@ -60,6 +62,10 @@ export function createApp(deps: AppDeps): express.Express {
         useDefaults: true,
         directives: {
           'upgrade-insecure-requests': null,
+          // Fonts and styles are shipped with the client: no https: loophole for outside ones.
+          // PrimeVue writes its theme as inline <style> elements, hence 'unsafe-inline' for styles.
+          'font-src': ["'self'", 'data:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
           'img-src': ["'self'", 'data:', 'blob:'],
           'worker-src': ["'self'", 'blob:'],
         },
@@ -67,8 +73,9 @@ export function createApp(deps: AppDeps): express.Express {
       strictTransportSecurity: false,
     }),
   );
-  if (config.logLevel !== 'silent') app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  if (config.logLevel !== 'silent') app.use(pinoHttp(requestLogOptions(logger)));
   app.use(express.json({ limit: '1mb' }));
+  app.use(refuseMalformedText);
   app.use(cookieParser());
   app.use('/api', sameOriginOnly(config.appOrigin));
   app.use(loadSession(db, config.jwtSecret));

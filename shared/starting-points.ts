@@ -3,7 +3,7 @@ import { stallsFor } from './engine/sizing';
 import { beddingTonnesPerYear, beddingToStorageM3PerYear } from './engine/bedding';
 import { manureStorageVolumeM3, MIN_TROUGH_PERIMETER_PER_COW_M, STALL_GUIDANCE, type Range } from './engine/sizing';
 
-// Sources of the defaults. 'reference' names a REFERENCES.md source, 'common-practice' a trade
+// Sources of the defaults. 'reference' names a docs/references.md source, 'common-practice' a trade
 // rule of thumb, 'assumption' an invented planning figure the user should replace.
 const ref = (note: string): Source => ({ kind: 'reference', note });
 const practice = (note: string): Source => ({ kind: 'common-practice', note });
@@ -18,6 +18,8 @@ const MATTRESS_LAMENESS_INCIDENCE = 35;
 const SAND_LAMENESS_INCIDENCE = Math.round(((MATTRESS_LAMENESS_INCIDENCE * 11.1) / 24) * 10) / 10;
 const LAMENESS_CULLS_PER_CASE = 0.05;
 const LAMENESS_MATTRESS_SOURCE = assumed(`new cases a year (incidence); ${COOK} measured 24.0 % of cows lame in mattress herds on the day (prevalence, read), and a year sees more cases than are lame on one day`);
+/** Building and equipment insurance as a share of capital per year. */
+const INSURANCE_RATE = 0.003;
 /** Share of the collected N lost from a slurry store before spreading. */
 const STORAGE_N_LOSS = 0.25;
 const PENN_STATE_WATER = 'Penn State Extension, watering system design: ≥ 3 in (7.6 cm) per cow, ≥ 10 US gal/min';
@@ -68,6 +70,8 @@ const COMMON_SOURCES: Record<string, Source> = {
   'manure.netRainMPerYear': assumed('rain minus evaporation; replace with the local figure'),
   'manure.freeboardM': assumed('freeboard kept empty'),
   maintenanceRate: assumed('1 % of capital a year'),
+  insuranceRate: assumed('0.3 % of capital a year for buildings and equipment insurance, invented'),
+  existingHousingValue: assumed('no existing housing carried'),
 };
 
 /** A bare-mattress freestall with rigid steel dividers; the flexible-divider one differs only in injuries. */
@@ -285,6 +289,7 @@ function capitalLinesFor(startingPoint: StartingPoint, defaults: Defaults, stall
     add(item('troughs', 'Water troughs', 'water', 'per-item', null, 900, 15), 'invented cost per trough');
     add(item('ventilation', 'Ventilation and lighting', 'ventilation-lighting', 'per-stall', null, 150, 15), 'invented cost per stall');
     add(item('feed-barrier', 'Feed barrier and feed lane', 'equipment', 'per-stall', null, 250, 20), 'invented cost per stall');
+    add(item('mixer-wagon', 'Mixer wagon for the barn ration', 'equipment', 'lump-sum', null, 45000, 12), 'invented cost');
     add(item('feed-storage', 'Extra silage storage for year-round housing', 'equipment', 'lump-sum', null, 45000, 25, false), 'invented cost');
     add(item('pens', 'Calving and special-needs pens', 'other', 'lump-sum', null, 30000, 25, false), 'invented cost');
     add(item('parlour', 'Parlour units for the larger herd', 'equipment', 'lump-sum', null, 40000, 15), 'invented cost');
@@ -396,6 +401,8 @@ export function createOption(startingPoint: StartingPoint, herd: Herd, settings:
     water: { troughs, troughPerimeterM: TROUGH_PERIMETER_M, fillRateLitresPerMinute: 40 },
     bedding: { ...defaults.bedding },
     maintenanceRate: defaults.maintenanceRate,
+    insuranceRate: INSURANCE_RATE,
+    existingHousingValue: 0,
     energyLines: energyLinesFor(defaults, stalls),
     manure: { ...defaults.manure, openStorageAreaM2: Math.round(storageWithoutRain / STORE_DEPTH_M) },
     capitalLines: capital.lines,

@@ -60,13 +60,16 @@ function scenario(farm: DemoFarm['farm'], herd: Herd, name: string, description:
   } satisfies ScenarioInput));
 }
 
+/** Replacement value of the old cubicle house the grazing herd winters in (EUR, invented). */
+const OLD_CUBICLE_HOUSE_VALUE = 400000;
+
 /** Cows the new barn is built for: the herd grows from 190 to 230 when it moves in (the grazing platform holds no more). */
 const ADDED_COWS = 40;
 /**
  * Cairnbrook's own planning figure for a mixed ration fed in the barn all year against its grazing
- * herd's 20 kg (kg/cow/day beyond the lying-time effect): about 28 kg in the barn.
+ * herd's 20 kg (kg/cow/day beyond the lying-time effect): about 28–29 kg in the barn.
  */
-const BARN_FEEDING_YIELD_GAIN = 7;
+const BARN_FEEDING_YIELD_GAIN = 7.5;
 
 /** A freestall option sized for the enlarged herd, with its extra cows and the barn-feeding yield gain. */
 function barnOption(startingPoint: StartingPoint, herd: Herd, settings: { id: string; name?: string }): Option {
@@ -83,13 +86,13 @@ function barnOption(startingPoint: StartingPoint, herd: Herd, settings: { id: st
   };
 }
 
-/** Cairnbrook as it is: grazing with winter housing in the old cubicle house, which still needs upkeep. */
+/** Cairnbrook as it is: grazing with winter housing in the old cubicle house, which still needs upkeep and insurance. */
 function grazingToday(herd: Herd): Option {
   const option = createOption('grazing', herd, { id: 'grazing', name: 'Grazing as today', current: true });
   return {
     ...option,
-    runningCosts: [...option.runningCosts, { id: 'grazing.cubicle-house-upkeep', description: 'Upkeep of the old cubicle house (roof, gates, mattresses)', amountPerYear: 6000, growth: 'general' }],
-    sources: { ...option.sources, runningCosts: { kind: 'assumption', note: "the farm's estimate of keeping the old cubicle house in use" } },
+    existingHousingValue: OLD_CUBICLE_HOUSE_VALUE,
+    sources: { ...option.sources, existingHousingValue: { kind: 'assumption', note: "the farm's estimate of what it would cost to rebuild the old cubicle house; it carries the maintenance and insurance rates" } },
   };
 }
 

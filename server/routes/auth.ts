@@ -11,10 +11,10 @@ import type { AppDeps } from '../app.js';
 import { requireUser } from '../auth/middleware.js';
 import { attemptLimits } from '../auth/rate-limit.js';
 import { clearSession, issueSession } from '../auth/session.js';
-import { findUserById, listMemberships, type User } from '../db/repositories/users.js';
 import { parseOrThrow } from '../errors.js';
 import { changePassword, endAllSessions, signUp, updateProfile, verifyCredentials } from '../services/accounts.js';
 import { completePasswordReset, requestPasswordReset } from '../services/password-reset.js';
+import { publicUser, sessionOf, sessionOfUser } from '../services/session.js';
 
 export const RESET_REQUESTED_MESSAGE = 'If an account exists for that address, we have sent it a link to set a new password.';
 
@@ -23,8 +23,6 @@ export function authRoutes({ db, config, mailer, logger }: AppDeps): Router {
   // Made per app, so each test app (and each server) counts on its own.
   const signInLimits = attemptLimits(config.rateLimit, { countFailuresOnly: true });
   const resetLimits = attemptLimits(config.rateLimit, { countFailuresOnly: false });
-
-  const sessionBody = async (user: User) => ({ user: publicUser(user), memberships: await listMemberships(db, user.id) });
 
   router.post('/sign-up', async (req, res) => {
     const input = parseOrThrow(signUpSchema, req.body);
@@ -37,7 +35,7 @@ export function authRoutes({ db, config, mailer, logger }: AppDeps): Router {
     const { email, password } = parseOrThrow(signInSchema, req.body);
     const user = await verifyCredentials(db, email, password, config.bcryptCost);
     issueSession(res, req, config.jwtSecret, user.id, user.tokenVersion);
-    res.json(await sessionBody(user));
+    res.json(await sessionOf(db, user));
   });
 
   router.post('/sign-out', async (req, res) => {
@@ -46,16 +44,19 @@ export function authRoutes({ db, config, mailer, logger }: AppDeps): Router {
     res.status(204).end();
   });
 
+  // Signed out (no cookie, or one that no longer counts) is an answer, not an error: null.
   router.get('/me', async (req, res) => {
-    const user = await findUserById(db, requireUser(req).id);
-    if (!user) throw new Error('signed-in user missing');
-    res.json(await sessionBody(user));
+    if (!req.user) {
+      res.json(null);
+      return;
+    }
+    res.json(await sessionOfUser(db, req.user.id));
   });
 
   router.patch('/me', async (req, res) => {
     const { name } = parseOrThrow(updateProfileSchema, req.body);
     const user = await updateProfile(db, requireUser(req).id, name);
-    res.json(await sessionBody(user));
+    res.json(await sessionOf(db, user));
   });
 
   router.post('/me/password', async (req, res) => {
@@ -82,8 +83,4 @@ export function authRoutes({ db, config, mailer, logger }: AppDeps): Router {
   });
 
   return router;
-}
-
-export function publicUser(user: { id: number; email: string; name: string; isAdmin: boolean }) {
-  return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin };
 }

@@ -7,15 +7,15 @@ import { documentListQuerySchema, documentPatchSchema, documentTargetSchema, MAX
 import type { AppDeps } from '../app.js';
 import { farmAccess, farmRouter, requireUser } from '../auth/middleware.js';
 import { AppError, notFound, parseOrThrow } from '../errors.js';
+import { documentStorageEngine, uploadedFile } from '../http/document-upload.js';
 import {
-  documentStorageEngine,
   listVisibleDocuments,
   openDocument,
   recordUpload,
   removeDocument,
   scenarioQuotes,
+  remainingQuotaBytes,
   setQuoteAmount,
-  uploadedFile,
   type DocumentActor,
 } from '../services/documents.js';
 import { createFileStorage } from '../storage/index.js';
@@ -57,7 +57,7 @@ export function runUpload(upload: RequestHandler, maxBytes: number): RequestHand
 export function documentRoutes({ db, config }: AppDeps): Router {
   const storage = createFileStorage(config);
   const upload = multer({
-    storage: documentStorageEngine(db, storage, config.documentQuotaBytes),
+    storage: documentStorageEngine((farmId) => remainingQuotaBytes(db, farmId, config.documentQuotaBytes), storage, config.documentQuotaBytes),
     limits: { fileSize: MAX_DOCUMENT_BYTES, files: 1, fields: 5, fieldSize: 200, parts: 6 },
   }).single('file');
   const { router, route } = farmRouter(db);

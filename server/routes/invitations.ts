@@ -4,10 +4,9 @@ import { z } from 'zod';
 import { acceptInvitationSchema, emailTokenSchema } from '../../shared/schema/accounts.js';
 import type { AppDeps } from '../app.js';
 import { issueSession } from '../auth/session.js';
-import { listMemberships } from '../db/repositories/users.js';
 import { parseOrThrow } from '../errors.js';
 import { acceptInvitation, previewInvitation } from '../services/invitations.js';
-import { publicUser } from './auth.js';
+import { sessionOf } from '../services/session.js';
 
 const tokenParams = z.object({ token: emailTokenSchema });
 
@@ -24,7 +23,7 @@ export function invitationRoutes({ db, config }: AppDeps): Router {
     const input = parseOrThrow(acceptInvitationSchema, req.body);
     const { user, farmId, created } = await acceptInvitation(db, token, req.user ?? null, input, config.bcryptCost);
     if (created) issueSession(res, req, config.jwtSecret, user.id, user.tokenVersion);
-    res.status(created ? 201 : 200).json({ user: publicUser(user), memberships: await listMemberships(db, user.id), farmId });
+    res.status(created ? 201 : 200).json({ ...(await sessionOf(db, user)), farmId });
   });
 
   return router;

@@ -11,11 +11,10 @@ import { idParamSchema } from '../../shared/scenario-api.js';
 import type { AppDeps } from '../app.js';
 import { farmAccess, farmRouter, requireUser } from '../auth/middleware.js';
 import { issueSession } from '../auth/session.js';
-import { listMemberships } from '../db/repositories/users.js';
 import { AppError, parseOrThrow } from '../errors.js';
 import { acceptShare, createShare, farmShares, mySharesOnFarm, previewShare, revokeFarmShare, type FarmActor } from '../services/lender-shares.js';
 import { lenderWorkbook } from '../services/lender-workbook.js';
-import { publicUser } from './auth.js';
+import { sessionOf } from '../services/session.js';
 
 const tokenParams = z.object({ token: emailTokenSchema });
 const scenarioFilter = z.object({ scenarioId: idParamSchema('Scenario id').optional() });
@@ -79,8 +78,7 @@ export function lenderShareLinkRoutes({ db, config }: AppDeps): Router {
     const accepted = await acceptShare(db, token, req.user ?? null, input, config.bcryptCost);
     if (accepted.created) issueSession(res, req, config.jwtSecret, accepted.user.id, accepted.user.tokenVersion);
     res.status(accepted.created ? 201 : 200).json({
-      user: publicUser(accepted.user),
-      memberships: await listMemberships(db, accepted.user.id),
+      ...(await sessionOf(db, accepted.user)),
       farmId: accepted.farmId,
       scenarioId: accepted.scenarioId,
       shareId: accepted.shareId,

@@ -3,9 +3,8 @@ import type { Request, Router } from 'express';
 import { changeRoleSchema, inviteSchema } from '../../shared/schema/accounts.js';
 import type { AppDeps } from '../app.js';
 import { farmAccess, farmRouter, requireUser } from '../auth/middleware.js';
-import type { Invitation } from '../db/repositories/invitations.js';
 import { notFound, parseOrThrow } from '../errors.js';
-import { inviteToFarm, openInvitations, resendInvitation, withdrawInvitation } from '../services/invitations.js';
+import { invitationJson, inviteToFarm, openInvitations, resendInvitation, withdrawInvitation } from '../services/invitations.js';
 import { changeMemberRole, farmMembers, removeMember } from '../services/members.js';
 
 /** A positive integer path parameter, or 404 (an id that cannot exist is simply not found). */
@@ -13,10 +12,6 @@ function idParam(req: Request, name: string): number {
   const value = Number(req.params[name]);
   if (!Number.isInteger(value) || value <= 0 || value > 4_294_967_295) throw notFound();
   return value;
-}
-
-function invitationJson(i: Invitation) {
-  return { id: i.id, email: i.email, role: i.role, expiresAt: i.expiresAt, createdAt: i.createdAt };
 }
 
 export function memberRoutes({ db, mailer, config }: AppDeps): Router {

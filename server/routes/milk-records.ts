@@ -5,14 +5,8 @@ import { milkRecordConfirmSchema } from '../../shared/schema/milk-records.js';
 import type { AppDeps } from '../app.js';
 import { farmAccess, farmRouter } from '../auth/middleware.js';
 import { AppError, parseOrThrow } from '../errors.js';
-import {
-  confirmMilkRecords,
-  MAX_MILK_RECORD_BYTES,
-  milkRecordEngine,
-  milkRecordHistory,
-  parsedMilkUpload,
-  previewMilkRecords,
-} from '../services/milk-records.js';
+import { milkRecordEngine, parsedMilkUpload } from '../http/milk-record-upload.js';
+import { confirmMilkRecords, MAX_MILK_RECORD_BYTES, milkRecordHistory, previewMilkRecords } from '../services/milk-records.js';
 import { actorOf, runUpload } from './documents.js';
 
 export function milkRecordRoutes({ db }: AppDeps): Router {

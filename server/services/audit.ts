@@ -3,6 +3,7 @@
  * workbook download), who did it and when. Written by the services that do those things,
  * read by the owner.
  */
+import type { AuditPage } from '../../shared/responses.js';
 import type { Database } from '../db/client.js';
 import type { Executor } from '../db/repositories/farms.js';
 import { insertAudit, listAudit } from '../db/repositories/lender.js';
@@ -26,16 +27,6 @@ export interface AuditActor {
   name: string;
 }
 
-export interface AuditEntry {
-  id: number;
-  actor: string;
-  action: AuditAction;
-  /** The action in words, for the log screen. */
-  description: string;
-  subject: string;
-  detail: Record<string, unknown>;
-  createdAt: Date;
-}
 
 /** Appends one entry; runs inside the caller's transaction when given one, so the change and its record land together. */
 export async function recordAudit(db: Executor, actor: AuditActor, action: AuditAction, subject: string, detail: Record<string, unknown>): Promise<void> {
@@ -43,7 +34,7 @@ export async function recordAudit(db: Executor, actor: AuditActor, action: Audit
 }
 
 /** A page of the log, newest first; `before` is the id of the last entry already shown. */
-export async function readAuditLog(db: Database, farmId: number, limit: number, before?: number): Promise<{ entries: AuditEntry[]; nextBefore: number | null }> {
+export async function readAuditLog(db: Database, farmId: number, limit: number, before?: number): Promise<AuditPage> {
   const rows = await listAudit(db, farmId, limit, before);
   const entries = rows.map((row) => {
     const action = row.action as AuditAction;
@@ -54,7 +45,7 @@ export async function readAuditLog(db: Database, farmId: number, limit: number, 
       description: AUDIT_ACTIONS[action] ?? row.action,
       subject: row.subject,
       detail: row.detail,
-      createdAt: row.createdAt,
+      createdAt: row.createdAt.toISOString(),
     };
   });
   const last = entries.at(-1);

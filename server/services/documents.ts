@@ -1,23 +1,17 @@
 /**
- * Documents on a farm, a scenario or a capital line: the upload rules (type sniffed from the
- * bytes, size and quota counted while streaming, names sanitised), who may see what, download,
- * delete, and the quote amounts the capital table reads.
+ * Documents on a farm, a scenario or a capital line: recording a stored upload within the quota,
+ * who may see what, download, delete, and the quote amounts the capital table reads. The upload
+ * stream itself (type sniffing, size, hashing) is inspected in server/http/document-upload.ts.
  */
-import { createHash } from 'node:crypto';
-import { Transform, type Readable, type TransformCallback } from 'node:stream';
-import { fileTypeFromBuffer } from 'file-type';
-import type { Request } from 'express';
-import type multer from 'multer';
+import type { Readable } from 'node:stream';
 import Decimal from 'decimal.js';
 import {
-  documentTypes,
   type CapitalLineQuotes,
   type DocumentMediaType,
   type DocumentTarget,
   type DocumentView,
 } from '../../shared/schema/documents.js';
 import type { Scenario } from '../../shared/schema/index.js';
-import { farmAccess } from '../auth/middleware.js';
 import type { Database } from '../db/client.js';
 import {
   deleteDocument,
@@ -30,123 +24,12 @@ import {
   type DocumentRecord,
 } from '../db/repositories/documents.js';
 import { findScenario } from '../db/repositories/scenarios.js';
-import type { FarmRole } from '../db/schema/index.js';
 import { AppError, notFound } from '../errors.js';
 import { StoredFileMissingError, type FileStorage } from '../storage/index.js';
-import { lenderGrants } from './lender-access.js';
+import { accessOf, assertScenarioVisible, canSeeDocument, type Actor } from './access.js';
 
-export interface DocumentActor {
-  farmId: number;
-  role: FarmRole;
-  userId: number;
-}
-
-/** Bytes read before deciding the type: enough for every signature file-type checks, zip-based XLSX included. */
-const SNIFF_BYTES = 64 * 1024;
-const MAX_NAME_LENGTH = 120;
-const ALLOWED_LIST = Object.values(documentTypes)
-  .map((t) => t.label)
-  .join(', ');
-
-/**
- * Whether this caller may see (list, download) this document. Lenders see only documents on a
- * scenario with a live share to them (`sharedScenarioIds`, from `liveSharedScenarioIds` below).
- */
-export function canSeeDocument(
-  role: FarmRole,
-  document: Pick<DocumentRecord, 'scenarioId'>,
-  sharedScenarioIds: ReadonlySet<number> = new Set(),
-): boolean {
-  if (role !== 'lender') return true;
-  return document.scenarioId !== null && sharedScenarioIds.has(document.scenarioId);
-}
-
-/** Scenario ids with a live lender share to this caller; empty for members, who need none. */
-async function liveSharedScenarioIds(db: Database, actor: DocumentActor): Promise<ReadonlySet<number>> {
-  if (actor.role !== 'lender') return new Set();
-  return new Set((await lenderGrants(db, actor.farmId, actor.userId)).keys());
-}
-
-/**
- * A file name safe to store, show and send back: the last path segment only (so
- * `../../etc/passwd` becomes `passwd`), no control or reserved characters, no leading dots,
- * at most 120 characters with the extension kept.
- */
-export function sanitiseFileName(name: string): string {
-  const lastSegment = name.split(/[/\\]/).pop() ?? '';
-  const cleaned = lastSegment
-    .normalize('NFC')
-    // eslint-disable-next-line no-control-regex -- control characters are what is being removed
-    .replace(/[\u0000-\u001f\u007f-\u009f]/g, '')
-    .replace(/[^\p{L}\p{N} ._()+,-]/gu, '_')
-    .replace(/\s+/g, ' ')
-    .replace(/^[.\s]+/, '')
-    .trim();
-  if (cleaned === '') return 'document';
-  if (cleaned.length <= MAX_NAME_LENGTH) return cleaned;
-  const dot = cleaned.lastIndexOf('.');
-  const extension = dot > 0 && cleaned.length - dot <= 10 ? cleaned.slice(dot) : '';
-  return cleaned.slice(0, MAX_NAME_LENGTH - extension.length) + extension;
-}
-
-/** The name with an extension that matches the sniffed type (a PDF named `quote.png` becomes `quote.png.pdf`). */
-export function nameForType(fileName: string, mediaType: DocumentMediaType): string {
-  const extensions: readonly string[] = documentTypes[mediaType].extensions;
-  const dot = fileName.lastIndexOf('.');
-  const current = dot > 0 ? fileName.slice(dot + 1).toLowerCase() : '';
-  return extensions.includes(current) ? fileName : sanitiseFileName(`${fileName}.${extensions[0] ?? 'bin'}`);
-}
-
-/** True when text looks like delimited rows: the first line and most others split on one of , ; or tab. */
-export function looksDelimited(text: string, complete: boolean): boolean {
-  const lines = text.split(/\r?\n/);
-  if (!complete) lines.pop(); // the last line of a head may be cut short
-  const rows = lines.filter((l) => l.trim() !== '').slice(0, 20);
-  const first = rows[0];
-  if (first === undefined) return false;
-  const delimiter = [',', ';', '\t'].find((d) => first.includes(d));
-  if (!delimiter) return false;
-  return rows.filter((r) => r.includes(delimiter)).length >= Math.ceil(rows.length * 0.8);
-}
-
-const unsupported = (what: string) =>
-  new AppError(415, 'unsupported_type', `This file is ${what}; upload a ${ALLOWED_LIST} file`, { file: `Only ${ALLOWED_LIST} files` });
-
-/**
- * The document type of a file from its first bytes (and, for CSV, its name): PDF, PNG, JPEG,
- * WebP and XLSX by signature; CSV, which has none, only when the name ends .csv and the bytes
- * are text without NUL that looks like delimited rows. Throws a 415 AppError otherwise.
- */
-export async function sniffDocumentType(head: Buffer, fileName: string, complete: boolean): Promise<DocumentMediaType> {
-  const detected = await fileTypeFromBuffer(head);
-  if (detected) {
-    if (detected.mime in documentTypes && detected.mime !== 'text/csv') return detected.mime as DocumentMediaType;
-    throw unsupported(`a ${detected.ext.toUpperCase()} file (${detected.mime})`);
-  }
-  if (!/\.csv$/i.test(fileName)) throw unsupported('not a type Byrecast keeps');
-  if (head.includes(0)) throw unsupported('binary data named .csv');
-  let text: string;
-  try {
-    // `stream: true` lets a multi-byte character cut at the end of the head pass.
-    text = new TextDecoder('utf-8', { fatal: true }).decode(head, { stream: !complete });
-  } catch {
-    throw unsupported('not UTF-8 text, so not a CSV file Byrecast can read');
-  }
-  if (!looksDelimited(text.replace(/^\uFEFF/, ''), complete)) throw unsupported('text that does not look like comma- or semicolon-separated rows');
-  return 'text/csv';
-}
-
-export class QuotaExceededError extends AppError {
-  constructor(quotaBytes: number) {
-    super(413, 'quota_exceeded', `This upload would take the farm past its document storage quota of ${formatMegabytes(quotaBytes)}; delete old documents first`, {
-      file: 'The farm document quota is full',
-    });
-  }
-}
-
-function formatMegabytes(bytes: number): string {
-  return `${Math.round((bytes / (1024 * 1024)) * 10) / 10} MB`;
-}
+/** Who is asking, on which farm. */
+export type DocumentActor = Actor;
 
 /** What an inspected, stored upload is. */
 export interface StoredUpload {
@@ -157,137 +40,14 @@ export interface StoredUpload {
   sha256: string;
 }
 
-/**
- * A pass-through that counts bytes against `limitBytes`, hashes them (sha-256), holds back the
- * first SNIFF_BYTES until the type is known, and for CSV checks the whole file is UTF-8 without
- * NUL. Any refusal errors the stream, so whatever is storing it discards what it has.
- */
-class UploadInspector extends Transform {
-  private readonly hash = createHash('sha256');
-  private head: Buffer[] = [];
-  private headLength = 0;
-  private textDecoder: TextDecoder | null = null;
-  size = 0;
-  mediaType: DocumentMediaType | null = null;
-
-  constructor(
-    private readonly fileName: string,
-    private readonly limitBytes: number,
-    private readonly onLimit: () => Error,
-  ) {
-    super();
-  }
-
-  override _transform(chunk: Buffer, _encoding: BufferEncoding, callback: TransformCallback): void {
-    this.size += chunk.length;
-    if (this.size > this.limitBytes) return callback(this.onLimit());
-    this.hash.update(chunk);
-    if (this.mediaType) {
-      try {
-        this.checkText(chunk, false);
-      } catch (error) {
-        return callback(error as Error);
-      }
-      return callback(null, chunk);
-    }
-    this.head.push(chunk);
-    this.headLength += chunk.length;
-    if (this.headLength < SNIFF_BYTES) return callback();
-    this.decide(false).then(() => callback(), callback);
-  }
-
-  override _flush(callback: TransformCallback): void {
-    const finish = (): void => {
-      this.checkText(Buffer.alloc(0), true);
-      callback();
-    };
-    if (this.mediaType) {
-      try {
-        finish();
-      } catch (error) {
-        callback(error as Error);
-      }
-      return;
-    }
-    this.decide(true).then(finish, callback);
-  }
-
-  digest(): string {
-    return this.hash.digest('hex');
-  }
-
-  private async decide(complete: boolean): Promise<void> {
-    const head = Buffer.concat(this.head);
-    this.head = [];
-    this.mediaType = await sniffDocumentType(head, this.fileName, complete);
-    if (this.mediaType === 'text/csv') {
-      this.textDecoder = new TextDecoder('utf-8', { fatal: true });
-      this.checkText(head, false);
-    }
-    this.push(head);
-  }
-
-  /** Throws for CSV bytes that are not UTF-8 or hold NUL anywhere in the file. */
-  private checkText(chunk: Buffer, end: boolean): void {
-    if (!this.textDecoder) return;
-    if (chunk.includes(0)) throw unsupported('binary data named .csv');
-    try {
-      this.textDecoder.decode(chunk, { stream: !end });
-    } catch {
-      throw unsupported('not UTF-8 text, so not a CSV file Byrecast can read');
-    }
-  }
+/** A size for messages, in MB with one decimal. */
+export function formatMegabytes(bytes: number): string {
+  return `${Math.round((bytes / (1024 * 1024)) * 10) / 10} MB`;
 }
 
-/**
- * A multer storage engine that inspects the upload while streaming it into `storage`: the
- * farm's remaining quota is looked up first and enforced byte by byte (413 as soon as it is
- * passed). multer's own fileSize limit ends the stream at 15 MB; the engine then discards the
- * part it stored. On any failure nothing is kept.
- */
-export function documentStorageEngine(db: Database, storage: FileStorage, quotaBytes: number): multer.StorageEngine {
-  return {
-    _handleFile(req: Request, file, callback) {
-      const store = async (): Promise<StoredUpload> => {
-        const { farmId } = farmAccess(req);
-        const remaining = Math.max(0, quotaBytes - (await farmDocumentBytes(db, farmId)));
-        const fileName = sanitiseFileName(file.originalname);
-        const inspector = new UploadInspector(fileName, remaining, () => new QuotaExceededError(quotaBytes));
-        // busboy ends a stream cut at the size limit normally; turn that into a failure so the partial file goes.
-        file.stream.once('limit', () => inspector.destroy(new AppError(413, 'payload_too_large', 'The file is larger than 15 MB')));
-        // Not pipeline(): a refused file must not tear down the request stream, or multer would
-        // answer before the partial file is gone. The rest of the body is drained instead.
-        file.stream.once('error', (error) => inspector.destroy(error));
-        inspector.once('error', () => {
-          file.stream.unpipe(inspector);
-          file.stream.resume();
-        });
-        file.stream.pipe(inspector);
-        const storageKey = await storage.put(inspector as unknown as Readable);
-        if (!inspector.mediaType) throw new Error('upload stored without a sniffed type');
-        return { storageKey, fileName: nameForType(fileName, inspector.mediaType), mediaType: inspector.mediaType, sizeBytes: inspector.size, sha256: inspector.digest() };
-      };
-      store().then(
-        (stored) => callback(null, { ...stored, size: stored.sizeBytes } as Partial<Express.Multer.File>),
-        (error: unknown) => {
-          file.stream.resume();
-          callback(error);
-        },
-      );
-    },
-    _removeFile(_req, file, callback) {
-      const { storageKey } = file as unknown as Partial<StoredUpload>;
-      if (!storageKey) return callback(null);
-      storage.delete(storageKey).then(() => callback(null), callback);
-    },
-  };
-}
-
-/** The stored upload multer left on the request, or a 400 naming the `file` field. */
-export function uploadedFile(req: Request): StoredUpload {
-  const file = req.file as unknown as StoredUpload | undefined;
-  if (!file?.storageKey) throw new AppError(400, 'invalid_input', 'file: choose a file to upload', { file: 'Choose a file to upload' });
-  return file;
+/** Bytes the farm may still store under its quota. */
+export async function remainingQuotaBytes(db: Database, farmId: number, quotaBytes: number): Promise<number> {
+  return Math.max(0, quotaBytes - (await farmDocumentBytes(db, farmId)));
 }
 
 /** Checks that the scenario is this farm's and, when given, that one of its options has the capital line. */
@@ -365,14 +125,14 @@ export async function recordUpload(
 /** The documents this caller may see, optionally of one scenario or capital line. */
 export async function listVisibleDocuments(db: Database, actor: DocumentActor, filter: DocumentTarget): Promise<DocumentView[]> {
   const documents = await listDocuments(db, actor.farmId, filter);
-  const shared = await liveSharedScenarioIds(db, actor);
-  return documents.filter((d) => canSeeDocument(actor.role, d, shared)).map(toDocumentView);
+  const access = await accessOf(db, actor);
+  return documents.filter((d) => canSeeDocument(access, d)).map(toDocumentView);
 }
 
 async function visibleDocument(db: Database, actor: DocumentActor, documentId: number): Promise<DocumentRecord> {
   const document = await findDocument(db, actor.farmId, documentId);
   // A document the caller may not see is "not found", like a farm they are not on.
-  if (!document || !canSeeDocument(actor.role, document, await liveSharedScenarioIds(db, actor))) throw notFound('Document not found');
+  if (!document || !canSeeDocument(await accessOf(db, actor), document)) throw notFound('Document not found');
   return document;
 }
 
@@ -416,8 +176,10 @@ export async function setQuoteAmount(db: Database, actor: DocumentActor, documen
  * amounts entered. Lines missing from the answer have no document (they are estimates).
  */
 export async function scenarioQuotes(db: Database, actor: DocumentActor, scenarioId: number): Promise<CapitalLineQuotes[]> {
+  const access = await accessOf(db, actor);
+  assertScenarioVisible(access, scenarioId);
   if (!(await findScenario(db, actor.farmId, scenarioId))) throw notFound('Scenario not found');
-  const documents = (await listCapitalLineDocuments(db, actor.farmId, scenarioId)).filter((d) => canSeeDocument(actor.role, d));
+  const documents = (await listCapitalLineDocuments(db, actor.farmId, scenarioId)).filter((d) => canSeeDocument(access, d));
   const byLine = new Map<string, DocumentRecord[]>();
   for (const d of documents) {
     const line = d.capitalLineId ?? '';

@@ -1,18 +1,11 @@
 /** The farm baseline: the herd and markets new scenarios start from, and how the farm shows figures. */
 import type { z } from 'zod';
 import type { baselineBodySchema } from '../../shared/scenario-api.js';
-import { herdSchema, type Herd } from '../../shared/schema/index.js';
+import { herdSchema } from '../../shared/schema/index.js';
+import type { FarmBaseline } from '../../shared/responses.js';
 import type { Database } from '../db/client.js';
 import { findFarmBaseline, updateFarmBaseline } from '../db/repositories/farm-baseline.js';
 import { notFound } from '../errors.js';
-
-export interface FarmBaseline {
-  /** SI units; null until the baseline is first saved. */
-  herd: Herd | null;
-  currency: string;
-  locale: string;
-  units: 'metric' | 'us';
-}
 
 export async function readBaseline(db: Database, farmId: number): Promise<FarmBaseline> {
   const found = await findFarmBaseline(db, farmId);

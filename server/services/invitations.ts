@@ -4,6 +4,7 @@
  * Accepting adds the membership to the signed-in account with that address, or signs the
  * invitee up when the address has no account yet.
  */
+import type { InvitationPreview, PendingInvitation } from '../../shared/responses.js';
 import type { AcceptInvitationInput, InviteInput } from '../../shared/schema/accounts.js';
 import { hashToken, newEmailToken } from '../auth/tokens.js';
 import type { Database } from '../db/client.js';
@@ -59,6 +60,11 @@ async function mailInvitation(ctx: InvitationContext, invitation: { farmId: numb
 }
 
 /** Invites an address; a newer invitation to the same address replaces an open one. */
+/** An invitation as the owner's list shows it (never the token or its hash). */
+export function invitationJson(i: Invitation): PendingInvitation {
+  return { id: i.id, email: i.email, role: i.role, expiresAt: i.expiresAt.toISOString(), createdAt: i.createdAt.toISOString() };
+}
+
 export async function inviteToFarm(ctx: InvitationContext, farmId: number, inviter: User, input: InviteInput, now = new Date()): Promise<Invitation> {
   const members = await listMembers(ctx.db, farmId);
   if (members.some((m) => m.email === input.email)) {
@@ -113,16 +119,6 @@ async function openInvitationByToken(db: Parameters<typeof findInvitationByToken
   return invitation;
 }
 
-export interface InvitationPreview {
-  farmName: string;
-  role: FarmRole;
-  email: string;
-  inviterName: string | null;
-  expiresAt: Date;
-  /** True when the address already has an account (the invitee signs in instead of signing up). */
-  accountExists: boolean;
-}
-
 /** What the accept page shows for a token; only someone holding the link learns it. */
 export async function previewInvitation(db: Database, token: string, now = new Date()): Promise<InvitationPreview> {
   const invitation = await openInvitationByToken(db, token, now);
@@ -131,7 +127,7 @@ export async function previewInvitation(db: Database, token: string, now = new D
     role: invitation.role,
     email: invitation.email,
     inviterName: invitation.inviterName,
-    expiresAt: invitation.expiresAt,
+    expiresAt: invitation.expiresAt.toISOString(),
     accountExists: (await findUserByEmail(db, invitation.email)) !== null,
   };
 }

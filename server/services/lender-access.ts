@@ -2,11 +2,12 @@
  * When a lender share is live, and which scenario versions a lender may therefore read. The
  * scenario and document rules (canSeeScenario, canSeeDocument) take what this module returns.
  */
+import type { ShareState } from '../../shared/responses.js';
 import { utcDate } from '../../shared/schema/lender.js';
 import { listSharesOfLender, type ShareRecord } from '../db/repositories/lender.js';
 import type { Executor } from '../db/repositories/farms.js';
 
-export type ShareState = 'pending' | 'live' | 'revoked' | 'expired';
+export type { ShareState };
 
 /**
  * The state of a share on `now`: revoked wins, then expired (from `expiresOn`, a UTC date, on),

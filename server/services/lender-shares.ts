@@ -5,8 +5,9 @@
  * the share is revoked or its expiry date comes. Sharing a newer version is a new share; the old
  * one keeps pointing at the version it was given.
  */
+import type { ShareView } from '../../shared/responses.js';
 import type { AcceptInvitationInput } from '../../shared/schema/accounts.js';
-import { MAX_SHARE_DAYS, utcDate, utcDatePlusDays, type ReviewStatusValue, type SharePreview } from '../../shared/schema/lender.js';
+import { MAX_SHARE_DAYS, utcDate, utcDatePlusDays, type SharePreview } from '../../shared/schema/lender.js';
 import type { z } from 'zod';
 import type { createShareSchema } from '../../shared/schema/lender.js';
 import { hashToken, newEmailToken } from '../auth/tokens.js';
@@ -19,7 +20,7 @@ import { AppError, notFound } from '../errors.js';
 import { lenderShareMail } from '../mail/lender-templates.js';
 import type { Mailer } from '../mail/mailer.js';
 import { recordAudit } from './audit.js';
-import { liveSharesOf, shareState, type ShareState } from './lender-access.js';
+import { liveSharesOf, shareState } from './lender-access.js';
 import { assertAddressee, insertedUser, invalidLink, prepareLinkAccount } from './link-accounts.js';
 
 export interface LenderContext {
@@ -34,24 +35,7 @@ export interface FarmActor {
   user: User;
 }
 
-/** A share as the API answers it (never the token or its hash). */
-export interface ShareView {
-  id: number;
-  scenarioId: number;
-  scenarioName: string;
-  version: number;
-  lenderEmail: string;
-  lenderName: string | null;
-  state: ShareState;
-  expiresOn: string;
-  acceptedAt: Date | null;
-  revokedAt: Date | null;
-  reviewStatus: ReviewStatusValue;
-  reviewStatusAt: Date | null;
-  reviewStatusBy: string | null;
-  sharedBy: string | null;
-  createdAt: Date;
-}
+export type { ShareView };
 
 /** The API shape of a share on `now`. */
 export function toShareView(share: ShareRecord, now = new Date()): ShareView {
@@ -64,13 +48,13 @@ export function toShareView(share: ShareRecord, now = new Date()): ShareView {
     lenderName: share.lenderName,
     state: shareState(share, now),
     expiresOn: share.expiresOn,
-    acceptedAt: share.tokenUsedAt,
-    revokedAt: share.revokedAt,
+    acceptedAt: share.tokenUsedAt?.toISOString() ?? null,
+    revokedAt: share.revokedAt?.toISOString() ?? null,
     reviewStatus: share.reviewStatus,
-    reviewStatusAt: share.reviewStatusAt,
+    reviewStatusAt: share.reviewStatusAt?.toISOString() ?? null,
     reviewStatusBy: share.reviewStatusByName,
     sharedBy: share.createdByName,
-    createdAt: share.createdAt,
+    createdAt: share.createdAt.toISOString(),
   };
 }
 

@@ -3,6 +3,8 @@
  * must name an option of the scenario's latest version; a risk result is kept only for the
  * version it was run on, with the hash of its inputs, and reported stale once they change.
  */
+import type { MonteCarloResult } from '../../shared/engine/risk/monte-carlo.js';
+import type { Decision, PreferencesView, RiskResultView } from '../../shared/responses.js';
 import type { Scenario } from '../../shared/schema/index.js';
 import type { Database } from '../db/client.js';
 import {
@@ -13,34 +15,14 @@ import {
   listPreferences,
   saveRiskResult,
   upsertPreference,
-  type DecisionRecord,
-  type PreferenceRecord,
 } from '../db/repositories/preferences.js';
 import { findScenario, setScenarioStatus, type ScenarioRecord } from '../db/repositories/scenarios.js';
 import { AppError, conflict, notFound } from '../errors.js';
 import { riskInputsHash } from './risk-inputs-hash.js';
-import { canSeeScenario, type ScenarioActor } from './scenarios.js';
-
-export interface PreferencesView {
-  preferences: PreferenceRecord[];
-  /** The decision in force (the latest), or null. */
-  decision: DecisionRecord | null;
-  /** Earlier decisions, newest first. */
-  earlierDecisions: DecisionRecord[];
-}
-
-export interface RiskResultView {
-  result: unknown;
-  scenarioVersion: number;
-  inputsHash: string;
-  /** True when the saved scenario's inputs still hash to the result's hash. */
-  fresh: boolean;
-  savedBy: string | null;
-  savedAt: Date;
-}
+import { accessOf, canSeeScenario, type Actor as ScenarioActor } from './access.js';
 
 async function visibleScenario(db: Database, actor: ScenarioActor, scenarioId: number): Promise<ScenarioRecord> {
-  const record = canSeeScenario(actor.role, scenarioId) ? await findScenario(db, actor.farmId, scenarioId) : null;
+  const record = canSeeScenario(await accessOf(db, actor), scenarioId) ? await findScenario(db, actor.farmId, scenarioId) : null;
   if (!record) throw notFound('Scenario not found');
   return record;
 }
@@ -57,7 +39,12 @@ function optionOf(record: ScenarioRecord, optionId: string): { id: string; name:
 export async function readPreferences(db: Database, actor: ScenarioActor, scenarioId: number): Promise<PreferencesView> {
   await visibleScenario(db, actor, scenarioId);
   const [preferences, decisions] = await Promise.all([listPreferences(db, scenarioId), listDecisions(db, scenarioId)]);
-  return { preferences, decision: decisions[0] ?? null, earlierDecisions: decisions.slice(1) };
+  const dated = decisions.map((d): Decision => ({ ...d, decidedAt: d.decidedAt.toISOString() }));
+  return {
+    preferences: preferences.map((p) => ({ ...p, updatedAt: p.updatedAt.toISOString() })),
+    decision: dated[0] ?? null,
+    earlierDecisions: dated.slice(1),
+  };
 }
 
 /** Records (or replaces) the caller's own preference. */
@@ -86,23 +73,24 @@ export async function decide(db: Database, actor: ScenarioActor, scenarioId: num
   return readPreferences(db, actor, scenarioId);
 }
 
-/** The cached Monte Carlo result, with whether it still matches the saved scenario; 404 when none. */
-export async function readRiskResult(db: Database, actor: ScenarioActor, scenarioId: number): Promise<RiskResultView> {
+/** The cached Monte Carlo result, with whether it still matches the saved scenario; null when none was kept. */
+export async function readRiskResult(db: Database, actor: ScenarioActor, scenarioId: number): Promise<RiskResultView | null> {
   const record = await visibleScenario(db, actor, scenarioId);
   const saved = await findRiskResult(db, scenarioId);
-  if (!saved) throw notFound('No Monte Carlo result is saved for this scenario');
+  if (!saved) return null;
   return {
-    result: saved.result,
+    // Checked for shape when it was kept (the route's riskResultBodySchema) and stored whole.
+    result: saved.result as MonteCarloResult,
     scenarioVersion: saved.scenarioVersion,
     inputsHash: saved.inputsHash,
     fresh: saved.inputsHash === riskInputsHash(record.document as Scenario),
     savedBy: saved.savedBy?.name ?? null,
-    savedAt: saved.savedAt,
+    savedAt: saved.savedAt.toISOString(),
   };
 }
 
 /** Keeps a Monte Carlo result run on `scenarioVersion`; 409 when the scenario was saved since. */
-export async function keepRiskResult(db: Database, actor: ScenarioActor, scenarioId: number, input: { scenarioVersion: number; result: unknown }): Promise<RiskResultView> {
+export async function keepRiskResult(db: Database, actor: ScenarioActor, scenarioId: number, input: { scenarioVersion: number; result: unknown }): Promise<RiskResultView | null> {
   const record = await visibleScenario(db, actor, scenarioId);
   if (record.version !== input.scenarioVersion) {
     throw conflict(`The scenario was saved since this run (version ${record.version}, the run used ${input.scenarioVersion}): run it again`, {

@@ -4,6 +4,7 @@
  * members read them, answer in a thread and get an e-mail when the status changes. Every note,
  * reply and status change goes into the audit log in the same transaction.
  */
+import type { ReviewNote, ReviewThread, ShareReview } from '../../shared/responses.js';
 import { REVIEW_STATUS_LABELS, type ReviewStatusValue } from '../../shared/schema/lender.js';
 import type { z } from 'zod';
 import type { createNoteSchema } from '../../shared/schema/lender.js';
@@ -18,34 +19,16 @@ import { reviewStatusMail } from '../mail/lender-templates.js';
 import { recordAudit } from './audit.js';
 import { liveSharesOf, shareState } from './lender-access.js';
 import { shareSubject, toShareView, type FarmActor, type LenderContext, type ShareView } from './lender-shares.js';
-import { canSeeScenario } from './scenarios.js';
+import { accessOf, assertScenarioVisible } from './access.js';
 
 /** A caller with their farm role, as the farm route resolved it. */
 export interface ReviewActor extends FarmActor {
   role: FarmRole;
 }
 
-export interface NoteView {
-  id: number;
-  author: string | null;
-  authorRole: FarmRole;
-  optionId: string | null;
-  /** The option's name in the shared version, when the note is about one. */
-  optionName: string | null;
-  lineRef: string | null;
-  body: string;
-  createdAt: Date;
-  replies: Omit<NoteView, 'replies'>[];
-}
-
-export interface ShareReview {
-  share: ShareView;
-  notes: NoteView[];
-}
-
 /** Arranges notes (oldest first) into threads: top-level notes, each with its replies in order. */
-export function threadNotes(notes: readonly NoteRecord[], optionNames: ReadonlyMap<string, string>): NoteView[] {
-  const flat = (n: NoteRecord): Omit<NoteView, 'replies'> => ({
+export function threadNotes(notes: readonly NoteRecord[], optionNames: ReadonlyMap<string, string>): ReviewThread[] {
+  const flat = (n: NoteRecord): ReviewNote => ({
     id: n.id,
     author: n.authorName,
     authorRole: n.authorRole,
@@ -53,9 +36,9 @@ export function threadNotes(notes: readonly NoteRecord[], optionNames: ReadonlyM
     optionName: n.optionId ? (optionNames.get(n.optionId) ?? null) : null,
     lineRef: n.lineRef,
     body: n.body,
-    createdAt: n.createdAt,
+    createdAt: n.createdAt.toISOString(),
   });
-  const roots = new Map<number, NoteView>();
+  const roots = new Map<number, ReviewThread>();
   for (const note of notes) if (note.parentId === null) roots.set(note.id, { ...flat(note), replies: [] });
   for (const note of notes) if (note.parentId !== null) roots.get(note.parentId)?.replies.push(flat(note));
   return [...roots.values()];
@@ -74,9 +57,8 @@ async function optionNamesOf(db: Database, share: Pick<ShareRecord, 'scenarioId'
 export async function scenarioReviews(db: Database, actor: ReviewActor, scenarioId: number, now = new Date()): Promise<ShareReview[]> {
   let shares: ShareRecord[];
   if (actor.role === 'lender') {
-    const live = await liveSharesOf(db, actor.farmId, actor.user.id, now);
-    if (!canSeeScenario(actor.role, scenarioId, new Set(live.map((s) => s.scenarioId)))) throw notFound('Scenario not found');
-    shares = live.filter((s) => s.scenarioId === scenarioId);
+    assertScenarioVisible(await accessOf(db, { farmId: actor.farmId, role: actor.role, userId: actor.user.id }, now), scenarioId);
+    shares = (await liveSharesOf(db, actor.farmId, actor.user.id, now)).filter((s) => s.scenarioId === scenarioId);
   } else {
     shares = await listShares(db, actor.farmId, scenarioId);
   }
@@ -101,7 +83,7 @@ async function lendersLiveShare(db: Database, actor: ReviewActor, shareId: numbe
 
 const auditActor = (actor: ReviewActor) => ({ farmId: actor.farmId, userId: actor.user.id, name: actor.user.name });
 
-async function noteView(db: Database, actor: ReviewActor, share: ShareRecord, noteId: number): Promise<Omit<NoteView, 'replies'>> {
+async function noteView(db: Database, actor: ReviewActor, share: ShareRecord, noteId: number): Promise<ReviewNote> {
   const note = await findNote(db, actor.farmId, noteId);
   if (!note) throw new Error('note vanished after insert');
   const [view] = threadNotes([{ ...note, parentId: null }], await optionNamesOf(db, share));
@@ -121,7 +103,7 @@ async function threadRoot(db: Database, farmId: number, shareId: number, parentI
  * The lender's note on their live share. `optionId`, when given, must be an option of the shared
  * version; `lineRef` names a line (and needs an option); `parentId` answers a note in a thread.
  */
-export async function addLenderNote(db: Database, actor: ReviewActor, shareId: number, input: z.output<typeof createNoteSchema>, now = new Date()): Promise<Omit<NoteView, 'replies'>> {
+export async function addLenderNote(db: Database, actor: ReviewActor, shareId: number, input: z.output<typeof createNoteSchema>, now = new Date()): Promise<ReviewNote> {
   const share = await lendersLiveShare(db, actor, shareId, now);
   const options = await optionNamesOf(db, share);
   if (input.optionId !== undefined && !options.has(input.optionId)) {
@@ -157,7 +139,7 @@ export async function addLenderNote(db: Database, actor: ReviewActor, shareId: n
 }
 
 /** A member's answer in the thread of a note on one of the farm's shares (any state: answering a closed review is still a record). */
-export async function replyToNote(db: Database, actor: ReviewActor, shareId: number, noteId: number, body: string): Promise<Omit<NoteView, 'replies'>> {
+export async function replyToNote(db: Database, actor: ReviewActor, shareId: number, noteId: number, body: string): Promise<ReviewNote> {
   const share = await findShare(db, actor.farmId, shareId);
   if (!share) throw notFound('Share not found');
   const note = await findNote(db, actor.farmId, noteId);

@@ -4,10 +4,11 @@
  * comparison. Every save validates the whole document and writes a new immutable version in
  * the same transaction as the scenario row, locked with SELECT … FOR UPDATE.
  */
+import type { ScenarioListItem, ScenarioView, VersionComparison, VersionListItem, VersionView } from '../../shared/responses.js';
 import type { z } from 'zod';
 import { evaluateScenario } from '../../shared/engine/evaluate.js';
 import type { ScenarioResults } from '../../shared/engine/results.js';
-import { diffScenarios, type FieldChange, type Json } from '../../shared/scenario-diff.js';
+import { diffScenarios, type Json } from '../../shared/scenario-diff.js';
 import type { createScenarioBodySchema } from '../../shared/scenario-api.js';
 import { DEFAULT_FINANCE, herdSchema, scenarioSchema, type Option, type Scenario, type ScenarioInput, type StartingPoint } from '../../shared/schema/index.js';
 import { createOption, withOptionId } from '../../shared/starting-points.js';
@@ -29,72 +30,29 @@ import {
   type ScenarioSummary,
   type VersionRecord,
 } from '../db/repositories/scenarios.js';
-import type { FarmRole, ScenarioStatus } from '../db/schema/index.js';
+import type { ScenarioStatus } from '../db/schema/index.js';
 import { AppError, fieldErrors, notFound } from '../errors.js';
-import { lenderGrants } from './lender-access.js';
+import { accessOf, canSeeScenario, canSeeVersion, visibleVersions, type Access, type Actor } from './access.js';
+
+export type { ScenarioListItem, ScenarioView, VersionListItem };
 
 /** Who is asking, on which farm. */
-export interface ScenarioActor {
-  farmId: number;
-  role: FarmRole;
-  userId: number;
-}
+export type ScenarioActor = Actor;
 
-/**
- * Whether this role may see this scenario at all. Lenders see only scenarios with a live share
- * to them (`sharedWithCaller`: the scenario ids of `lenderGrants`, so not revoked, not expired,
- * link used), and then only the shared versions; everyone else on the farm sees every scenario.
- */
-export function canSeeScenario(role: FarmRole, scenarioId: number, sharedWithCaller: ReadonlySet<number> = new Set()): boolean {
-  return role === 'lender' ? sharedWithCaller.has(scenarioId) : true;
-}
-
-/** The versions a lender may read, per scenario; null for members, who read every version. */
-function grantsOf(db: Executor, actor: ScenarioActor): Promise<Map<number, number[]> | null> {
-  return actor.role === 'lender' ? lenderGrants(db, actor.farmId, actor.userId) : Promise.resolve(null);
-}
-
-/** The record as the lender sees it: the highest version shared with them, never the latest save. */
-async function asSharedVersion(db: Executor, record: ScenarioRecord, versions: readonly number[] | undefined): Promise<ScenarioRecord> {
-  const version = versions?.[0];
+/** The record as the caller sees it: for a lender the highest version shared with them, never the latest save. */
+async function asSeenBy(db: Executor, access: Access, record: ScenarioRecord): Promise<ScenarioRecord> {
+  const versions = visibleVersions(access, record.id);
+  if (versions === null) return record;
+  const version = versions[0];
   const found = version === undefined ? null : await findVersion(db, record.id, version);
   if (!found) throw notFound('Scenario not found');
   const document = found.document as Scenario;
   return { ...record, name: document.name, version: found.version, document, updatedAt: found.createdAt, updatedBy: found.author };
 }
 
-/** 404 unless a lender may read this version (members may read any). */
-function assertVersionVisible(grants: Map<number, number[]> | null, scenarioId: number, version: number): void {
-  if (grants && !(grants.get(scenarioId) ?? []).includes(version)) throw notFound(`Version ${version} not found`);
-}
-
-export interface ScenarioView {
-  id: number;
-  scenario: Scenario;
-  version: number;
-  results: ScenarioResults;
-  meta: {
-    id: number;
-    farmId: number;
-    name: string;
-    status: ScenarioStatus;
-    version: number;
-    createdAt: Date;
-    createdBy: string | null;
-    updatedAt: Date;
-    updatedBy: string | null;
-  };
-}
-
-export interface ScenarioListItem {
-  id: number;
-  name: string;
-  status: ScenarioStatus;
-  version: number;
-  optionCount: number;
-  best: { optionId: string; name: string; npv: number } | null;
-  updatedAt: Date;
-  updatedBy: string | null;
+/** 404 unless the caller may read this version. */
+function assertVersionVisible(access: Access, scenarioId: number, version: number): void {
+  if (!canSeeVersion(access, scenarioId, version)) throw notFound(`Version ${version} not found`);
 }
 
 /**
@@ -124,9 +82,9 @@ function view(record: ScenarioRecord): ScenarioView {
       name: record.name,
       status: record.status,
       version: record.version,
-      createdAt: record.createdAt,
+      createdAt: record.createdAt.toISOString(),
       createdBy: record.createdBy?.name ?? null,
-      updatedAt: record.updatedAt,
+      updatedAt: record.updatedAt.toISOString(),
       updatedBy: record.updatedBy?.name ?? null,
     },
   };
@@ -147,22 +105,21 @@ function validated(document: unknown): Scenario {
 }
 
 async function visibleRecord(db: Executor, actor: ScenarioActor, scenarioId: number): Promise<ScenarioRecord> {
-  const grants = await grantsOf(db, actor);
-  const record = canSeeScenario(actor.role, scenarioId, grants ? new Set(grants.keys()) : undefined) ? await findScenario(db, actor.farmId, scenarioId) : null;
+  const access = await accessOf(db, actor);
+  const record = canSeeScenario(access, scenarioId) ? await findScenario(db, actor.farmId, scenarioId) : null;
   if (!record) throw notFound('Scenario not found');
-  return grants ? asSharedVersion(db, record, grants.get(scenarioId)) : record;
+  return asSeenBy(db, access, record);
 }
 
 /** The farm's scenarios the caller may see, most recently saved first. */
 export async function listFarmScenarios(db: Database, actor: ScenarioActor): Promise<ScenarioListItem[]> {
-  const grants = await grantsOf(db, actor);
-  const shared = grants ? new Set(grants.keys()) : undefined;
-  const visible = (await listScenarios(db, actor.farmId)).filter((record) => canSeeScenario(actor.role, record.id, shared));
+  const access = await accessOf(db, actor);
+  const visible = (await listScenarios(db, actor.farmId)).filter((record) => canSeeScenario(access, record.id));
   // A lender's list describes the shared version, so its summary is computed from that document.
-  const records = grants
+  const records = access.grants
     ? await Promise.all(
         visible.map(async (record) => {
-          const seen = await asSharedVersion(db, record, grants.get(record.id));
+          const seen = await asSeenBy(db, access, record);
           const document = seen.document as Scenario;
           return { ...seen, summary: summarise(document, evaluateScenario(document)) };
         }),
@@ -176,7 +133,7 @@ export async function listFarmScenarios(db: Database, actor: ScenarioActor): Pro
       version: record.version,
       optionCount: record.summary.optionCount,
       best: record.summary.best,
-      updatedAt: record.updatedAt,
+      updatedAt: record.updatedAt.toISOString(),
       updatedBy: record.updatedBy?.name ?? null,
     }));
 }
@@ -250,7 +207,7 @@ async function saveChange(
   change: (latest: Scenario) => unknown,
 ): Promise<ScenarioView> {
   await db.transaction(async (tx) => {
-    const locked = canSeeScenario(actor.role, scenarioId) ? await lockScenario(tx, actor.farmId, scenarioId) : null;
+    const locked = canSeeScenario(await accessOf(tx, actor), scenarioId) ? await lockScenario(tx, actor.farmId, scenarioId) : null;
     if (!locked) throw notFound('Scenario not found');
     const latest = await visibleRecord(tx, actor, scenarioId);
     if (basedOn !== undefined && basedOn !== locked.version) {
@@ -259,7 +216,7 @@ async function saveChange(
         'version_conflict',
         `${latest.updatedBy?.name ?? 'Someone'} saved version ${latest.version} of this scenario after version ${basedOn}, which your changes are based on`,
         undefined,
-        { latest: { version: latest.version, updatedBy: latest.updatedBy?.name ?? null, updatedAt: latest.updatedAt } },
+        { latest: { version: latest.version, updatedBy: latest.updatedBy?.name ?? null, updatedAt: latest.updatedAt.toISOString() } },
       );
     }
     const document = validated(change(latest.document as Scenario));
@@ -369,19 +326,11 @@ export async function deleteScenario(db: Database, actor: ScenarioActor, scenari
   await deleteScenarioRow(db, actor.farmId, scenarioId);
 }
 
-export interface VersionListItem {
-  version: number;
-  note: string;
-  author: string | null;
-  createdAt: Date;
-}
-
 export async function scenarioVersions(db: Database, actor: ScenarioActor, scenarioId: number): Promise<VersionListItem[]> {
   await visibleRecord(db, actor, scenarioId);
-  const grants = await grantsOf(db, actor);
-  const shared = grants?.get(scenarioId);
-  const versions = (await listVersions(db, scenarioId)).filter((v) => !shared || shared.includes(v.version));
-  return versions.map((v) => ({ version: v.version, note: v.note, author: v.author?.name ?? null, createdAt: v.createdAt }));
+  const access = await accessOf(db, actor);
+  const versions = (await listVersions(db, scenarioId)).filter((v) => canSeeVersion(access, scenarioId, v.version));
+  return versions.map((v) => ({ version: v.version, note: v.note, author: v.author?.name ?? null, createdAt: v.createdAt.toISOString() }));
 }
 
 async function versionOf(db: Database, scenarioId: number, version: number): Promise<VersionRecord> {
@@ -391,9 +340,9 @@ async function versionOf(db: Database, scenarioId: number, version: number): Pro
 }
 
 /** One past version, read-only, with its results evaluated now. */
-export async function readVersion(db: Database, actor: ScenarioActor, scenarioId: number, version: number) {
+export async function readVersion(db: Database, actor: ScenarioActor, scenarioId: number, version: number): Promise<VersionView> {
   await visibleRecord(db, actor, scenarioId);
-  assertVersionVisible(await grantsOf(db, actor), scenarioId, version);
+  assertVersionVisible(await accessOf(db, actor), scenarioId, version);
   const found = await versionOf(db, scenarioId, version);
   const scenario = found.document as Scenario;
   return {
@@ -401,7 +350,7 @@ export async function readVersion(db: Database, actor: ScenarioActor, scenarioId
     scenario,
     note: found.note,
     author: found.author?.name ?? null,
-    createdAt: found.createdAt,
+    createdAt: found.createdAt.toISOString(),
     results: evaluateScenario(scenario),
   };
 }
@@ -414,11 +363,11 @@ export async function compareVersions(
   from: number,
   to: number,
   units?: UnitSystem,
-): Promise<{ from: number; to: number; units: UnitSystem; changes: FieldChange[] }> {
+): Promise<VersionComparison> {
   await visibleRecord(db, actor, scenarioId);
-  const grants = await grantsOf(db, actor);
-  assertVersionVisible(grants, scenarioId, from);
-  assertVersionVisible(grants, scenarioId, to);
+  const access = await accessOf(db, actor);
+  assertVersionVisible(access, scenarioId, from);
+  assertVersionVisible(access, scenarioId, to);
   const [older, newer] = await Promise.all([versionOf(db, scenarioId, from), versionOf(db, scenarioId, to)]);
   const shownIn = units ?? (await findFarmBaseline(db, actor.farmId))?.units ?? 'metric';
   return { from, to, units: shownIn, changes: diffScenarios(older.document as Json, newer.document as Json, shownIn) };

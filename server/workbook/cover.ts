@@ -7,7 +7,7 @@ import { BASE_FONT, COLOURS, fitWrappedRow, setupPrint, styleSection, styleTotal
 
 export const COVER_SHEET = 'Cover';
 
-/** The cautions Byrecast shows everywhere (product brief), in the order it lists them. */
+/** The cautions Byrecast shows everywhere (docs/product.md), in the order it lists them. */
 export const CAUTIONS = [
   'Results are planning estimates, not financial, legal, tax, engineering or veterinary advice.',
   'Manure storage and agitation release toxic and explosive gases (hydrogen sulfide, methane): never enter a manure pit or closed space; keep people and animals away while agitating.',

@@ -5,6 +5,7 @@
  * year t + this loan's P + I), the existing farm's cash moving with the current option's margin.
  */
 import type ExcelJS from 'exceljs';
+import { COVERAGE_TIE } from '../../shared/engine/coverage.js';
 import { CASH_FLOW_ROW, yearColumn as cashFlowYearColumn } from './cash-flows.js';
 import { INPUT_NAMES as N, defineName, optionName, type OptionLayout, type WorkbookContext } from './context.js';
 import {
@@ -176,10 +177,14 @@ function writeOptionBlock(
     const r = rows[key];
     setFormula(ws.getCell(r, columns.lowestColumn), `IF(COUNT(${range})=0,"",MIN(${range}))`, lowest?.value ?? null);
     ws.getCell(r, columns.lowestColumn).numFmt = RATIO_FORMAT;
-    // MATCH's position among years 1..H is the year itself; it finds the first of equal lows, as the engine does.
+    // The earliest year within COVERAGE_TIE of the lowest, as the engine rules ties (floating-point
+    // noise must not move the year). SUMPRODUCT evaluates the comparison per cell without an array
+    // formula; a blank ("") ratio compares as text, never as a low.
+    const firstYearOffset = yearColumn(1) - 1;
+    const tied = `(${range}<=MIN(${range})+${COVERAGE_TIE})`;
     setFormula(
       ws.getCell(r, columns.lowestYearColumn),
-      `IF(COUNT(${range})=0,"",MATCH(MIN(${range}),${range},0))`,
+      `IF(COUNT(${range})=0,"",SUMPRODUCT(MIN(COLUMN(${range})-${firstYearOffset}+1000*(1-ISNUMBER(${range})*${tied}))))`,
       lowest?.year ?? null,
     );
     ws.getCell(r, columns.lowestYearColumn).numFmt = COUNT_FORMAT;

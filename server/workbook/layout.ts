@@ -74,7 +74,7 @@ export interface Formats {
   moneyWhole: string;
 }
 
-/** Palette from the design brief: slate text, byre green headers, straw inputs, clay warnings. */
+/** Palette from docs/design.md: slate text, byre green headers, straw inputs, clay warnings. */
 export const COLOURS = {
   slate: 'FF26323A',
   green: 'FF3F6F5A',

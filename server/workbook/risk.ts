@@ -5,7 +5,7 @@
 import type ExcelJS from 'exceljs';
 import type { MonteCarloResult } from '../../shared/engine/risk/monte-carlo.js';
 import type { SensitivityResult } from '../../shared/engine/risk/sensitivity.js';
-import type { RiskInputKey } from '../../shared/schema/index.js';
+import { RISK_INPUT_LABELS } from '../../shared/schema/index.js';
 import type { WorkbookContext } from './context.js';
 import { BASE_FONT, freeze, PERCENT_FORMAT, setupPrint, styleHeaderRow, styleNote, styleSection, writeTitle } from './layout.js';
 
@@ -16,17 +16,6 @@ export interface WorkbookRisk {
   sensitivity?: SensitivityResult;
   monteCarlo?: MonteCarloResult;
 }
-
-const INPUT_LABELS: Record<RiskInputKey, string> = {
-  milkPrice: 'Milk price',
-  yieldResponse: 'Lying-time milk response',
-  capitalCost: 'Capital cost',
-  interestRate: 'Interest rate',
-  wage: 'Wage',
-  beddingPrice: 'Bedding price',
-  fertiliserPrice: 'Fertiliser prices',
-  herdSize: 'Herd size',
-};
 
 const percentOf = (multiplier: number) => `${multiplier >= 1 ? '+' : '−'}${Math.round(Math.abs(multiplier - 1) * 100)} %`;
 
@@ -68,7 +57,7 @@ export function addRiskSheet(context: WorkbookContext, risk: WorkbookRisk | unde
       ws.getCell(r, 3).numFmt = money;
       r++;
       for (const swing of swings) {
-        ws.getCell(r, 1).value = INPUT_LABELS[swing.key];
+        ws.getCell(r, 1).value = RISK_INPUT_LABELS[swing.key];
         ws.getCell(r, 2).value = percentOf(swing.lowMultiplier);
         ws.getCell(r, 3).value = swing.atLow;
         ws.getCell(r, 4).value = percentOf(swing.highMultiplier);
@@ -94,7 +83,7 @@ export function addRiskSheet(context: WorkbookContext, risk: WorkbookRisk | unde
     const inputs = context.scenario.risk.monteCarlo.inputs;
     ws.getCell(r, 1).value =
       `${mc.drawsDone.toLocaleString('en')} draws, seed ${mc.seed}${mc.cancelled ? ' (stopped early)' : ''}; uncertain inputs: ` +
-      (inputs.length === 0 ? 'none (every draw equals the base case)' : inputs.map((input) => `${INPUT_LABELS[input.key]} (${input.distribution})`).join(', '));
+      (inputs.length === 0 ? 'none (every draw equals the base case)' : inputs.map((input) => `${RISK_INPUT_LABELS[input.key]} (${input.distribution})`).join(', '));
     styleNote(ws.getCell(r, 1));
     r++;
     const header = [

@@ -345,7 +345,8 @@ export function projectOption(
   for (const line of option.energyLines) energyToday += line.kwhPerYear * line.pricePerKwh;
   const runningByGrowth = { milkPrice: 0, feed: 0, wages: 0, bedding: 0, fertiliser: 0, general: 0, none: 0 };
   for (const line of option.runningCosts) runningByGrowth[line.growth] += line.amountPerYear;
-  const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate, plan.capitalTotal);
+  // Maintenance and insurance fall on the new capital and on any existing housing the option keeps using.
+  const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate + option.insuranceRate, plan.capitalTotal + option.existingHousingValue);
   const scrapingHours = scrapingHoursPerYear(labour.scrapingPassesPerDay, labour.minutesPerScrapingPass, housedDays);
   const bedCareHours = bedCareHoursPerYear(labour.bedCleaningsPerDay, labour.secondsPerStallCleaning, stalls, housedDays);
   const troughHours = troughHoursPerYear(labour.troughCleaningsPerDay, labour.minutesPerTroughCleaning, option.water.troughs, housedDays);
@@ -418,11 +419,15 @@ export function projectOption(
         yieldPerResponseLater: lyingGain * rampFraction(2, herd.lyingResponseYear1Fraction),
       }
     : null;
-  let gMilk = 1, gFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
+  let grownMilk = 1, grownFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
   let lossCarried = 0;
+  const { milkPrice: milkIndex, feed: feedIndex } = herd.yearlyPriceIndex;
   for (let t = 1; t <= H; t++) {
-    gMilk *= 1 + growth.milkPrice;
-    gFeed *= 1 + growth.feed;
+    grownMilk *= 1 + growth.milkPrice;
+    grownFeed *= 1 + growth.feed;
+    // A year's price index (a trough, a spike) scales that year alone; growth carries on from the grown path.
+    const gMilk = grownMilk * (milkIndex?.[t - 1] ?? 1);
+    const gFeed = grownFeed * (feedIndex?.[t - 1] ?? 1);
     gWage *= 1 + growth.wages;
     gBedding *= 1 + growth.bedding;
     gFert *= 1 + growth.fertiliser;

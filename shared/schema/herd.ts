@@ -13,6 +13,15 @@ const groupGrowth = (label: string) =>
     .default(null)
     .describe(`${label}: nominal growth per year (fraction, 0.02 = 2 %/yr); null = general inflation`);
 
+/** Multiplier per operating year ([0] = year 1) on a price group after its growth; years past the list stay at 1. */
+const yearIndex = (label: string) =>
+  z
+    .array(quantity(`${label} index`, '', 0, 10, `${label} multiplier in one operating year (1 = as grown)`))
+    .max(100, `${label} index: at most 100 years`)
+    .nullable()
+    .default(null)
+    .describe(`${label} multiplier per operating year, [0] = year 1 (1 = as grown); null = 1 every year`);
+
 export const growthRatesSchema = z
   .object({
     milkPrice: groupGrowth('Milk price growth'),
@@ -99,6 +108,13 @@ export const herdSchema = z
       5,
       'Lying time lost for each 10 % of cows above one per stall (hours per cow per day)',
     ).default(0.3),
+    yearlyPriceIndex: z
+      .object({
+        milkPrice: yearIndex('Milk price'),
+        feed: yearIndex('Feed cost'),
+      })
+      .prefault({})
+      .describe('Multipliers on the grown milk price and feed costs per operating year, e.g. a two-year trough; empty = 1 every year'),
     replacementHeiferCost: money('Replacement heifer cost', 'Cost of a replacement heifer or bought cow today (currency per head)', 0, 1e6),
     cullCowValue: money('Cull cow value', 'Sale value of a cull cow today (currency per head)', 0, 1e6),
     existingCashForDebtServicePerYear: money('Existing farm cash for debt service', 'Cash the farm has for debt service today, before the new loan (currency per year)', -1e10, 1e10).default(0),

@@ -5,7 +5,7 @@ import { emailSchema } from './accounts';
 export const REVIEW_STATUSES = ['open', 'questions', 'supported', 'not-supported'] as const;
 export type ReviewStatusValue = (typeof REVIEW_STATUSES)[number];
 
-/** The words PRODUCT.md gives each review status. */
+/** The words docs/product.md gives each review status. */
 export const REVIEW_STATUS_LABELS: Record<ReviewStatusValue, string> = {
   open: 'Open',
   questions: 'Questions',

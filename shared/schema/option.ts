@@ -232,6 +232,8 @@ export const optionSchema = z
     water: waterSchema,
     bedding: beddingSchema,
     maintenanceRate: rate('Maintenance rate', 0, 0.2, 'Maintenance per year as a share of capital (fraction of capital per year)'),
+    insuranceRate: rate('Insurance rate', 0, 0.05, 'Building and equipment insurance per year as a share of capital and existing housing (fraction per year)').default(0),
+    existingHousingValue: money('Existing housing value', "Replacement value today of housing the option keeps using, e.g. the current option's old cubicle house: it carries the maintenance and insurance rates (currency)", 0, 1e9).default(0),
     energyLines: z.array(energyLineSchema).max(50, 'Energy lines: at most 50').default([]).describe('Named electricity uses (kWh per year × price)'),
     manure: manureSchema,
     capitalLines: z.array(capitalLineSchema).max(100, 'Capital lines: at most 100').default([]).describe('Capital lines bought at year 0 (currency, today\'s money)'),

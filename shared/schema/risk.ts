@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { quantity } from './fields';
+import { flag, quantity } from './fields';
 
 /** The inputs a sensitivity range or a Monte Carlo distribution can move. */
 export const riskInputKeys = [
@@ -11,8 +11,36 @@ export const riskInputKeys = [
   'beddingPrice',
   'fertiliserPrice',
   'herdSize',
+  'housedFeedCost',
+  'grazingFeedCost',
+  'marginalFeedCost',
+  'systemYield',
+  'healthCostPerCase',
+  'manureHandlingCost',
+  'milkFeedGrowthGap',
+  'lyingHours',
 ] as const;
 export type RiskInputKey = (typeof riskInputKeys)[number];
+
+/** Plain names of the risk inputs, for charts, tables, pickers and the workbook. */
+export const RISK_INPUT_LABELS: Readonly<Record<RiskInputKey, string>> = {
+  milkPrice: 'Milk price',
+  yieldResponse: 'Milk response to lying time',
+  capitalCost: 'Capital cost',
+  interestRate: 'Interest rate',
+  wage: 'Wage',
+  beddingPrice: 'Bedding price',
+  fertiliserPrice: 'Fertiliser prices',
+  herdSize: 'Herd size',
+  housedFeedCost: 'Feed cost, housed day',
+  grazingFeedCost: 'Feed cost, grazing day',
+  marginalFeedCost: 'Feed per extra kg of milk',
+  systemYield: 'System yield adjustment',
+  healthCostPerCase: 'Health cost per case',
+  manureHandlingCost: 'Slurry handling cost',
+  milkFeedGrowthGap: 'Milk growth against feed',
+  lyingHours: 'Lying-time gain',
+};
 
 const riskKey = z
   .enum(riskInputKeys, { error: `Risk input must be one of: ${riskInputKeys.join(', ')}` })
@@ -36,6 +64,14 @@ const sensitivitySchema = z
     beddingPrice: rangeSchema('Bedding price').prefault({}),
     fertiliserPrice: rangeSchema('Fertiliser price').prefault({}),
     herdSize: rangeSchema('Herd size').prefault({}),
+    housedFeedCost: rangeSchema('Housed feed cost').prefault({}),
+    grazingFeedCost: rangeSchema('Grazing feed cost').prefault({}),
+    marginalFeedCost: rangeSchema('Marginal feed cost').prefault({}),
+    systemYield: rangeSchema('System yield adjustment').prefault({}),
+    healthCostPerCase: rangeSchema('Health cost per case').prefault({}),
+    manureHandlingCost: rangeSchema('Manure handling cost').prefault({}),
+    milkFeedGrowthGap: rangeSchema('Milk growth against feed (0.2 = 1 point a year faster)').prefault({}),
+    lyingHours: rangeSchema('Lying-time gain over the current option').prefault({}),
   } satisfies Record<RiskInputKey, unknown>)
   .describe('Low/high change per key input (fractions of the base value)');
 
@@ -83,6 +119,9 @@ export const riskSchema = z
         draws: quantity('Monte Carlo draws', 'draws', 100, 100000, 'Number of draws', { int: true }).default(5000),
         seed: quantity('Monte Carlo seed', '', 0, 2147483647, 'Seed of the generator (same seed → same numbers)', { int: true }).default(1),
         inputs: z.array(monteCarloInputSchema).max(20, 'Monte Carlo inputs: at most 20').default([]).describe('Uncertain inputs and their distributions'),
+        // Keep the default equal to DEFAULT_MILK_FEED_CORRELATION in shared/engine/risk/monte-carlo.ts.
+        milkFeedCorrelation: quantity('Milk and feed correlation', '', -0.99, 0.99, 'Correlation of the milk price draw with the feed cost draws (Gaussian copula, −0.99 to 0.99)').default(0.5),
+        pricesPerYear: flag('Prices drawn per year', 'True to draw the milk price and feed cost multipliers afresh each year (a trough can last a year or two), false for one multiplier over all years').default(false),
       })
       .prefault({})
       .describe('Monte Carlo settings'),

@@ -1,28 +1,19 @@
 import type {
   ChangePasswordInput,
-  FarmRole,
   PasswordResetInput,
   PasswordResetRequestInput,
   SignInInput,
   SignUpInput,
   UpdateProfileInput,
 } from '@shared/schema/accounts';
+import type { Session, SessionUser } from '@shared/responses';
 import { http } from './client';
 
-export interface SessionUser {
-  id: number;
-  email: string;
-  name: string;
-  isAdmin: boolean;
-}
-
-export interface Session {
-  user: SessionUser;
-  memberships: { farmId: number; role: FarmRole }[];
-}
+export type { Session, SessionUser };
 
 export const authApi = {
-  me: () => http.get<Session>('/auth/me'),
+  /** null when signed out. */
+  me: () => http.get<Session | null>('/auth/me'),
   signIn: (input: SignInInput) => http.post<Session>('/auth/sign-in', input),
   signUp: (input: SignUpInput) => http.post<Session>('/auth/sign-up', input),
   signOut: () => http.post<void>('/auth/sign-out'),

@@ -1,17 +1,12 @@
-import type { CreateFarmInput, FarmRole } from '@shared/schema/accounts';
+/** The caller's farms: list, create, and one farm's details. */
+import type { CreateFarmInput } from '@shared/schema/accounts';
+import type { FarmDetail, FarmSummary } from '@shared/responses';
 import { http } from './client';
 
-export interface FarmSummary {
-  id: number;
-  name: string;
-  location: string;
-  role: FarmRole;
-  currency: string;
-  units: 'metric' | 'us';
-}
+export type { FarmDetail, FarmSummary };
 
 export const farmsApi = {
   list: () => http.get<FarmSummary[]>('/farms'),
   create: (input: CreateFarmInput) => http.post<FarmSummary>('/farms', input),
-  get: (farmId: number) => http.get<FarmSummary>(`/farms/${farmId}`),
+  get: (farmId: number) => http.get<FarmDetail>(`/farms/${farmId}`),
 };

@@ -1,31 +1,13 @@
 /** Lender shares: share a scenario version, list and revoke shares, the lender's own shares, the share link, the audit log. */
-import type { ReviewStatusValue, SharePreview } from '@shared/schema/lender';
-
-export type { SharePreview };
+import type { SharePreview } from '@shared/schema/lender';
+import type { AuditEntry, AuditPage, ShareState, ShareView } from '@shared/responses';
 import type { AcceptInvitationInput } from '@shared/schema/accounts';
 import type { Session } from './auth';
 import { http } from './client';
 
-export type ShareState = 'pending' | 'live' | 'revoked' | 'expired';
-
-export interface LenderShare {
-  id: number;
-  scenarioId: number;
-  scenarioName: string;
-  version: number;
-  lenderEmail: string;
-  lenderName: string | null;
-  state: ShareState;
-  /** YYYY-MM-DD: from this date (UTC) the share no longer opens. */
-  expiresOn: string;
-  acceptedAt: string | null;
-  revokedAt: string | null;
-  reviewStatus: ReviewStatusValue;
-  reviewStatusAt: string | null;
-  reviewStatusBy: string | null;
-  sharedBy: string | null;
-  createdAt: string;
-}
+export type { AuditEntry, AuditPage, SharePreview, ShareState };
+/** A lender share as the API answers it. */
+export type LenderShare = ShareView;
 
 export interface CreateShareBody {
   email: string;
@@ -34,21 +16,10 @@ export interface CreateShareBody {
   message?: string;
 }
 
-
 export interface AcceptedShare extends Session {
   farmId: number;
   scenarioId: number;
   shareId: number;
-}
-
-export interface AuditEntry {
-  id: number;
-  actor: string;
-  action: string;
-  description: string;
-  subject: string;
-  detail: Record<string, unknown>;
-  createdAt: string;
 }
 
 const farm = (farmId: number) => `/farms/${farmId}`;
@@ -63,5 +34,5 @@ export const lenderApi = {
   /** The lender workbook download (members: latest version; a lender: the version shared with them). */
   workbookUrl: (farmId: number, scenarioId: number) => `/api${farm(farmId)}/scenarios/${scenarioId}/workbook.xlsx`,
   auditLog: (farmId: number, before?: number) =>
-    http.get<{ entries: AuditEntry[]; nextBefore: number | null }>(`${farm(farmId)}/audit-log?limit=50${before ? `&before=${before}` : ''}`),
+    http.get<AuditPage>(`${farm(farmId)}/audit-log?limit=50${before ? `&before=${before}` : ''}`),
 };

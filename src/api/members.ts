@@ -1,4 +1,5 @@
 import type { AcceptInvitationInput, FarmRole, InviteInput } from '@shared/schema/accounts';
+import type { InvitationPreview, PendingInvitation } from '@shared/responses';
 import type { Session } from './auth';
 import { http } from './client';
 
@@ -10,22 +11,7 @@ export interface FarmMember {
   since: string;
 }
 
-export interface PendingInvitation {
-  id: number;
-  email: string;
-  role: FarmRole;
-  expiresAt: string;
-  createdAt: string;
-}
-
-export interface InvitationPreview {
-  farmName: string;
-  role: FarmRole;
-  email: string;
-  inviterName: string | null;
-  expiresAt: string;
-  accountExists: boolean;
-}
+export type { InvitationPreview, PendingInvitation };
 
 /** A farm's members and the owner's invitations. */
 export const membersApi = {

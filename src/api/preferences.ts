@@ -1,41 +1,11 @@
 /** Preferences, decisions and the saved Monte Carlo result of a scenario. */
 import type { MonteCarloResult } from '@shared/engine/risk/monte-carlo';
-import type { FarmRole } from '@shared/schema/accounts';
+import type { Decision, Preference, PreferencesView, RiskResultView } from '@shared/responses';
 import { http } from './client';
 
-export interface Preference {
-  userId: number;
-  name: string;
-  role: FarmRole | null;
-  optionId: string;
-  reason: string;
-  updatedAt: string;
-}
-
-export interface Decision {
-  id: number;
-  optionId: string;
-  optionName: string;
-  decidedBy: { id: number; name: string } | null;
-  decidedAt: string;
-  note: string;
-  scenarioVersion: number;
-}
-
-export interface PreferencesView {
-  preferences: Preference[];
-  decision: Decision | null;
-  earlierDecisions: Decision[];
-}
-
-export interface SavedRiskResult {
-  result: MonteCarloResult;
-  scenarioVersion: number;
-  inputsHash: string;
-  fresh: boolean;
-  savedBy: string | null;
-  savedAt: string;
-}
+export type { Decision, Preference, PreferencesView };
+/** The Monte Carlo result kept with a scenario. */
+export type SavedRiskResult = RiskResultView;
 
 const base = (farmId: number, scenarioId: number) => `/farms/${farmId}/scenarios/${scenarioId}`;
 
@@ -46,7 +16,8 @@ export const preferencesApi = {
   withdraw: (farmId: number, scenarioId: number) => http.delete<PreferencesView>(`${base(farmId, scenarioId)}/preferences/me`),
   decide: (farmId: number, scenarioId: number, body: { optionId: string; note: string }) =>
     http.post<PreferencesView>(`${base(farmId, scenarioId)}/decision`, body),
-  riskResult: (farmId: number, scenarioId: number) => http.get<SavedRiskResult>(`${base(farmId, scenarioId)}/risk-result`),
+  /** null while no run has been kept for the scenario. */
+  riskResult: (farmId: number, scenarioId: number) => http.get<SavedRiskResult | null>(`${base(farmId, scenarioId)}/risk-result`),
   keepRiskResult: (farmId: number, scenarioId: number, body: { scenarioVersion: number; result: MonteCarloResult }) =>
     http.put<SavedRiskResult>(`${base(farmId, scenarioId)}/risk-result`, body),
 };

@@ -1,28 +1,10 @@
 /** Review notes and review status of lender shares. */
 import type { CreateNoteInput, ReviewStatusValue } from '@shared/schema/lender';
-import type { FarmRole } from '@shared/schema/accounts';
 import { http } from './client';
 import type { LenderShare } from './lender';
+import type { ReviewNote, ReviewThread, ShareReview } from '@shared/responses';
 
-export interface ReviewNote {
-  id: number;
-  author: string | null;
-  authorRole: FarmRole;
-  optionId: string | null;
-  optionName: string | null;
-  lineRef: string | null;
-  body: string;
-  createdAt: string;
-}
-
-export interface ReviewThread extends ReviewNote {
-  replies: ReviewNote[];
-}
-
-export interface ShareReview {
-  share: LenderShare;
-  notes: ReviewThread[];
-}
+export type { ReviewNote, ReviewThread, ShareReview };
 
 const share = (farmId: number, shareId: number) => `/farms/${farmId}/lender-shares/${shareId}`;
 

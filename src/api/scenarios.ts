@@ -1,70 +1,24 @@
 /** Scenarios of one farm: list, read, save with optimistic locking, versions and their comparison. */
-import type { Scenario, ScenarioInput } from '@shared/schema';
+import type { ScenarioInput } from '@shared/schema';
 import type { z } from 'zod';
 import type { createScenarioBodySchema } from '@shared/scenario-api';
-import type { ScenarioResults } from '@shared/engine/results';
-import type { FieldChange } from '@shared/scenario-diff';
+import type {
+  ScenarioListItem,
+  ScenarioMeta,
+  ScenarioStatus,
+  ScenarioView,
+  VersionComparison,
+  VersionConflict,
+  VersionListItem,
+  VersionView,
+} from '@shared/responses';
 import { http } from './client';
 
-export type ScenarioStatus = 'draft' | 'decided' | 'archived';
-
-export interface ScenarioListItem {
-  id: number;
-  name: string;
-  status: ScenarioStatus;
-  version: number;
-  optionCount: number;
-  /** Best option by NPV at the last save; null when nothing could be evaluated. */
-  best: { name: string; npv: number } | null;
-  updatedAt: string;
-  updatedBy: string | null;
-}
-
-/** Who saved what and when, as the server tells it alongside a scenario. */
-export interface ScenarioMeta {
-  status?: ScenarioStatus;
-  updatedAt?: string;
-  updatedBy?: string | null;
-  [extra: string]: unknown;
-}
-
-export interface ScenarioDocument {
-  scenario: Scenario;
-  version: number;
-  results: ScenarioResults | null;
-  meta?: ScenarioMeta;
-}
-
-export interface VersionListItem {
-  version: number;
-  note: string;
-  author: string | null;
-  createdAt: string;
-}
-
-export interface VersionDocument {
-  version: number;
-  scenario: Scenario;
-  note?: string;
-  author?: string | null;
-  createdAt?: string;
-  results?: ScenarioResults | null;
-}
-
-export type VersionChange = FieldChange;
-
-export interface VersionComparison {
-  from: number;
-  to: number;
-  changes: VersionChange[];
-}
-
-/** The body of a 409: a newer version saved by someone else since ours was loaded. */
-export interface VersionConflict {
-  version: number;
-  updatedBy: string | null;
-  updatedAt: string;
-}
+export type { ScenarioListItem, ScenarioMeta, ScenarioStatus, VersionComparison, VersionConflict, VersionListItem };
+/** A scenario with its version and results, as GET S and every save answer. */
+export type ScenarioDocument = ScenarioView;
+/** A past version, read-only, with its results. */
+export type VersionDocument = VersionView;
 
 export type CreateScenarioBody = z.input<typeof createScenarioBodySchema>;
 

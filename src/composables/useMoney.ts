@@ -1,6 +1,6 @@
 /**
  * Money and number formatting in the farm's locale and currency (Intl.NumberFormat), with a true
- * minus sign (U+2212) for negatives as DESIGN.md asks. Formatters are cached: tables format
+ * minus sign (U+2212) for negatives as docs/design.md asks. Formatters are cached: tables format
  * thousands of cells.
  */
 import { computed, toValue, type MaybeRefOrGetter } from 'vue';

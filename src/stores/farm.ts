@@ -1,7 +1,8 @@
 /** The farm being looked at: its details, its herd and market baseline, and its scenarios. */
 import { defineStore } from 'pinia';
 import { computed, readonly, ref } from 'vue';
-import { baselineApi, farmApi, type FarmBaseline, type FarmDetail } from '@/api/baseline';
+import { baselineApi, type FarmBaseline } from '@/api/baseline';
+import { farmsApi, type FarmDetail } from '@/api/farms';
 import { ApiError } from '@/api/client';
 import { scenariosApi, type CreateScenarioBody, type ScenarioListItem } from '@/api/scenarios';
 import type { DisplaySettings } from '@/composables/useDisplay';
@@ -36,7 +37,7 @@ export const useFarmStore = defineStore('farm', () => {
     farmId.value = id;
     loadError.value = null;
     // A lender is not shown the herd baseline (the API refuses it): ask only for what they may see.
-    pending = farmApi
+    pending = farmsApi
       .get(id)
       .then((detail) => Promise.all([detail, detail.role === 'lender' ? null : baselineApi.get(id), scenariosApi.list(id)]))
       .then(([detail, base, list]) => {

@@ -60,7 +60,7 @@ export const useMembersStore = defineStore('farm-members', () => {
   return { farm: readonly(farm), members: readonly(members), invitations: readonly(invitations), load, invite, resend, revoke, changeRole, remove };
 });
 
-/** How each farm role is named on screen (PRODUCT.md's words). */
+/** How each farm role is named on screen (docs/product.md's words). */
 export const roleLabels: Record<FarmRole, string> = {
   owner: 'Owner',
   partner: 'Family partner',

@@ -64,7 +64,7 @@ export const usePreferencesStore = defineStore('preferences', () => {
     try {
       savedRisk.value = await preferencesApi.riskResult(farmId, scenarioId);
     } catch (e) {
-      if (!(e instanceof ApiError) || e.status !== 404) error.value = e instanceof ApiError ? e.message : 'Could not load the saved risk result';
+      error.value = e instanceof ApiError ? e.message : 'Could not load the saved risk result';
       savedRisk.value = null;
     }
   }

@@ -53,7 +53,7 @@ export const useScenarioStore = defineStore('scenario', () => {
   const working = ref<Scenario | null>(null);
   const savedJson = ref('');
   const savedVersion = ref(0);
-  const meta = ref<ScenarioMeta>({});
+  const meta = ref<Partial<ScenarioMeta>>({});
   const loadError = ref<string | null>(null);
   const loading = ref(false);
 

@@ -1,7 +1,6 @@
 import { defineStore } from 'pinia';
 import { computed, readonly, ref } from 'vue';
 import { authApi, type Session } from '@/api/auth';
-import { ApiError } from '@/api/client';
 import { invitationsApi } from '@/api/members';
 import type {
   AcceptInvitationInput,
@@ -27,10 +26,6 @@ export const useSessionStore = defineStore('session', () => {
       .me()
       .then((s) => {
         session.value = s;
-      })
-      .catch((error: unknown) => {
-        if (!(error instanceof ApiError) || error.status !== 401) throw error;
-        session.value = null;
       })
       .finally(() => {
         loaded.value = true;

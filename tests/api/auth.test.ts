@@ -1,7 +1,6 @@
 /**
  * Accounts and sessions: sign-up, sign-in, sign-out, "who am I", profile, password change,
- * and the session cookie's defences. Expected behaviour comes from issue 3 (its "What to build",
- * "Done when" and Contract sections) and the standards named beside each check.
+ * and the session cookie's defences. Expected behaviour comes from docs/product.md (Accounts) and the standards named beside each check.
  */
 import jwt from 'jsonwebtoken';
 import request from 'supertest';
@@ -43,7 +42,7 @@ describe('accounts and sessions', () => {
   });
 
   it('signs each demo account in with the shared demo password', async () => {
-    // issue 3, Contract: five demo accounts, password byrecast-demo; /me gives user and memberships.
+    // docs/product.md (Accounts): five demo accounts, password byrecast-demo; /me gives user and memberships.
     const expected: Record<string, { role: string | null; isAdmin: boolean }> = {
       'owner@byrecast.test': { role: 'owner', isAdmin: false },
       'partner@byrecast.test': { role: 'partner', isAdmin: false },
@@ -64,7 +63,7 @@ describe('accounts and sessions', () => {
   });
 
   it('sets the session as an httpOnly, SameSite=Lax cookie that is not Secure over plain http', async () => {
-    // issue 3: signed JWT in an httpOnly, SameSite=Lax cookie, Secure when served over https (RFC 6265bis attributes).
+    // docs/product.md (Accounts): signed JWT in an httpOnly, SameSite=Lax cookie, Secure when served over https (RFC 6265bis attributes).
     const res = await request(t.app).post('/api/auth/sign-in').send({ email: 'owner@byrecast.test', password: DEMO_PASSWORD });
     const line = (res.headers['set-cookie'] as unknown as string[]).find((c) => c.startsWith(SESSION_COOKIE))!;
     expect(line).toMatch(/HttpOnly/i);
@@ -74,7 +73,7 @@ describe('accounts and sessions', () => {
   });
 
   it('signs a new account up with a normalised e-mail and lets it sign in in any letter case', async () => {
-    // issue 3: e-mail addresses normalised (trimmed, lower case).
+    // docs/product.md (Accounts): e-mail addresses normalised (trimmed, lower case).
     const res = await request(t.app).post('/api/auth/sign-up').send({ name: 'Tamsin Orrel', email: '  Tamsin.Orrel@Example.TEST ', password: STRONG });
     expect(res.status).toBe(201);
     expect(res.body.user.email).toBe('tamsin.orrel@example.test');
@@ -83,7 +82,7 @@ describe('accounts and sessions', () => {
   });
 
   it('refuses a short password, a password equal to the e-mail and a taken e-mail, naming the field', async () => {
-    // issue 3: password policy length >= 10 and not the e-mail; a clear error naming the field (house rules).
+    // docs/product.md (Accounts): password policy length >= 10 and not the e-mail; a clear error naming the field (docs/product.md, Bad input).
     const short = await request(t.app).post('/api/auth/sign-up').send({ name: 'A', email: 'short@example.test', password: 'abc123456' });
     expect(short.status).toBe(400);
     expect(short.body.error.fields.password).toMatch(/at least 10/);
@@ -98,7 +97,7 @@ describe('accounts and sessions', () => {
   });
 
   it('answers a wrong password and an unknown e-mail with the same status and body', async () => {
-    // issue 3, Done when: wrong password and unknown e-mail give the same answer (no account enumeration).
+    // docs/product.md (Accounts): wrong password and unknown e-mail give the same answer (no account enumeration).
     const wrong = await request(t.app).post('/api/auth/sign-in').send({ email: 'owner@byrecast.test', password: 'not-the-password' });
     const unknown = await request(t.app).post('/api/auth/sign-in').send({ email: 'nobody-here@byrecast.test', password: 'not-the-password' });
     expect(wrong.status).toBe(401);
@@ -108,7 +107,7 @@ describe('accounts and sessions', () => {
   });
 
   it('refuses a disabled account with the same answer as a wrong password', async () => {
-    // PRODUCT.md: the administrator manages accounts; a disabled account must not sign in.
+    // docs/product.md: the administrator manages accounts; a disabled account must not sign in.
     const admin = await signIn(t, 'admin@byrecast.test');
     await request(t.app).post('/api/auth/sign-up').send({ name: 'Leaving Soon', email: 'leaving@example.test', password: STRONG });
     const list = await request(t.app).get('/api/admin/users').set('cookie', admin);
@@ -121,17 +120,19 @@ describe('accounts and sessions', () => {
   });
 
   it('ends the session on sign-out so the old cookie no longer works', async () => {
-    // issue 3, Done when: sign-out then old cookie refused.
+    // docs/product.md (Accounts): sign-out then old cookie refused.
     const cookie = await signIn(t, 'partner@byrecast.test');
     expect((await request(t.app).get('/api/auth/me').set('cookie', cookie)).status).toBe(200);
     expect((await request(t.app).post('/api/auth/sign-out').set('cookie', cookie)).status).toBe(204);
+    // Signed out is an answer: 200 with null, never the user.
     const after = await request(t.app).get('/api/auth/me').set('cookie', cookie);
-    expect(after.status).toBe(401);
+    expect(after.status).toBe(200);
+    expect(after.body).toBeNull();
     expect((await request(t.app).get('/api/farms').set('cookie', cookie)).status).toBe(401);
   });
 
   it('refuses a token signed with another key, an altered token, an unsigned one and an expired one', async () => {
-    // issue 3, Done when: a JWT signed with another key or altered is refused (RFC 7519 / RFC 7515 signature check).
+    // docs/product.md (Accounts): a JWT signed with another key or altered is refused (RFC 7519 / RFC 7515 signature check).
     const good = (await signIn(t, 'consultant@byrecast.test')).split('=')[1]!;
     const claims = jwt.decode(good) as { sub: string; ver: number };
     const foreign = jwt.sign({ ver: claims.ver }, 'another-key-another-key-another-key-0000', { subject: claims.sub, expiresIn: 3600 });
@@ -142,15 +143,16 @@ describe('accounts and sessions', () => {
     const unsigned = `${Buffer.from(JSON.stringify({ alg: 'none', typ: 'JWT' })).toString('base64url')}.${payload}.`;
     const expired = jwt.sign({ ver: claims.ver, exp: Math.floor(Date.now() / 1000) - 60 }, t.config.jwtSecret, { subject: claims.sub });
     for (const token of [foreign, altered, unsigned, expired, 'not-a-jwt']) {
-      const res = await request(t.app).get('/api/auth/me').set('cookie', `${SESSION_COOKIE}=${token}`);
+      const res = await request(t.app).get('/api/farms').set('cookie', `${SESSION_COOKIE}=${token}`);
       expect(res.status, token.slice(0, 20)).toBe(401);
+      expect((await request(t.app).get('/api/auth/me').set('cookie', `${SESSION_COOKIE}=${token}`)).body, token.slice(0, 20)).toBeNull();
     }
     // The genuine token still works, so the refusals above come from the changes.
     expect((await request(t.app).get('/api/auth/me').set('cookie', `${SESSION_COOKIE}=${good}`)).status).toBe(200);
   });
 
   it('refuses a state-changing request from another origin and lets the app origin through', async () => {
-    // issue 3, Contract: Origin of another site gets 403; the app's own origin passes.
+    // docs/product.md (Accounts): Origin of another site gets 403; the app's own origin passes.
     const cookie = await signIn(t, 'owner@byrecast.test');
     const evil = await request(t.app).post('/api/farms').set('cookie', cookie).set('origin', 'https://evil.example').send({ name: 'Forged Farm' });
     expect(evil.status).toBe(403);
@@ -165,7 +167,7 @@ describe('accounts and sessions', () => {
   });
 
   it('changes the name shown in the profile', async () => {
-    // issue 3: profile (name).
+    // docs/product.md (Accounts): profile (name).
     const cookie = await signIn(t, 'lender@byrecast.test');
     const res = await request(t.app).patch('/api/auth/me').set('cookie', cookie).send({ name: '  Oren V.  ' });
     expect(res.status).toBe(200);
@@ -176,7 +178,7 @@ describe('accounts and sessions', () => {
   });
 
   it('changes the password, ending every other session while this one continues', async () => {
-    // issue 3: a password change invalidates earlier sessions (token version per user).
+    // docs/product.md (Accounts): a password change invalidates earlier sessions (token version per user).
     await request(t.app).post('/api/auth/sign-up').send({ name: 'Pella Wrenn', email: 'pella@example.test', password: STRONG });
     const here = await signIn(t, 'pella@example.test', STRONG);
     const elsewhere = await signIn(t, 'pella@example.test', STRONG);
@@ -189,15 +191,15 @@ describe('accounts and sessions', () => {
     expect(res.status).toBe(204);
     const renewed = sessionCookie(res);
     expect(renewed).not.toBeNull();
-    expect((await request(t.app).get('/api/auth/me').set('cookie', elsewhere)).status).toBe(401);
-    expect((await request(t.app).get('/api/auth/me').set('cookie', here)).status).toBe(401);
+    expect((await request(t.app).get('/api/auth/me').set('cookie', elsewhere)).body).toBeNull();
+    expect((await request(t.app).get('/api/auth/me').set('cookie', here)).body).toBeNull();
     expect((await request(t.app).get('/api/auth/me').set('cookie', renewed!)).status).toBe(200);
     expect((await request(t.app).post('/api/auth/sign-in').send({ email: 'pella@example.test', password: STRONG })).status).toBe(401);
     await signIn(t, 'pella@example.test', 'hayloft-window-77');
   });
 
   it('keeps the administrator out of farm data unless a member', async () => {
-    // PRODUCT.md: the administrator sees no farm data unless also a member.
+    // docs/product.md: the administrator sees no farm data unless also a member.
     const admin = await signIn(t, 'admin@byrecast.test');
     const farms = await request(t.app).get('/api/farms').set('cookie', admin);
     expect(farms.body).toEqual([]);
@@ -216,7 +218,7 @@ describe('rate limits', () => {
   const limited = (rateLimit: { perEmail: number; perIp: number }) => createTestApp({ config: { rateLimit: { windowMinutes: 15, ...rateLimit } } });
 
   it('stops sign-in attempts for one address after the limit, for known and unknown addresses alike', async () => {
-    // issue 3: rate-limited per address with a "try again in N minutes" message; never reveals whether the e-mail exists.
+    // docs/product.md (Accounts): rate-limited per address with a "try again in N minutes" message; never reveals whether the e-mail exists.
     const t = await limited({ perEmail: 3, perIp: 1000 });
     try {
       await request(t.app).post('/api/auth/sign-up').send({ name: 'Known', email: 'known@example.test', password: STRONG });
@@ -242,7 +244,7 @@ describe('rate limits', () => {
   });
 
   it('does not count successful sign-ins against the address', async () => {
-    // issue 3: the limit is on failures to guess; a user signing in often is not locked out (common practice, no source).
+    // docs/product.md (Accounts): the limit is on failures to guess; a user signing in often is not locked out (common practice, no source).
     const t = await limited({ perEmail: 2, perIp: 1000 });
     try {
       await request(t.app).post('/api/auth/sign-up').send({ name: 'Often', email: 'often@example.test', password: STRONG });
@@ -255,7 +257,7 @@ describe('rate limits', () => {
   });
 
   it('stops many addresses tried from one IP', async () => {
-    // issue 3: rate-limited per IP as well as per address.
+    // docs/product.md (Accounts): rate-limited per IP as well as per address.
     const t = await limited({ perEmail: 1000, perIp: 4 });
     try {
       for (let i = 0; i < 4; i++) {
@@ -270,7 +272,7 @@ describe('rate limits', () => {
   });
 
   it('limits password-reset requests per address with the same message', async () => {
-    // issue 3: reset requests are rate-limited per address and per IP.
+    // docs/product.md (Accounts): reset requests are rate-limited per address and per IP.
     const t = await limited({ perEmail: 2, perIp: 1000 });
     try {
       for (let i = 0; i < 2; i++) {
@@ -297,7 +299,7 @@ describe('sign-in timing', () => {
   });
 
   it('takes about as long for an unknown e-mail as for a wrong password', async () => {
-    // issue 3, Done when: unknown e-mail and wrong password answered in similar time
+    // docs/product.md (Accounts): unknown e-mail and wrong password answered in similar time
     // (OWASP Authentication Cheat Sheet, from memory: compare against a dummy hash).
     const time = async (email: string) => {
       const start = performance.now();
@@ -320,13 +322,13 @@ describe('sign-in timing', () => {
 
 describe('production configuration', () => {
   it('hashes passwords at bcrypt cost 12 or more by default', () => {
-    // issue 3: bcrypt cost >= 12 (OWASP Password Storage Cheat Sheet asks for at least 10, from memory).
+    // docs/product.md (Accounts): bcrypt cost >= 12 (OWASP Password Storage Cheat Sheet asks for at least 10, from memory).
     const config = loadConfig({ NODE_ENV: 'production' });
     expect(config.bcryptCost).toBeGreaterThanOrEqual(12);
   });
 
   it('limits sign-in attempts per address by default', () => {
-    // issue 3: sign-in rate-limited per address and per IP; a limit above a few dozen per window
+    // docs/product.md (Accounts): sign-in rate-limited per address and per IP; a limit above a few dozen per window
     // would let a guesser try too much (common practice, no source).
     const config = loadConfig({ NODE_ENV: 'production' });
     expect(config.rateLimit.perEmail).toBeLessThanOrEqual(20);

@@ -1,7 +1,6 @@
 /**
  * Documents API on a real MariaDB with the local-disk storage in a temporary folder, then the
- * same flows against an S3 fake (s3rver) on loopback. Expected behaviour comes from issue 8
- * ("What to build", "Done when", Contract) unless a check names another source.
+ * same flows against an S3 fake (s3rver) on loopback. Expected behaviour comes from docs/product.md (Documents and milk records) unless a check names another source.
  */
 import { existsSync, mkdtempSync, readdirSync, rmSync } from 'node:fs';
 import { createRequire } from 'node:module';

@@ -1,9 +1,9 @@
 /**
  * Hostile input in every text field of the account, farm and member routes: SQL metacharacters
  * are stored and shown back as plain text, 10 kB strings are refused with a message naming the
- * field, and nothing answers 500. Expected behaviour: issue 3 ("Done when": SQL metacharacters
- * and 10 kB strings in every text field, oversized JSON refused with 413) and the house rule
- * "bad input gets a clear error naming the field".
+ * field, and nothing answers 500. Expected behaviour: docs/product.md (Accounts) (SQL metacharacters
+ * and 10 kB strings in every text field, oversized JSON refused with 413) and docs/product.md
+ * (Bad input).
  */
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -88,14 +88,43 @@ describe('hostile input', () => {
     it(`refuses a 10 kB string in ${route} ${field} naming the field`, async () => {
       const res = await send(TEN_KB);
       expect(res.status).toBeLessThan(500);
-      // issue 3 / house rules: refused with a message naming the field.
+      // docs/product.md (Accounts) (Bad input): refused with a message naming the field.
       expect(res.status).toBe(400);
       expect(res.body.error.fields, res.text.slice(0, 200)).toHaveProperty(field);
     });
   }
 
+  it('refuses a lone UTF-16 surrogate with 400 naming the field, on option add, reorder and a whole save', async () => {
+    // "\ud800" alone is no character (Unicode 15, section 3.9 "Unicode Encoding Forms": ill-formed UTF-16).
+    const list = await request(t.app).get(`/api/farms/${farmId}/scenarios`).set('cookie', owner);
+    const base = `/api/farms/${farmId}/scenarios/${list.body[0].id as number}`;
+    const read = await request(t.app).get(base).set('cookie', owner);
+    const version = read.body.version as number;
+    const attempts: [request.Test, string][] = [
+      [request(t.app).post(`${base}/options`).set('cookie', owner).send({ version, startingPoint: 'sand-freestall', name: 'Sand \ud800' }), 'name'],
+      [request(t.app).post(`${base}/options/reorder`).set('cookie', owner).send({ version, order: ['\ud800'] }), 'order.0'],
+      [request(t.app).post(`${base}/options/reorder`).set('cookie', owner).send({ version, order: ['\udc00x'] }), 'order.0'],
+      [
+        request(t.app)
+          .put(base)
+          .set('cookie', owner)
+          .send({ version, scenario: { ...read.body.scenario, options: [{ ...read.body.scenario.options[0], name: 'a\ud800' }, ...read.body.scenario.options.slice(1)] } }),
+        'scenario.options.0.name',
+      ],
+    ];
+    for (const [attempt, field] of attempts) {
+      const res = await attempt;
+      expect(res.status, field).toBe(400);
+      expect(Object.keys(res.body.error.fields), field).toEqual([field]);
+    }
+    // A well-formed pair (an emoji) is text like any other.
+    const emoji = await request(t.app).post(`${base}/options`).set('cookie', owner).send({ version, startingPoint: 'sand-freestall', name: 'Sand \ud83d\udc04' });
+    expect(emoji.status).toBe(200);
+    expect(emoji.body.scenario.options.at(-1).name).toBe('Sand 🐄');
+  });
+
   it('stores SQL metacharacters in a name and a farm name and shows them back as the same text', async () => {
-    // issue 3: stored and shown back as text, never executed.
+    // docs/product.md (Accounts): stored and shown back as text, never executed.
     for (const value of SQL_STRINGS) {
       const me = await request(t.app).patch('/api/auth/me').set('cookie', owner).send({ name: value });
       expect(me.status).toBe(200);
@@ -112,7 +141,7 @@ describe('hostile input', () => {
   });
 
   it('keeps SQL metacharacters in path parameters from reaching the database as SQL', async () => {
-    // issue 3: never executed; a non-number id is simply not found.
+    // docs/product.md (Accounts): never executed; a non-number id is simply not found.
     for (const value of ["1' OR '1'='1", '1;DROP TABLE farms', '-1', '1e3', '99999999999999999999']) {
       const res = await request(t.app).get(`/api/farms/${encodeURIComponent(value)}/members`).set('cookie', owner);
       expect(res.status, value).toBe(404);
@@ -123,7 +152,7 @@ describe('hostile input', () => {
   });
 
   it('refuses an oversized JSON body with 413 on the routes of this issue', async () => {
-    // issue 3, Done when: oversized JSON body refused with 413 (RFC 9110 §15.5.14 Content Too Large).
+    // docs/product.md (Accounts): oversized JSON body refused with 413 (RFC 9110 §15.5.14 Content Too Large).
     const big = JSON.stringify({ name: 'y'.repeat(2 * 1024 * 1024) });
     for (const path of ['/api/auth/sign-up', '/api/auth/password-reset/request', `/api/farms/${farmId}/invitations`, '/api/farms']) {
       const res = await request(t.app).post(path).set('cookie', owner).set('content-type', 'application/json').send(big);

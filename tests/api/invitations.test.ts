@@ -1,7 +1,7 @@
 /**
  * Invitations by e-mail, followed through the captured message as a person would: the owner
- * invites, the link in the e-mail is opened and accepted. Expected behaviour: issue 3
- * ("Invitations by e-mail", "Done when": expired and reused tokens).
+ * invites, the link in the e-mail is opened and accepted. Expected behaviour: docs/product.md (Accounts)
+ * (expired and reused tokens).
  */
 import { createHash } from 'node:crypto';
 import request from 'supertest';
@@ -51,7 +51,7 @@ describe('invitations', () => {
     request(t.app).post(`/api/farms/${farmId}/invitations`).set('cookie', cookie).send({ email, role });
 
   it('mails a link whose token is stored only as its sha-256', async () => {
-    // issue 3: single-use, expiring token stored hashed.
+    // docs/product.md (Accounts): single-use, expiring token stored hashed.
     const res = await invite('Nell.Ashby@Example.test', 'partner');
     expect(res.status).toBe(201);
     expect(res.body.email).toBe('nell.ashby@example.test');
@@ -73,7 +73,7 @@ describe('invitations', () => {
   });
 
   it('lets a new person accept by creating an account, then sees the farm with the invited role', async () => {
-    // issue 3: accepting signs them up or adds the membership.
+    // docs/product.md (Accounts): accepting signs them up or adds the membership.
     const token = tokenFromMail(t, 'nell.ashby@example.test');
     const preview = await request(t.app).get(`/api/invitations/${token}`);
     expect(preview.status).toBe(200);
@@ -94,7 +94,7 @@ describe('invitations', () => {
   });
 
   it('refuses the same link a second time', async () => {
-    // issue 3, Done when: reused tokens refused.
+    // docs/product.md (Accounts): reused tokens refused.
     const token = tokenFromMail(t, 'nell.ashby@example.test');
     const again = await request(t.app).post(`/api/invitations/${token}/accept`).send({ name: 'Someone Else', password: STRONG });
     expect(again.status).toBe(400);
@@ -103,7 +103,7 @@ describe('invitations', () => {
   });
 
   it('refuses an expired link', async () => {
-    // issue 3, Done when: expired tokens refused.
+    // docs/product.md (Accounts): expired tokens refused.
     await invite('late.comer@example.test', 'consultant');
     const token = tokenFromMail(t, 'late.comer@example.test');
     await t.database.pool.query('UPDATE invitations SET expires_at = ? WHERE email = ?', [new Date(Date.now() - 1000), 'late.comer@example.test']);
@@ -114,7 +114,7 @@ describe('invitations', () => {
   });
 
   it('refuses an unknown or malformed token', async () => {
-    // issue 3: a link is only as good as its token.
+    // docs/product.md (Accounts): a link is only as good as its token.
     const unknown = await request(t.app).get(`/api/invitations/${'A'.repeat(43)}`);
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.reason).toBe('unknown');
@@ -124,7 +124,7 @@ describe('invitations', () => {
   });
 
   it('withdraws an invitation so its link stops working', async () => {
-    // issue 3: owners revoke invitations.
+    // docs/product.md (Accounts): owners revoke invitations.
     const created = await invite('withdrawn@example.test', 'lender');
     const token = tokenFromMail(t, 'withdrawn@example.test');
     expect((await request(t.app).delete(`/api/farms/${farmId}/invitations/${created.body.id}`).set('cookie', owner)).status).toBe(204);
@@ -134,7 +134,7 @@ describe('invitations', () => {
   });
 
   it('sends an invitation again with a new link, ending the old one', async () => {
-    // issue 3: owners resend invitations.
+    // docs/product.md (Accounts): owners resend invitations.
     const created = await invite('resend.me@example.test', 'consultant');
     const first = tokenFromMail(t, 'resend.me@example.test');
     const res = await request(t.app).post(`/api/farms/${farmId}/invitations/${created.body.id}/resend`).set('cookie', owner);
@@ -146,7 +146,7 @@ describe('invitations', () => {
   });
 
   it('adds the membership to an existing account once it signs in, and only to that account', async () => {
-    // issue 3: accepting adds the membership to their account.
+    // docs/product.md (Accounts): accepting adds the membership to their account.
     await request(t.app).post('/api/auth/sign-up').send({ name: 'Kit Farrow', email: 'kit.farrow@example.test', password: STRONG });
     await invite('kit.farrow@example.test', 'consultant');
     const token = tokenFromMail(t, 'kit.farrow@example.test');
@@ -168,14 +168,14 @@ describe('invitations', () => {
   });
 
   it('refuses to invite someone who is already a member', async () => {
-    // issue 3: clear errors naming the field (house rules).
+    // docs/product.md (Accounts): clear errors naming the field (docs/product.md, Bad input).
     const res = await invite('partner@byrecast.test', 'lender');
     expect(res.status).toBe(409);
     expect(res.body.error.fields.email).toMatch(/Already a member/);
   });
 
   it('refuses invitations from a partner and a bad role with a field message', async () => {
-    // PRODUCT.md: a family partner cannot manage members.
+    // docs/product.md: a family partner cannot manage members.
     const partner = await signIn(t, 'partner@byrecast.test');
     expect((await invite('x@example.test', 'partner', partner)).status).toBe(403);
     const bad = await invite('x@example.test', 'boss');

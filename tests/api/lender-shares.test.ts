@@ -1,10 +1,10 @@
 /**
- * Lender shares end to end through the API. Expected behaviour comes from issue 7 ("Done when":
+ * Lender shares end to end through the API. Expected behaviour comes from docs/product.md (Lender package) (
  * a lender sees only what is shared with them — not other scenarios of the farm, not other
  * farms, not after revocation or expiry; a lender cannot write anything but notes; share links
- * are single-use tokens stored hashed; Contract: the workbook for members and for a lender with
+ * are single-use tokens stored hashed; the workbook for members and for a lender with
  * a live share, the demo lender has a live share on one demo scenario and none on the other) and
- * PRODUCT.md's role table (the loan officer is read-only on the scenarios shared with them).
+ * docs/product.md's role table (the loan officer is read-only on the scenarios shared with them).
  */
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -69,7 +69,7 @@ describe('lender shares', () => {
 
   describe('demo data', () => {
     it('gives the demo lender a live share on the five-systems scenario and none on the other', async () => {
-      // Contract of issue 7: a live share on one demo scenario and none on the other.
+      // docs/product.md (Lender package): a live share on one demo scenario and none on the other.
       const list = (await demoLender.get(`${farm()}/scenarios`)).body as { id: number }[];
       expect(list.map((s) => s.id)).toEqual([fiveSystemsId]);
       expect((await demoLender.get(scenario(fiveSystemsId))).status).toBe(200);
@@ -80,7 +80,7 @@ describe('lender shares', () => {
     });
 
     it('streams the workbook to members and to the lender with a live share, as an XLSX attachment', async () => {
-      // Contract of issue 7: GET …/workbook.xlsx for members and for a lender with a live share.
+      // docs/product.md (Lender package): GET …/workbook.xlsx for members and for a lender with a live share.
       for (const agent of [owner, demoLender]) {
         const res = await agent.get(`${scenario(fiveSystemsId)}/workbook.xlsx`).buffer(true).parse(binary);
         expect(res.status).toBe(200);
@@ -126,7 +126,7 @@ describe('lender shares', () => {
 
       const [rows] = await t.database.pool.query('SELECT * FROM lender_shares');
       const dump = JSON.stringify(rows);
-      // issue 7: share links are single-use tokens stored hashed — the raw token is nowhere in the table.
+      // docs/product.md (Lender package): share links are single-use tokens stored hashed — the raw token is nowhere in the table.
       expect(dump).not.toContain(token);
       const [own] = (await t.database.pool.query('SELECT token_hash FROM lender_shares WHERE id = ?', [firstShareId])) as unknown as [{ token_hash: string }[]];
       // sha-256 as hex is 64 characters (FIPS 180-4); the stored value is the hash of the e-mailed token.
@@ -212,6 +212,26 @@ describe('lender shares', () => {
       expect((await bank.get(`${farm()}/documents/${onFarm.body.id}/download`)).status).toBe(404);
     });
 
+    it('shows the lender the quotes of the shared scenario, and answers 404 for a scenario not shared', async () => {
+      // docs/product.md (Lender package): a lender sees only what is shared; a scenario they cannot see is "not found".
+      const seen = (await owner.get(scenario(mattressId))).body as { scenario: Scenario };
+      const line = seen.scenario.options.flatMap((o) => o.capitalLines).find((l) => l.kind === 'item');
+      expect(line).toBeDefined();
+      const quote = await owner
+        .post(`${farm()}/documents`)
+        .field('scenarioId', String(mattressId))
+        .field('capitalLineId', line!.id)
+        .attach('file', pdfBytes(), 'Stall quote.pdf');
+      expect(quote.status).toBe(201);
+      expect((await owner.patch(`${farm()}/documents/${quote.body.id}`).send({ quoteAmount: 41250 })).status).toBe(200);
+
+      const shared = await bank.get(`${scenario(mattressId)}/quotes`);
+      expect(shared.status).toBe(200);
+      expect(shared.body.lines).toEqual([{ capitalLineId: line!.id, quoted: true, quoteTotal: 41250, documents: [{ id: quote.body.id, fileName: 'Stall quote.pdf', quoteAmount: 41250 }] }]);
+      expect((await bank.get(`${scenario(fiveSystemsId)}/quotes`)).status).toBe(404);
+      expect((await bank.get(scenario(fiveSystemsId))).status).toBe(404);
+    });
+
     it('ends access at once when the share is revoked', async () => {
       expect((await owner.post(`${farm()}/lender-shares/${firstShareId}/revoke`)).status).toBe(200);
       expect((await bank.get(`${farm()}/scenarios`)).body).toEqual([]);
@@ -261,7 +281,7 @@ describe('lender shares', () => {
           .replace(/:(\w+)/g, '1');
         const res = await demoLender[route.method](path).send({});
         const label = `${route.method} ${route.path}`;
-        // PRODUCT.md: the loan officer writes review notes and sets a review status, nothing else.
+        // docs/product.md: the loan officer writes review notes and sets a review status, nothing else.
         if (route.permission === 'review:write') expect(res.status, label).not.toBe(403);
         else expect(res.status, label).toBe(403);
       }

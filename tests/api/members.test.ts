@@ -1,7 +1,7 @@
 /**
  * Farm members: listing, changing roles, removing, and the rule that a farm always keeps an
- * owner. Expected behaviour: issue 3 ("A farm has at least one owner at all times"; owners
- * change or remove members) and PRODUCT.md (who may manage members).
+ * owner. Expected behaviour: docs/product.md (Accounts) ("A farm has at least one owner at all times"; owners
+ * change or remove members) and docs/product.md (who may manage members).
  */
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -42,7 +42,7 @@ describe('farm members', () => {
   });
 
   it('lists the members with their roles to owner, partner and consultant, not to the lender', async () => {
-    // PRODUCT.md: the lender is read-only on shared scenarios "and nothing else".
+    // docs/product.md: the lender is read-only on shared scenarios "and nothing else".
     const res = await request(t.app).get(`/api/farms/${farmId}/members`).set('cookie', owner);
     expect(res.status).toBe(200);
     const roles = Object.fromEntries((res.body as { email: string; role: string }[]).map((m) => [m.email, m.role]));
@@ -57,7 +57,7 @@ describe('farm members', () => {
   });
 
   it('refuses to demote or remove the only owner', async () => {
-    // issue 3: a farm has at least one owner at all times.
+    // docs/product.md (Accounts): a farm has at least one owner at all times.
     const demote = await request(t.app).patch(`/api/farms/${farmId}/members/${ids['owner@byrecast.test']}`).set('cookie', owner).send({ role: 'partner' });
     expect(demote.status).toBe(409);
     expect(demote.body.error.code).toBe('last_owner');
@@ -69,7 +69,7 @@ describe('farm members', () => {
   });
 
   it('changes a role, and refuses an unknown role naming the field', async () => {
-    // issue 3: owners change members' roles.
+    // docs/product.md (Accounts): owners change members' roles.
     const res = await request(t.app).patch(`/api/farms/${farmId}/members/${ids['consultant@byrecast.test']}`).set('cookie', owner).send({ role: 'partner' });
     expect(res.status).toBe(200);
     const consultant = await signIn(t, 'consultant@byrecast.test');
@@ -83,14 +83,14 @@ describe('farm members', () => {
   });
 
   it('lets the partner see but not change roles', async () => {
-    // PRODUCT.md: a family partner cannot manage members.
+    // docs/product.md: a family partner cannot manage members.
     const partner = await signIn(t, 'partner@byrecast.test');
     const res = await request(t.app).patch(`/api/farms/${farmId}/members/${ids['lender@byrecast.test']}`).set('cookie', partner).send({ role: 'owner' });
     expect(res.status).toBe(403);
   });
 
   it('with two owners lets one step down, then keeps the last', async () => {
-    // issue 3: at least one owner at all times.
+    // docs/product.md (Accounts): at least one owner at all times.
     await request(t.app).patch(`/api/farms/${farmId}/members/${ids['partner@byrecast.test']}`).set('cookie', owner).send({ role: 'owner' });
     const second = await signIn(t, 'partner@byrecast.test');
     expect((await request(t.app).patch(`/api/farms/${farmId}/members/${ids['owner@byrecast.test']}`).set('cookie', second).send({ role: 'partner' })).status).toBe(200);
@@ -102,7 +102,7 @@ describe('farm members', () => {
   });
 
   it('never leaves a farm without an owner when two owners demote each other at once', async () => {
-    // issue 3: at least one owner at all times, also under concurrent requests.
+    // docs/product.md (Accounts): at least one owner at all times, also under concurrent requests.
     const a = await signIn(t, 'owner@byrecast.test');
     await request(t.app).post('/api/auth/sign-up').send({ name: 'Bryn Calder', email: 'bryn@example.test', password: STRONG });
     const b = await signIn(t, 'bryn@example.test', STRONG);
@@ -124,7 +124,7 @@ describe('farm members', () => {
   });
 
   it('removes a member, who then cannot find the farm', async () => {
-    // issue 3: owners remove members; the farm then answers 404 to them (DEVELOPERS.md: non-member → 404).
+    // docs/product.md (Accounts): owners remove members; the farm then answers 404 to them (DEVELOPERS.md: non-member → 404).
     const lender = await signIn(t, 'lender@byrecast.test');
     expect((await request(t.app).get(`/api/farms/${farmId}`).set('cookie', lender)).status).toBe(200);
     expect((await request(t.app).delete(`/api/farms/${farmId}/members/${ids['lender@byrecast.test']}`).set('cookie', owner)).status).toBe(204);

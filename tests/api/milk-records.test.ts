@@ -1,7 +1,7 @@
 /**
  * Milk-record import API on a real MariaDB: preview → refused rows → confirm sets the farm
  * baseline's herd size and yield, and the import is kept. Expected values are computed here
- * from the generated records; behaviour comes from issue 8 unless a check names another source.
+ * from the generated records; behaviour comes from docs/product.md (Documents and milk records) unless a check names another source.
  * The last test runs the real server in its own process and measures its memory.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
@@ -15,7 +15,7 @@ import { createTestDatabase, type TestDatabase } from '../helpers/database.js';
 import { expectedSummary, generateMilkCsv, isoDay } from '../helpers/milk-csv.js';
 import { farmIdByName, signedIn } from '../helpers/scenarios.js';
 
-// 1 lb = 0.45359237 kg exactly (NIST Handbook 44, Appendix C; REFERENCES.md, memory of a definition).
+// 1 lb = 0.45359237 kg exactly (NIST Handbook 44, Appendix C; docs/references.md, memory of a definition).
 const KG_PER_LB = 0.45359237;
 const MB = 1024 * 1024;
 

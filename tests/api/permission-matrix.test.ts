@@ -1,8 +1,8 @@
 /**
  * The permission matrix: every farm route in `farmRouteRegistry` (filled as the app registers
  * its routes, so a new route is picked up without touching this file) × every farm role, a
- * signed-in non-member and a signed-out caller. Expected answers come from issue 3 ("Done
- * when": allowed ones succeed, the rest get 401/403/404 as designed, no response carries
+ * signed-in non-member and a signed-out caller. Expected answers come from docs/product.md (Accounts) (
+ * allowed ones succeed, the rest get 401/403/404 as designed, no response carries
  * another farm's data) and DEVELOPERS.md ("A farm the caller is not a member of answers 404").
  */
 import request from 'supertest';
@@ -72,7 +72,7 @@ afterAll(async () => {
 
 describe('permission matrix', () => {
   it('covers the farm routes of this issue and names only permissions from the table', () => {
-    // issue 3: the matrix is generated from the permission table, so a new route cannot be forgotten.
+    // docs/product.md (Accounts): the matrix is generated from the permission table, so a new route cannot be forgotten.
     const paths = routes.map((r) => `${r.method} ${r.path}`);
     expect(paths).toContain('get /api/farms/:farmId');
     expect(paths).toContain('post /api/farms/:farmId/invitations');

@@ -119,9 +119,11 @@ describe('preferences, decisions and the saved risk result', () => {
     expect(res.status).toBe(404);
   });
 
-  it('has no saved risk result at first', async () => {
+  it('answers "no saved risk result yet" as 200 with null, not as an error', async () => {
     const owner = await signedIn(t, 'owner@byrecast.test');
-    expect((await owner.get(`${base}/risk-result`)).status).toBe(404);
+    const res = await owner.get(`${base}/risk-result`);
+    expect(res.status).toBe(200);
+    expect(res.body).toBeNull();
   });
 
   it('keeps a Monte Carlo result with the hash of the scenario it was run on, fresh until the scenario changes', async () => {

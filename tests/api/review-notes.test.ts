@@ -1,9 +1,9 @@
 /**
  * Review notes, review status and the audit log through the API. Expected behaviour comes from
- * issue 7 ("Review notes": the lender writes notes, optionally tied to an option or a line, and
+ * docs/product.md (Lender package) ("Review notes": the lender writes notes, optionally tied to an option or a line, and
  * sets the review status open / questions / supported / not supported; members see notes and
  * status, answer in a thread and get an e-mail when the status changes; every share, note and
- * status change is in an audit log visible to the owner) and PRODUCT.md's role table.
+ * status change is in an audit log visible to the owner) and docs/product.md's role table.
  */
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -92,7 +92,7 @@ describe('review notes and status', () => {
     const nested = await owner.post(`${farm()}/lender-shares/${shareId}/notes/${reply.body.id}/replies`).send({ body: 'The quote is dated this month.' });
     expect(nested.status).toBe(201);
 
-    // PRODUCT.md: review notes and status are the lender's; members answer.
+    // docs/product.md: review notes and status are the lender's; members answer.
     expect((await owner.post(`${farm()}/lender-shares/${shareId}/notes`).send({ body: 'Owner note' })).status).toBe(403);
     expect((await owner.put(`${farm()}/lender-shares/${shareId}/status`).send({ status: 'supported' })).status).toBe(403);
     expect((await lender.post(`${farm()}/lender-shares/${shareId}/notes/${note.id}/replies`).send({ body: 'Lender reply' })).status).toBe(403);

@@ -1,8 +1,8 @@
 /**
  * Who may reach which scenario, and bad input on every baseline and scenario route. Expected
- * behaviour comes from issue 5 ("Done when": a partner can edit, a lender cannot until shared;
+ * behaviour comes from docs/product.md (Scenarios and versions) (a partner can edit, a lender cannot until shared;
  * another farm's scenario is never reachable by id; every route refuses bad input with a field
- * path) and PRODUCT.md's role table.
+ * path) and docs/product.md's role table.
  */
 import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -69,7 +69,7 @@ describe('scenario access and input checks', () => {
     });
 
     it('shows a lender no scenario that is not shared with them, and refuses their writes', async () => {
-      // PRODUCT.md: a loan officer is read-only on the scenarios shared with them, and nothing else.
+      // docs/product.md: a loan officer is read-only on the scenarios shared with them, and nothing else.
       const list = await lender.get(`/api/farms/${farmId}/scenarios`);
       expect(list.status).toBe(200);
       expect((list.body as { id: number }[]).map((s) => s.id)).not.toContain(scenarioId);

@@ -1,8 +1,7 @@
 /**
  * The scenario API on a real MariaDB: the demo scenarios, create → edit → save → versions →
  * compare → restore, option operations, optimistic locking, server results against the engine
- * run here, and export. Expected behaviour comes from issue 5 ("What to build", "Done when",
- * Contract) unless a check names another source.
+ * run here, and export. Expected behaviour comes from docs/product.md (Scenarios and versions) unless a check names another source.
  */
 import { execFile } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -76,7 +75,7 @@ describe('scenario API', () => {
     });
 
     it('demo fixtures compare a grazing current option with the four freestalls, and mattress (current) with sand', () => {
-      // issue 5, Demo data; PRODUCT.md capability 3 (five starting points).
+      // docs/product.md (Scenarios and versions), Demo data; docs/product.md capability 3 (five starting points).
       const five = demoScenarioFile('cairnbrook-five-systems.json');
       expect(five.options.map((o) => [o.startingPoint, o.current])).toEqual([
         ['grazing', true],
@@ -90,7 +89,7 @@ describe('scenario API', () => {
         ['mattress-topdressed', true],
         ['deep-sand', false],
       ]);
-      // Plausible for a 150–250 cow herd (issue 5, Demo data).
+      // Plausible for a 150–250 cow herd (docs/product.md (Scenarios and versions), Demo data).
       for (const scenario of [five, beds]) expect(scenario.herd.cows).toBeGreaterThanOrEqual(150);
       for (const scenario of [five, beds]) expect(scenario.herd.cows).toBeLessThanOrEqual(250);
     });

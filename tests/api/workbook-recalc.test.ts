@@ -22,8 +22,8 @@ import { recalculateWithLibreOffice } from '../helpers/libreoffice';
 const CREATED = new Date('2026-11-30T09:00:00Z');
 const CHANGED_RATES = { discountRate: 0.09, interestRate: 0.07 };
 
-function demoScenario(): Scenario {
-  const file = new URL('../../scenarios/cairnbrook-five-systems.json', import.meta.url);
+function demoScenario(name = 'cairnbrook-five-systems'): Scenario {
+  const file = new URL(`../../scenarios/${name}.json`, import.meta.url);
   return scenarioSchema.parse(JSON.parse(readFileSync(file, 'utf8')));
 }
 
@@ -65,7 +65,7 @@ function one(workbook: ExcelJS.Workbook, name: string): Read {
   return named(workbook, name)[0] ?? null;
 }
 
-/** Money agrees to the cent (the brief's tolerance for the ledger). */
+/** Money agrees to the cent (docs/model.md: ledger money in cents). */
 function expectMoney(actual: Read, expected: number, label: string): void {
   expect(typeof actual, `${label}: ${String(actual)}`).toBe('number');
   expect(Math.abs((actual as number) - expected), `${label}: ${String(actual)} vs ${expected}`).toBeLessThanOrEqual(0.01 + 1e-9);
@@ -166,6 +166,11 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
   let recalculated: ExcelJS.Workbook;
   let recalculatedWithNewRates: ExcelJS.Workbook;
   let fileBytes: Buffer;
+  // The second demo: a level loan on a steady herd, so every year's coverage is the same ratio
+  // apart from floating-point noise, and the year of the lowest is decided by the tie rule.
+  const levelScenario = demoScenario('cairnbrook-mattress-or-sand');
+  const levelResults = evaluateScenario(levelScenario);
+  let recalculatedLevel: ExcelJS.Workbook;
 
   beforeAll(async () => {
     const workbook = await buildLenderWorkbook({
@@ -189,15 +194,39 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
     const editedPath = join(dir, 'demo-new-rates.xlsx');
     await edited.xlsx.writeFile(editedPath);
 
+    const level = await buildLenderWorkbook({
+      scenario: levelScenario,
+      results: levelResults,
+      farm: { name: 'Cairnbrook Farm', location: 'Lower Tessly (invented)' },
+      version: 'Version 1',
+      preparedBy: 'Selka Dunmore',
+      created: CREATED,
+    });
+    const levelPath = join(dir, 'level.xlsx');
+    await level.xlsx.writeFile(levelPath);
+
     written = new ExcelJS.Workbook();
     await written.xlsx.readFile(original);
-    [recalculated, recalculatedWithNewRates] = (await recalculateWithLibreOffice([original, editedPath], dir)) as [ExcelJS.Workbook, ExcelJS.Workbook];
+    [recalculated, recalculatedWithNewRates, recalculatedLevel] = (await recalculateWithLibreOffice([original, editedPath, levelPath], dir)) as [
+      ExcelJS.Workbook,
+      ExcelJS.Workbook,
+      ExcelJS.Workbook,
+    ];
   }, 300_000);
 
   afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
   it('reproduces every key result of the engine from the formulas: cash flows, NPV, IRR, payback, loan, DSCR', () => {
     checkAllOptions(recalculated, results);
+  });
+
+  it('finds the same year of lowest coverage as the app when the years tie', () => {
+    const mattress = levelResults.options[0]!;
+    // The engine's tie rule: equal lows (to 1e-9) go to the earliest year; here that is year 1.
+    const ratios = mattress.coverage.map((c) => c.wholeFarm ?? NaN);
+    expect(Math.max(...ratios) - Math.min(...ratios)).toBeLessThan(1e-9);
+    expect(mattress.lowestCoverage?.year).toBe(1);
+    checkAllOptions(recalculatedLevel, levelResults);
   });
 
   it('writes cached values equal to what LibreOffice recalculates, in every formula cell', () => {
@@ -256,7 +285,7 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
   });
 
   it('carries the document properties, landscape page setup, frozen headers, the cautions and no macros', () => {
-    // Issue 7 and PRODUCT.md capability 8: document property block, A4/Letter landscape, frozen header rows, no macros.
+    // docs/product.md (Lender package) and docs/product.md capability 8: document property block, A4/Letter landscape, frozen header rows, no macros.
     expect(written.creator).toBe('Byrecast');
     expect(written.title).toContain('Cairnbrook Farm');
     expect(written.created.toISOString()).toBe(CREATED.toISOString());
@@ -271,7 +300,7 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
     const cover: string[] = [];
     written.getWorksheet('Cover')?.eachRow((row) => row.eachCell((cell) => cover.push(String(cell.value))));
     const text = cover.join('\n');
-    // PRODUCT.md, "Cautions the product shows" (read).
+    // docs/product.md, "Cautions the product shows" (read).
     for (const phrase of ['planning estimates', 'hydrogen sulfide', 'local building codes', 'nutrient management plan']) expect(text).toContain(phrase);
     for (const detail of ['Cairnbrook Farm', 'Lower Tessly (invented)', scenario.name, 'Version 1', 'Selka Dunmore', '2026-11-30']) expect(text).toContain(detail);
   });

@@ -6,7 +6,7 @@ import { parseMilkRecordCsv } from '../../shared/milk-records/parse';
 import { generateMilkCsv } from '../helpers/milk-csv';
 import { bench, type TableRow } from './harness';
 
-// Issue 8: "files up to 200 000 rows within a few seconds"; 3 s is our reading of "a few".
+// docs/product.md (Documents and milk records): "files up to 200 000 rows within a few seconds"; 3 s is our reading of "a few".
 const TARGET_S = 3;
 
 /** Times the 200 000-row read and returns its table row. */

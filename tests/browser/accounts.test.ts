@@ -2,7 +2,7 @@
  * Accounts end to end in Chromium: sign up, sign in, create a farm, invite a partner, open the
  * captured e-mail on the dev outbox page, accept the invitation in a second browser, and see the
  * farm as that partner; then the reset, profile and administrator screens. Expected behaviour:
- * issue 3 ("Done when": the browser test; "Screens"). Screenshots of each screen are saved.
+ * docs/product.md (Accounts). Screenshots of each screen are saved.
  */
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';

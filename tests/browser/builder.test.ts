@@ -171,7 +171,7 @@ describe('scenario builder in Chromium', () => {
     await page.getByRole('link', { name: SCENARIO }).click();
     await until(() => page.locator('.results-strip .strip-option').count()).toBeGreaterThan(0);
 
-    // The schema allows at most 24 h of lying a day (MODEL.md, validation).
+    // The schema allows at most 24 h of lying a day (docs/model.md, validation).
     await page.getByRole('textbox', { name: 'Lying time' }).fill('30');
     const message = page.locator('#field-options-1-lyingHoursPerDay-error');
     await until(() => message.textContent()).toContain('Lying time must be at most 24');

@@ -1,7 +1,7 @@
 /**
  * Documents and milk records in Chromium, as the farm owner: upload a quote to a capital line,
  * give it an amount, see it listed and download it; import a milk-record file, see the refused
- * rows, confirm, and see the herd baseline change. Behaviour from issue 8 ("Done when").
+ * rows, confirm, and see the herd baseline change. Behaviour from docs/product.md (Documents and milk records).
  */
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';

@@ -1,8 +1,7 @@
 /**
  * The lender share in a real browser: the owner shares a version, the lender opens the captured
  * e-mail on the dev outbox page, signs up, sees the read-only scenario, downloads the workbook,
- * sets the status to "questions" with a note; the owner sees it. Expected behaviour: issue 7
- * ("Done when": the browser test) and DESIGN.md ("Lender view: the same scenario read-only, with
+ * sets the status to "questions" with a note; the owner sees it. Expected behaviour: docs/product.md (Lender package) and docs/design.md ("Lender view: the same scenario read-only, with
  * the review notes beside it and the workbook a click away"). Screenshots at desktop
  * (1366×900) and tablet (820×1180) sizes are saved.
  */

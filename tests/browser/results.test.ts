@@ -94,7 +94,7 @@ describe('results and comparison in Chromium', () => {
         const text = (await cell.innerText()).trim();
         const expected = measure.value(option as OptionResult);
         if (expected === null) {
-          // MODEL.md: a metric that cannot be computed is null with a reason, never a number.
+          // docs/model.md: a metric that cannot be computed is null with a reason, never a number.
           expect(text, `${option.id} ${measure.key}`).toMatch(/^(not defined|not in \d+ yr|no stalls|no debt|no extra outlay|—)/);
           continue;
         }

@@ -119,7 +119,7 @@ describe('risk screen in Chromium', () => {
         `rendering the result afterwards: worst ${after.length === 0 ? 0 : Math.max(...after).toFixed(0)} ms`,
     );
 
-    // The same seed and settings in the shared core here in Node (MODEL.md: same seed → same numbers, client and server).
+    // The same seed and settings in the shared core here in Node (docs/model.md: same seed → same numbers, client and server).
     const expected = runMonteCarlo(scenario, { draws: DRAWS, seed: SEED, inputs: inputs.map((i) => ({ ...i })) });
     expect(shown).toHaveLength(expected.options.length);
     for (const option of expected.options) {
@@ -130,7 +130,7 @@ describe('risk screen in Chromium', () => {
     const text = await page.locator('main').innerText();
     expect(text).not.toMatch(/NaN|Infinity|undefined/);
     await harness.screenshot(page, 'risk-desktop');
-    // Issue 6: the main thread is never blocked for more than 100 ms during the run.
+    // docs/product.md (Results, comparison and risk): the main thread is never blocked for more than 100 ms during the run.
     expect(worst).toBeLessThan(100);
     await context.close();
   }, 420_000);

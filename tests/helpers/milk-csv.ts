@@ -57,7 +57,7 @@ export function generateMilkCsv(options: MilkCsvOptions): { text: string; record
 
 /**
  * Herd size and mean yield computed straight from the records: distinct cows and mean kg per
- * record over the 30 days ending on the last record's day (issue 8's "last period").
+ * record over the 30 days ending on the last record's day (docs/product.md, Documents and milk records: the last 30-day period).
  */
 export function expectedSummary(records: readonly GeneratedRecord[], kgPerUnit: number): { herdSize: number; averageKg: number; lastDay: number } {
   const lastDay = records.reduce((max, r) => Math.max(max, r.day), -Infinity);

@@ -65,7 +65,7 @@ describe('npm run evaluate', { timeout: 60_000, concurrent: true }, () => {
   });
 
   it('refuses an invalid scenario with exit code 2 and one line per bad field', async () => {
-    // MODEL.md, Validation: a negative herd, a 300 % interest rate and a horizon of 0 are refused
+    // docs/model.md, Validation: a negative herd, a 300 % interest rate and a horizon of 0 are refused
     // with a message naming the field.
     const input = riskScenarioInput();
     const bad = writeScenario('invalid.json', {

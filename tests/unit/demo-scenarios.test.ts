@@ -26,7 +26,7 @@ describe('the invented demo farm a practitioner would believe', () => {
     const sand = byBed('deep-sand');
     const topDressed = byBed('mattress-topdressed');
     const bare = byBed('mattress');
-    // Deep sand is the surface cows choose most (REFERENCES.md, common practice).
+    // Deep sand is the surface cows choose most (docs/references.md, common practice).
     expect(sand?.lyingHoursPerDay).toBeGreaterThanOrEqual(topDressed?.lyingHoursPerDay ?? Infinity);
     // Tucker & Weary 2004 (read): 12.3 h bare, 13.8 h with 7.5 kg sawdust; less sawdust, less lying.
     expect(bare?.lyingHoursPerDay).toBe(12.3);

@@ -1,14 +1,14 @@
 /**
  * The milk-record CSV reader (shared/milk-records/parse.ts). Expected values are computed in
  * the test from the generated records (tests/helpers/milk-csv.ts), not taken from the reader;
- * behaviour comes from issue 8 unless a check names another source.
+ * behaviour comes from docs/product.md (Documents and milk records) unless a check names another source.
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { MilkRecordFileError, parseDay, parseMilkRecordCsv } from '../../shared/milk-records/parse';
 import { expectedSummary, generateMilkCsv, isoDay } from '../helpers/milk-csv';
 
-// 1 lb = 0.45359237 kg exactly (NIST Handbook 44, Appendix C; REFERENCES.md, memory of a definition).
+// 1 lb = 0.45359237 kg exactly (NIST Handbook 44, Appendix C; docs/references.md, memory of a definition).
 const KG_PER_LB = 0.45359237;
 
 /** The field a MilkRecordFileError names, or 'no error'. */

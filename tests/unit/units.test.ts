@@ -51,14 +51,14 @@ describe('conversion constants', () => {
 
 describe('conversion functions', () => {
   it('convert the reference examples', () => {
-    // REFERENCES.md: manure 68 kg ≈ 150 lb per cow per day (ASABE D384.2, memory; Weiss 2007, read).
+    // docs/references.md: manure 68 kg ≈ 150 lb per cow per day (ASABE D384.2, memory; Weiss 2007, read).
     expect(kgToLb(68)).toBeCloseTo(149.9, 1);
     expect(lbToKg(150)).toBeCloseTo(68.04, 2);
-    // REFERENCES.md: 3 in = 7.6 cm of trough perimeter; 10 US gal/min = 38 L/min (Penn State Extension, read).
+    // docs/references.md: 3 in = 7.6 cm of trough perimeter; 10 US gal/min = 38 L/min (Penn State Extension, read).
     expect(cmToIn(7.62)).toBeCloseTo(3, 10);
     expect(usGalToLitre(10)).toBeCloseTo(37.85, 2);
     expect(litreToUsGal(3.785411784)).toBeCloseTo(1, 12);
-    // REFERENCES.md: stall length 10 ft against a wall ≈ 3.05 m (university housing guidance, read).
+    // docs/references.md: stall length 10 ft against a wall ≈ 3.05 m (university housing guidance, read).
     expect(ftToM(10)).toBeCloseTo(3.048, 12);
     // 1 m² = 10.7639 ft², 1 m³ = 35.3147 ft³ = 264.172 US gal (NIST Handbook 44 tables, from memory).
     expect(m2ToFt2(1)).toBeCloseTo(10.7639, 4);

@@ -7,9 +7,9 @@
 import { index, int, json, mysqlEnum, mysqlTable, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
 import { farmsTable, usersTable } from './accounts.js';
 import { createdAt, id, ref, timestamp } from './columns.js';
+import { scenarioStatuses, type ScenarioStatus } from '../../../shared/responses.js';
 
-export const scenarioStatuses = ['draft', 'decided', 'archived'] as const;
-export type ScenarioStatus = (typeof scenarioStatuses)[number];
+export { scenarioStatuses, type ScenarioStatus };
 
 export const scenariosTable = mysqlTable(
   'scenarios',

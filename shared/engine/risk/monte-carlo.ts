@@ -1,13 +1,21 @@
-import type { MonteCarloInput, RiskSettings, Scenario } from '../../schema';
+import type { MonteCarloInput, RiskInputKey, RiskSettings, Scenario } from '../../schema';
 import { perturb } from './perturb';
 import { createRandom, type Random } from './random';
-import { sampleTriangular, sampleTruncatedNormal } from './distributions';
+import { normalCdf, normalQuantile, triangularQuantile, truncatedNormalQuantile } from './distributions';
 import { histogram, mean, percentileSorted, sortedCopy, type HistogramBin } from './statistics';
 import { anchoredForShocks, evaluateNpvOnly } from '../evaluate';
 import type { FastOptionResult } from '../results';
 
-/** Monte Carlo settings as the scenario schema holds them: draws, seed, uncertain inputs. */
-export type MonteCarloSettings = RiskSettings['monteCarlo'];
+type SchemaMonteCarlo = RiskSettings['monteCarlo'];
+/**
+ * Monte Carlo settings as the scenario schema holds them: draws, seed, uncertain inputs, and
+ * optionally the milk–feed correlation (default 0.5, an assumption: feed and milk markets tend
+ * to move together; common practice, no source) and yearly price draws (default off).
+ */
+export type MonteCarloSettings = Omit<SchemaMonteCarlo, 'milkFeedCorrelation' | 'pricesPerYear'> &
+  Partial<Pick<SchemaMonteCarlo, 'milkFeedCorrelation' | 'pricesPerYear'>>;
+
+export const DEFAULT_MILK_FEED_CORRELATION = 0.5;
 
 /** Hooks for driving a run: progress after every chunk, cancellation checked between chunks. */
 export interface MonteCarloRunOptions {
@@ -95,15 +103,68 @@ const DEFAULT_BINS = 40;
  * herd negative.
  */
 export function sampleMultiplier(input: MonteCarloInput, random: Random): number {
-  if (input.distribution === 'triangular') return sampleTriangular(input, random);
-  return sampleTruncatedNormal({ mean: input.mean, sd: input.sd, min: input.min ?? 0, max: input.max }, random);
+  return multiplierAt(input, random.next());
 }
 
-/** Draws the multipliers of one draw and applies them in input order (two inputs on one key compound). */
-function drawScenario(base: Scenario, inputs: readonly MonteCarloInput[], random: Random): Scenario {
+/** The input's multiplier at probability u ∈ [0, 1] (its inverse CDF). */
+export function multiplierAt(input: MonteCarloInput, u: number): number {
+  if (input.distribution === 'triangular') return triangularQuantile(input, u);
+  return truncatedNormalQuantile({ mean: input.mean, sd: input.sd, min: input.min ?? 0, max: input.max }, u);
+}
+
+/** Inputs that move feed cost: drawn correlated with the milk price. */
+const FEED_KEYS: ReadonlySet<RiskInputKey> = new Set(['housedFeedCost', 'grazingFeedCost', 'marginalFeedCost']);
+/** Inputs drawn once per year when `pricesPerYear` is on. */
+const isPrice = (key: RiskInputKey): boolean => key === 'milkPrice' || FEED_KEYS.has(key);
+
+/** Keeps a uniform off 0 and 1, where Φ⁻¹ is infinite. */
+const open01 = (u: number): number => Math.min(Math.max(u, 1e-12), 1 - 1e-12);
+
+/**
+ * One uniform per input, the feed inputs' bent towards the milk price's by a Gaussian copula:
+ * z_feed = ρ·z_milk + √(1 − ρ²)·z_own, u = Φ(z_feed). Each input still consumes exactly one
+ * uniform, so ρ = 0 gives the uncorrelated draw and the stream stays aligned.
+ */
+export function correlatedUniforms(inputs: readonly MonteCarloInput[], random: Random, rho: number): number[] {
+  const uniforms = inputs.map(() => random.next());
+  const milkAt = inputs.findIndex((input) => input.key === 'milkPrice');
+  if (milkAt < 0 || rho === 0) return uniforms;
+  const zMilk = normalQuantile(open01(uniforms[milkAt] ?? 0.5));
+  const spread = Math.sqrt(1 - rho * rho);
+  return uniforms.map((u, i) => (FEED_KEYS.has(inputs[i]?.key ?? 'milkPrice') ? normalCdf(rho * zMilk + spread * normalQuantile(open01(u))) : u));
+}
+
+/**
+ * Draws one scenario. Non-price inputs get one multiplier for the whole horizon, applied in input
+ * order (two inputs on one key compound). Prices are drawn the same way, or with `pricesPerYear`
+ * once per operating year into the yearly price index (milk price; every feed input moves all
+ * feed cost that year), so a trough can last one or two years instead of the whole horizon.
+ */
+function drawScenario(base: Scenario, settings: MonteCarloSettings, random: Random): Scenario {
+  const { inputs, milkFeedCorrelation: rho = DEFAULT_MILK_FEED_CORRELATION, pricesPerYear = false } = settings;
+  const once = correlatedUniforms(inputs, random, rho);
   let scenario = base;
-  for (const input of inputs) scenario = perturb(scenario, input.key, sampleMultiplier(input, random));
-  return scenario;
+  inputs.forEach((input, i) => {
+    if (!(pricesPerYear && isPrice(input.key))) scenario = perturb(scenario, input.key, multiplierAt(input, once[i] ?? 0.5));
+  });
+  const priceInputs = pricesPerYear ? inputs.filter((input) => isPrice(input.key)) : [];
+  if (priceInputs.length === 0) return scenario;
+  const index = base.herd.yearlyPriceIndex;
+  const milk: number[] = [];
+  const feed: number[] = [];
+  for (let t = 0; t < base.horizonYears; t++) {
+    const yearly = correlatedUniforms(priceInputs, random, rho);
+    let milkM = index.milkPrice?.[t] ?? 1;
+    let feedM = index.feed?.[t] ?? 1;
+    priceInputs.forEach((input, i) => {
+      const m = multiplierAt(input, yearly[i] ?? 0.5);
+      if (input.key === 'milkPrice') milkM *= m;
+      else feedM *= m;
+    });
+    milk.push(milkM);
+    feed.push(feedM);
+  }
+  return { ...scenario, herd: { ...scenario.herd, yearlyPriceIndex: { milkPrice: milk, feed } } };
 }
 
 function summarise(values: Float64Array): DistributionSummary {
@@ -172,7 +233,7 @@ export function createMonteCarloRun(entered: Scenario, settings: MonteCarloSetti
     step(n: number): number {
       const end = Math.min(total, done + Math.max(0, Math.floor(n)));
       while (!cancelled && done < end) {
-        record(evaluateNpvOnly(drawScenario(scenario, settings.inputs, random), { irrStart }));
+        record(evaluateNpvOnly(drawScenario(scenario, settings, random), { irrStart }));
         done += 1;
       }
       return done;

@@ -78,6 +78,76 @@ export function scaleHerdSize(scenario: Scenario, m: number): Scenario {
   return { ...scaled, herd: { ...scaled.herd, cows: scenario.herd.cows * m } };
 }
 
+/** Housed feed cost per cow-day in every option × m (and the herd baseline new options copy). */
+export function scaleHousedFeedCost(scenario: Scenario, m: number): Scenario {
+  const scaled = mapOptions(scenario, (option) => ({ ...option, feedCostPerCowDay: { ...option.feedCostPerCowDay, housed: option.feedCostPerCowDay.housed * m } }));
+  return { ...scaled, herd: { ...scaled.herd, feedCostPerCowDay: { ...scaled.herd.feedCostPerCowDay, housed: scenario.herd.feedCostPerCowDay.housed * m } } };
+}
+
+/** Grazing feed cost per cow-day in every option × m (and the herd baseline). */
+export function scaleGrazingFeedCost(scenario: Scenario, m: number): Scenario {
+  const scaled = mapOptions(scenario, (option) => ({ ...option, feedCostPerCowDay: { ...option.feedCostPerCowDay, grazing: option.feedCostPerCowDay.grazing * m } }));
+  return { ...scaled, herd: { ...scaled.herd, feedCostPerCowDay: { ...scaled.herd.feedCostPerCowDay, grazing: scenario.herd.feedCostPerCowDay.grazing * m } } };
+}
+
+/** Marginal feed cost per extra kg of milk × m. */
+export function scaleMarginalFeedCost(scenario: Scenario, m: number): Scenario {
+  return { ...scenario, herd: { ...scenario.herd, marginalFeedCostPerKgMilk: scenario.herd.marginalFeedCostPerKgMilk * m } };
+}
+
+/** Each option's system yield adjustment (kg/cow/day beyond the lying-time effect) × m: how far the barn's feeding gain holds. */
+export function scaleSystemYield(scenario: Scenario, m: number): Scenario {
+  return mapOptions(scenario, (option) => ({ ...option, systemYieldAdjustment: option.systemYieldAdjustment * m }));
+}
+
+/** Cost per case of lameness, mastitis and injuries in every option × m. */
+export function scaleHealthCostPerCase(scenario: Scenario, m: number): Scenario {
+  return mapOptions(scenario, (option) => ({
+    ...option,
+    health: {
+      ...option.health,
+      lamenessCostPerCase: option.health.lamenessCostPerCase * m,
+      mastitisCostPerCase: option.health.mastitisCostPerCase * m,
+      injuryCostPerCase: option.health.injuryCostPerCase * m,
+    },
+  }));
+}
+
+/** Manure (slurry) handling cost per m³, the sand extra included, in every option × m. */
+export function scaleManureHandlingCost(scenario: Scenario, m: number): Scenario {
+  return mapOptions(scenario, (option) => ({
+    ...option,
+    manure: { ...option.manure, handlingCostPerM3: option.manure.handlingCostPerM3 * m, sandExtraHandlingCostPerM3: option.manure.sandExtraHandlingCostPerM3 * m },
+  }));
+}
+
+/**
+ * Percentage points a year of milk growth per unit of multiplier: the milk-minus-feed growth gap
+ * is a difference of rates and can be 0, so its "multiplier" shifts milk growth instead of
+ * scaling it — 1.2 has milk grow 1 point a year faster than entered, 0.8 one point slower.
+ */
+export const GROWTH_GAP_POINTS_PER_UNIT = 0.05;
+
+/** Milk price growth shifted by (m − 1) × 5 points a year against feed (feed growth as entered). */
+export function shiftMilkFeedGrowthGap(scenario: Scenario, m: number): Scenario {
+  const growth = scenario.herd.growth;
+  const milk = (growth.milkPrice ?? growth.general) + (m - 1) * GROWTH_GAP_POINTS_PER_UNIT;
+  return { ...scenario, herd: { ...scenario.herd, growth: { ...growth, milkPrice: milk } } };
+}
+
+/**
+ * Each candidate's lying-time gain over the current option × m (its lying hours become current +
+ * gain × m, kept within 0–24 h); the current option is left alone, so the uncertainty is in the
+ * gain the new housing brings, not in the herd's present rest.
+ */
+export function scaleLyingGain(scenario: Scenario, m: number): Scenario {
+  const current = scenario.options.find((option) => option.current) ?? scenario.options[0];
+  const base = current?.lyingHoursPerDay ?? 0;
+  return mapOptions(scenario, (option) =>
+    option.current ? option : { ...option, lyingHoursPerDay: Math.min(24, Math.max(0, base + (option.lyingHoursPerDay - base) * m)) },
+  );
+}
+
 const SCALERS: Readonly<Record<RiskInputKey, (scenario: Scenario, m: number) => Scenario>> = {
   milkPrice: scaleMilkPrice,
   yieldResponse: scaleYieldResponse,
@@ -87,6 +157,14 @@ const SCALERS: Readonly<Record<RiskInputKey, (scenario: Scenario, m: number) => 
   beddingPrice: scaleBeddingPrice,
   fertiliserPrice: scaleFertiliserPrices,
   herdSize: scaleHerdSize,
+  housedFeedCost: scaleHousedFeedCost,
+  grazingFeedCost: scaleGrazingFeedCost,
+  marginalFeedCost: scaleMarginalFeedCost,
+  systemYield: scaleSystemYield,
+  healthCostPerCase: scaleHealthCostPerCase,
+  manureHandlingCost: scaleManureHandlingCost,
+  milkFeedGrowthGap: shiftMilkFeedGrowthGap,
+  lyingHours: scaleLyingGain,
 };
 
 /** Applies one multiplier to one key input; returns a new scenario, the input untouched. */

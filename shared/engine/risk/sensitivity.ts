@@ -18,6 +18,19 @@ export interface InputSwing {
   readonly swing: number;
 }
 
+/**
+ * Lowest yearly whole-farm coverage with one input at its low and at its high value (ratio; null
+ * in a run with nothing to cover). The loan interest rate leaves the project NPV nearly still
+ * (the NPV is unlevered: only the tax on interest moves it) but moves this figure.
+ */
+export interface CoverageSwing {
+  readonly key: RiskInputKey;
+  readonly atLow: number | null;
+  readonly atHigh: number | null;
+  /** |atHigh − atLow| (ratio), 0 when either end is null. */
+  readonly swing: number;
+}
+
 /** Sensitivity of one option: its own NPV and, for a candidate, its NPV against the current option. */
 export interface OptionSensitivity {
   readonly optionId: string;
@@ -30,6 +43,10 @@ export interface OptionSensitivity {
   readonly baseIncrementalNpv: number | null;
   /** Incremental NPV per input, sorted by swing, largest first; null for the current option. */
   readonly incrementalNpv: InputSwing[] | null;
+  /** Lowest whole-farm coverage at base; null when there is no debt service. */
+  readonly baseLowestCoverage: number | null;
+  /** Lowest whole-farm coverage per input, in the order of `incrementalNpv` (own NPV for the current option). */
+  readonly lowestCoverage: CoverageSwing[];
 }
 
 export interface SensitivityResult {
@@ -79,6 +96,14 @@ export function sensitivity(entered: Scenario, ranges: Partial<SensitivityRanges
     currency: scenario.currency,
     options: scenario.options.map((option, i) => {
       const own = base[i];
+      const incremental = option.current ? null : swingsOf(i, (result) => result?.incrementalNpv ?? 0);
+      const order = (incremental ?? swingsOf(i, (result) => result?.npv ?? 0)).map((swing) => swing.key);
+      const lowestCoverage = order.map((key): CoverageSwing => {
+        const run = runs.find((r) => r.key === key);
+        const atLow = run?.low[i]?.minCoverage ?? null;
+        const atHigh = run?.high[i]?.minCoverage ?? null;
+        return { key, atLow, atHigh, swing: atLow === null || atHigh === null ? 0 : Math.abs(atHigh - atLow) };
+      });
       return {
         optionId: option.id,
         name: option.name,
@@ -86,7 +111,9 @@ export function sensitivity(entered: Scenario, ranges: Partial<SensitivityRanges
         baseNpv: own?.npv ?? 0,
         npv: swingsOf(i, (result) => result?.npv ?? 0),
         baseIncrementalNpv: option.current ? null : (own?.incrementalNpv ?? 0),
-        incrementalNpv: option.current ? null : swingsOf(i, (result) => result?.incrementalNpv ?? 0),
+        incrementalNpv: incremental,
+        baseLowestCoverage: own?.minCoverage ?? null,
+        lowestCoverage,
       };
     }),
   };

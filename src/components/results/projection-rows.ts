@@ -1,5 +1,5 @@
 /**
- * The rows of the yearly projection table: each MODEL.md line by name, grouped, with
+ * The rows of the yearly projection table: each docs/model.md line by name, grouped, with
  * subtotals summed in whole cents (so a subtotal equals the sum of the cents shown above it),
  * and the table as CSV. Pure.
  */

@@ -34,7 +34,7 @@ export function countSignChanges(flows: readonly number[]): number {
 
 /**
  * Operating year (1-based) in which a payback of `years` falls: 6.3 → 7, 7 → 7. Cash flows fall
- * at the end of each year (MODEL.md), so a payback of exactly t years is reached in year t.
+ * at the end of each year (docs/model.md), so a payback of exactly t years is reached in year t.
  */
 export function paybackYear(years: number): number {
   return Math.max(1, Math.ceil(years - 1e-9));

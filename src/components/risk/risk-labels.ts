@@ -1,16 +1,7 @@
-/** Plain names of the risk inputs, for charts, tables and pickers. */
-import type { MonteCarloInput, RiskInputKey } from '@shared/schema';
+/** Plain names of the risk inputs (from the shared schema) and a first set of uncertain inputs. */
+import type { MonteCarloInput } from '@shared/schema';
 
-export const RISK_INPUT_LABELS: Record<RiskInputKey, string> = {
-  milkPrice: 'Milk price',
-  yieldResponse: 'Milk response to lying time',
-  capitalCost: 'Capital cost',
-  interestRate: 'Interest rate',
-  wage: 'Wage',
-  beddingPrice: 'Bedding price',
-  fertiliserPrice: 'Fertiliser prices',
-  herdSize: 'Herd size',
-};
+export { RISK_INPUT_LABELS } from '@shared/schema';
 
 /**
  * A starting set of uncertain inputs for a first run, offered when a scenario has none: an

@@ -11,7 +11,7 @@ describe('money in the farm locale', () => {
   });
 
   it('writes negatives with a true minus sign', () => {
-    // DESIGN.md "Numbers": negatives with a minus sign (U+2212 MINUS SIGN, Unicode).
+    // docs/design.md "Numbers": negatives with a minus sign (U+2212 MINUS SIGN, Unicode).
     expect(formatMoney(-5, { currency: 'USD', locale: 'en-US' })).toBe('\u2212$5.00');
   });
 
@@ -25,7 +25,7 @@ describe('money in the farm locale', () => {
 
 describe('projection subtotals and CSV', () => {
   it('sums amounts in whole cents so 0.1 + 0.2 shows as 0.30', () => {
-    // IEEE 754 doubles: 0.1 + 0.2 = 0.30000000000000004 (from memory); ledger money is whole cents (MODEL.md).
+    // IEEE 754 doubles: 0.1 + 0.2 = 0.30000000000000004 (from memory); ledger money is whole cents (docs/model.md).
     expect(sumCents([0.1, 0.2])).toBe(0.3);
   });
 

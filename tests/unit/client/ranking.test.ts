@@ -9,7 +9,7 @@ function option(id: string, fields: Partial<OptionResult>): OptionResult {
 
 describe('ranking options by a measure', () => {
   it('puts the highest NPV first', () => {
-    // A larger NPV is the better investment (MODEL.md Results; common practice, no source).
+    // A larger NPV is the better investment (docs/model.md Results; common practice, no source).
     const ranked = rankOptions([option('a', { npv: 10 }), option('b', { npv: 30 }), option('c', { npv: -5 })], measureByKey('npv'));
     expect(ranked.map((r) => r.option.id)).toEqual(['b', 'a', 'c']);
     expect(ranked.map((r) => r.rank)).toEqual([1, 2, 3]);
@@ -24,7 +24,7 @@ describe('ranking options by a measure', () => {
   });
 
   it('takes rates of return and payback on the change against the current option, never the whole-herd flows', () => {
-    // MODEL.md: the decision figures are the incremental ones; the current option is the yardstick.
+    // docs/model.md: the decision figures are the incremental ones; the current option is the yardstick.
     const current = option('today', { current: true, irr: 0.5, paybackYears: 1 });
     const barn = option('barn', { irr: 0.6, paybackYears: 1.2, incremental: { irr: 0.04, irrKind: 'investment', paybackYears: 14, cashFlows: [-100, 10] } as OptionResult['incremental'] });
     expect(measureByKey('irr').value(barn)).toBe(0.04);

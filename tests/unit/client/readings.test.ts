@@ -20,18 +20,18 @@ const en: ReadingFormat = {
 
 describe('payback readings', () => {
   it('reads a payback of 6.3 years as year 7 of a 20-year horizon', () => {
-    // Wording from issue 6 ("pays back in year 7 of 20"); flows at year ends per MODEL.md conventions.
+    // Wording from docs/product.md (Results, comparison and risk) ("pays back in year 7 of 20"); flows at year ends per docs/model.md conventions.
     expect(paybackReading(6.3, 20)).toBe('pays back in year 7 of 20');
   });
 
   it('puts a payback of exactly 7 years in year 7, not year 8', () => {
-    // MODEL.md: cash flows fall at the end of each year, so cumulative CF ≥ 0 at t = 7 is reached in year 7.
+    // docs/model.md: cash flows fall at the end of each year, so cumulative CF ≥ 0 at t = 7 is reached in year 7.
     expect(paybackYear(7)).toBe(7);
     expect(paybackYear(7.0000001)).toBe(8);
   });
 
   it('says when the option never pays back within the horizon', () => {
-    // MODEL.md: payback is null, "not within horizon", when cumulative CF never reaches 0.
+    // docs/model.md: payback is null, "not within horizon", when cumulative CF never reaches 0.
     expect(paybackReading(null, 20, true)).toBe('does not pay back on discounted cash flows within the 20-year horizon');
   });
 
@@ -49,12 +49,12 @@ describe('IRR readings', () => {
   });
 
   it('says why an IRR is not defined when the flows change sign three times', () => {
-    // Wording from issue 6: "IRR not defined: cash flows change sign three times".
+    // Wording from docs/product.md (Results, comparison and risk): "IRR not defined: cash flows change sign three times".
     expect(irrUndefinedReading('multiple-roots', [-100, 230, -132, 5])).toContain('IRR not defined: cash flows change sign three times');
   });
 
   it('says the flows never change sign when there is nothing to earn a rate on', () => {
-    // MODEL.md: no sign change → IRR null with reason no-sign-change.
+    // docs/model.md: no sign change → IRR null with reason no-sign-change.
     expect(irrUndefinedReading('no-sign-change', [0, 10, 10])).toMatch(/never change sign/);
   });
 
@@ -73,7 +73,7 @@ describe('IRR readings', () => {
 
 describe('coverage and other readings', () => {
   it('reads the lowest coverage against the lender threshold as the issue words it', () => {
-    // Wording from issue 6: "coverage lowest in year 2 at 1.08 — below the lender's 1.25".
+    // Wording from docs/product.md (Results, comparison and risk): "coverage lowest in year 2 at 1.08 — below the lender's 1.25".
     expect(coverageReading({ year: 2, value: 1.08 }, 1.25, en)).toBe("coverage lowest in year 2 at 1.08 — below the lender's 1.25");
   });
 
@@ -83,7 +83,7 @@ describe('coverage and other readings', () => {
   });
 
   it('explains an undefined profitability index and break-even response', () => {
-    // MODEL.md: a metric that cannot be computed is null with a reason.
+    // docs/model.md: a metric that cannot be computed is null with a reason.
     expect(profitabilityIndexReading(null, en)).toMatch(/^not defined: /);
     expect(breakEvenLyingResponseReading(null, 'same-lying-time', 1, 'Grazing as today', en)).toMatch(/same lying time as Grazing as today/);
   });

@@ -74,7 +74,7 @@ describe('floating-point twins of the ledger functions', () => {
     const ledger = loanSchedule({ principal: 200_000, annualRate: 0.075, years: 15, paymentsPerYear: 12 });
     expect(ledger.payments[0]?.payment).toBe(1854.02);
     expect(monthly.interest[0]).toBe(ledger.years[0]?.interest);
-    // Textbook annuity (REFERENCES.md, figures recompute exactly): 5000 at 9 % for 5 years → 1285.46, year-1 interest 450.00.
+    // Textbook annuity (docs/references.md, figures recompute exactly): 5000 at 9 % for 5 years → 1285.46, year-1 interest 450.00.
     const annual = loanYearsFast(5000, 0.09, 5, 1, 0);
     expect(annual.interest[0]).toBe(450);
     expect(annual.principal[0]).toBeCloseTo(1285.46 - 450, 9);
@@ -120,7 +120,7 @@ describe('floating-point twins of the ledger functions', () => {
   });
 
   it('build the whole loan schedule in integer cents, equal to the decimal.js schedule', () => {
-    // finance.ts loanSchedule (decimal.js, half-up, MODEL.md) is the reference. Rates with short
+    // finance.ts loanSchedule (decimal.js, half-up, docs/model.md) is the reference. Rates with short
     // decimals (0.06 / 12 = 0.005) put half cents on many periods, so ties are exercised too.
     fc.assert(
       fc.property(

@@ -59,17 +59,17 @@ describe('MACRS tables', () => {
   });
 
   it('holds the 10-year 200 % DB half-year row', () => {
-    // IRS Publication 946, Table A-1 (read in a copy, REFERENCES.md)
+    // IRS Publication 946, Table A-1 (read in a copy, docs/references.md)
     expect(MACRS_10_YEAR_200DB.percentages).toEqual([10.0, 18.0, 14.4, 11.52, 9.22, 7.37, 6.55, 6.55, 6.56, 6.55, 3.28]);
   });
 
   it('holds the 10-year 150 % DB half-year row', () => {
-    // IRS Publication 946, Table A-14 (read in a copy, REFERENCES.md)
+    // IRS Publication 946, Table A-14 (read in a copy, docs/references.md)
     expect(MACRS_10_YEAR_150DB.percentages).toEqual([7.5, 13.88, 11.79, 10.02, 8.74, 8.74, 8.74, 8.74, 8.74, 8.74, 4.37]);
   });
 
   it('holds the 20-year 150 % DB half-year row', () => {
-    // IRS Publication 946, Table A-1 (read in a copy, REFERENCES.md): years 1–10 and the last year;
+    // IRS Publication 946, Table A-1 (read in a copy, docs/references.md): years 1–10 and the last year;
     // years 11–20 are elided there and alternate 4.462 / 4.461 here (from memory), pinned by the 100 % total
     const p = MACRS_20_YEAR_150DB.percentages;
     expect(p.slice(0, 10)).toEqual([3.75, 7.219, 6.677, 6.177, 5.713, 5.285, 4.888, 4.522, 4.462, 4.461]);

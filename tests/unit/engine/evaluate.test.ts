@@ -31,7 +31,7 @@ describe('metric conventions', () => {
     const borrowing = metricsOf([100, -39, -59, -55, -20], 0.1, 0.1);
     expect(borrowing.irr).toBeCloseTo(0.28095, 5);
     expect(borrowing.irrKind).toBe('borrowing');
-    // All positive flows: no rate makes NPV 0 (MODEL.md: null with a reason, never a wrong number).
+    // All positive flows: no rate makes NPV 0 (docs/model.md: null with a reason, never a wrong number).
     const none = metricsOf([100, 39, 59], 0.1, 0.1);
     expect(none.irr).toBeNull();
     expect(none.irrReason).toBe('no-sign-change');
@@ -77,7 +77,7 @@ describe('evaluateScenario on the hand-calculated case', () => {
     const npv = -100_000 + 4562.5 * v + 9125 * (v ** 2 + v ** 3 + v ** 4) + 84_125 * v ** 5;
     expect(candidate.incremental?.npv).toBeCloseTo(npv, 6);
     expect(npv).toBeCloseTo(-9822.06, 2);
-    // Payback: cumulative −68 062.50 after year 4; 4 + 68 062.50 / 84 125 = 4.80906 (MODEL.md interpolation).
+    // Payback: cumulative −68 062.50 after year 4; 4 + 68 062.50 / 84 125 = 4.80906 (docs/model.md interpolation).
     expect(candidate.incremental?.paybackYears).toBeCloseTo(4 + 68_062.5 / 84_125, 12);
     // Discounted payback: never (NPV < 0 at H).
     expect(candidate.incremental?.discountedPaybackYears).toBeNull();
@@ -94,7 +94,7 @@ describe('evaluateScenario on the hand-calculated case', () => {
 
   it('finds the break-even lying-time response', () => {
     // NPV(g) = −100 000 + 75 000v⁵ + g × 1 h × 36 500 × 0.25 × (0.5v + v² + v³ + v⁴ + v⁵) = 0 → g = 1.287754 kg/h,
-    // inside the 0.9–1.6 kg/h range reported from Miner Institute research (REFERENCES.md, read, secondary).
+    // inside the 0.9–1.6 kg/h range reported from Miner Institute research (docs/references.md, read, secondary).
     const expected = (100_000 - 75_000 * v ** 5) / (9125 * (0.5 * v + v ** 2 + v ** 3 + v ** 4 + v ** 5));
     expect(candidate.incremental?.breakEvenLyingResponse).toBeCloseTo(expected, 7);
     expect(expected).toBeCloseTo(1.287754, 6);
@@ -137,7 +137,7 @@ describe('evaluateScenario on the hand-calculated case', () => {
 
 describe('evaluateScenario: every named line of a year', () => {
   // Year 2 of the candidate with wage growth 3 %, bedding, fertiliser and general growth 2 %
-  // (growth factors 1.03² = 1.0609 and 1.02² = 1.0404; MODEL.md: today's money grown to year t).
+  // (growth factors 1.03² = 1.0609 and 1.02² = 1.0404; docs/model.md: today's money grown to year t).
   const results = evaluateScenario(
     handScenario((s) => {
       s.herd.growth = { milkPrice: 0, feed: 0, wages: 0.03, bedding: 0.02, fertiliser: 0.02, general: 0.02 };
@@ -328,7 +328,7 @@ describe('fast path', () => {
 
 describe('payback on an incremental series without an outlay', () => {
   it('is null with no-net-investment, not 0', () => {
-    // MODEL.md payback: the first year cumulative CF ≥ 0. A change that saves 50 at year 0 and costs 10 a
+    // docs/model.md payback: the first year cumulative CF ≥ 0. A change that saves 50 at year 0 and costs 10 a
     // year after has nothing to pay back; shared/engine/README.md states the rule.
     const saving = metricsOf([50, -10, -10, -10], 0.06, 0.06, 'incremental');
     expect(saving.paybackYears).toBeNull();
@@ -374,7 +374,7 @@ describe('break-evens from the unrounded search', () => {
   const centsNoise = 0.005 * 25 * 2 * (H + 1);
 
   it('gives an incremental NPV of about 0 on the ledger path at the break-even milk price and response', () => {
-    // MODEL.md: the break-even milk price is the price at which incremental NPV = 0.
+    // docs/model.md: the break-even milk price is the price at which incremental NPV = 0.
     let checked = 0;
     for (const result of results.options) {
       const price = result.incremental?.breakEvenMilkPrice;

@@ -43,12 +43,12 @@ describe('npv', () => {
   });
 
   it('discounts the first value one period in the spreadsheet convention', () => {
-    // REFERENCES.md: derived from Gitman p. 346, 3 065.22267 / 1.08 = 2 838.16914
+    // docs/references.md: derived from Gitman p. 346, 3 065.22267 / 1.08 = 2 838.16914
     expect(spreadsheetNpv(0.08, GITMAN_NPV_FLOWS)).toBeCloseTo(2838.16914, 5);
   });
 
   it('agrees with the financial package npv (values[0] at t = 0) on generated series', () => {
-    // second reference: `financial` 0.2.4 npv, numpy convention (STACK.md)
+    // second reference: `financial` 0.2.4 npv, numpy convention (docs/references.md)
     fc.assert(
       fc.property(fc.double({ min: -0.5, max: 1, noNaN: true }), flowsArb, (rate, flows) => {
         const ours = npv(rate, flows);
@@ -269,7 +269,7 @@ describe('capital recovery and level payments', () => {
   });
 
   it('spreads a present cost into an equivalent annual cost', () => {
-    // standard annuity example (REFERENCES.md): 5 000 at 9 % over 5 years → 1 285.46 a year
+    // standard annuity example (docs/references.md): 5 000 at 9 % over 5 years → 1 285.46 a year
     expect(toCents(equivalentAnnualCost(5000, 0.09, 5))).toBe(1285.46);
   });
 

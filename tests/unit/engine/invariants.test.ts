@@ -10,7 +10,7 @@ function numbersIn(value: unknown, path: string, found: { path: string; value: n
   else if (value && typeof value === 'object') for (const [key, item] of Object.entries(value)) numbersIn(item, `${path}.${key}`, found);
 }
 
-// Properties of the model itself (MODEL.md "Validation": never NaN/Infinity; identity; monotonicity).
+// Properties of the model itself (docs/model.md "Validation": never NaN/Infinity; identity; monotonicity).
 // Property runs evaluate whole scenarios; allow for a busy machine.
 const SLOW = 120_000;
 

@@ -23,7 +23,7 @@ function allAmounts(schedule: LoanSchedule): number[] {
 
 describe('loanSchedule — published examples', () => {
   it('pays 1 285.46 a year with 450.00 interest in year 1 on 5 000 at 9 % over 5 years', () => {
-    // standard annuity formula / textbook amortisation tables (REFERENCES.md; memory for the book, figures recompute)
+    // standard annuity formula / textbook amortisation tables (docs/references.md; memory for the book, figures recompute)
     const schedule = loanSchedule({ principal: 5000, annualRate: 0.09, years: 5, paymentsPerYear: 1 });
     expect(schedule.payments[0]).toMatchObject({ payment: 1285.46, interest: 450, principal: 835.46, balance: 4164.54 });
   });
@@ -110,7 +110,7 @@ describe('loanSchedule — invariants', () => {
   });
 
   it('repays the principal exactly in cents, ends at 0.00 and keeps every amount in cents', () => {
-    // definition of an amortising loan; cents rule from MODEL.md (decimal.js, half-up, last payment absorbs)
+    // definition of an amortising loan; cents rule from docs/model.md (decimal.js, half-up, last payment absorbs)
     fc.assert(
       fc.property(loanArb, (loan) => {
         const periods = loan.years * loan.paymentsPerYear;

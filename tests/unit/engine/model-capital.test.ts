@@ -27,7 +27,7 @@ const LINES: CapitalLine[] = [
   { kind: 'contingency', id: 'contingency', description: 'Contingency', rate: 0.1, lifeYears: 30 },
 ];
 
-describe('capital lines (MODEL.md "Capital lines": quantity × unit cost, contingency %)', () => {
+describe('capital lines (docs/model.md "Capital lines": quantity × unit cost, contingency %)', () => {
   it('sizes null quantities from the helpers', () => {
     // per-stall → 120 stalls; per-m3 manure storage → 2500 m³; per-item water → 4 troughs; lump sum → 1.
     const [shell, mattresses, storage, troughs, fees] = LINES;
@@ -53,7 +53,7 @@ describe('capital lines (MODEL.md "Capital lines": quantity × unit cost, contin
   });
 });
 
-describe('replacements at end of life at grown cost (MODEL.md "Replacements")', () => {
+describe('replacements at end of life at grown cost (docs/model.md "Replacements")', () => {
   it('buys a replaceable line again at L, 2L… strictly before H', () => {
     // Mattresses 26 400, life 10, H 20, inflation 2 %: bought at year 0 and year 10 (year 20 = H is not inside).
     // Year-10 cost = 26 400 × 1.02^10 = 26 400 × 1.2189944 = 32 181.45.
@@ -72,7 +72,7 @@ describe('replacements at end of life at grown cost (MODEL.md "Replacements")', 
   });
 });
 
-describe('salvage by straight-line remaining life (MODEL.md "Salvage in year H")', () => {
+describe('salvage by straight-line remaining life (docs/model.md "Salvage in year H")', () => {
   it('values the latest purchase at its remaining life', () => {
     // Shell 100 000, life 30, H 20: 100 000 × 10/30 = 33 333.33.
     // Troughs 3600, life 15, replaced at 15 for 3600 × 1.02^15 = 4845.07, age 5 at H: 4845.07 × 10/15 = 3230.05.
@@ -96,7 +96,7 @@ describe('salvage by straight-line remaining life (MODEL.md "Salvage in year H")
   });
 });
 
-describe('maintenance (MODEL.md: % of capital per year)', () => {
+describe('maintenance (docs/model.md: % of capital per year)', () => {
   it('charges the rate on year-0 capital', () => {
     // 1.5 % × 363 330 = 5449.95.
     expect(maintenanceCostPerYear(0.015, 363_330)).toBeCloseTo(5449.95, 9);

@@ -10,12 +10,12 @@ import {
   troughHoursPerYear,
 } from '../../../shared/engine/labour';
 
-describe('labour hours (MODEL.md "Labour hours per year")', () => {
+describe('labour hours (docs/model.md "Labour hours per year")', () => {
   it('scraping: passes per day × minutes per pass ÷ 60 × housed days', () => {
     // 2 passes a day (common practice, no source: scraping two to three times a day) × 15 min ÷ 60
     // = 0.5 h/day × 365 = 182.5 h/yr.
     expect(scrapingHoursPerYear(2, 15, 365)).toBeCloseTo(182.5, 12);
-    // An automatic scraper: 0 passes → 0 h (MODEL.md: ~0 labour).
+    // An automatic scraper: 0 passes → 0 h (docs/model.md: ~0 labour).
     expect(scrapingHoursPerYear(0, 15, 365)).toBe(0);
   });
 
@@ -25,7 +25,7 @@ describe('labour hours (MODEL.md "Labour hours per year")', () => {
   });
 
   it('bedding top-up: tonnes per year ÷ tonnes handled per hour', () => {
-    // Sand 23 kg/stall/day (REFERENCES.md university guidance, ≥ 50 lb) × 120 stalls × 365 = 1007.4 t ÷ 4 t/h = 251.85 h.
+    // Sand 23 kg/stall/day (docs/references.md university guidance, ≥ 50 lb) × 120 stalls × 365 = 1007.4 t ÷ 4 t/h = 251.85 h.
     const tonnes = beddingTonnesPerYear(23, 120, 365);
     expect(tonnes).toBeCloseTo(1007.4, 9);
     expect(beddingTopUpHoursPerYear(tonnes, 4)).toBeCloseTo(251.85, 9);
@@ -48,7 +48,7 @@ describe('labour hours (MODEL.md "Labour hours per year")', () => {
   });
 });
 
-describe('bedding (MODEL.md: kg per stall per day × stalls × housed days × price per tonne)', () => {
+describe('bedding (docs/model.md: kg per stall per day × stalls × housed days × price per tonne)', () => {
   it('prices the tonnes and sends a share to the manure store', () => {
     // 1007.4 t × 15.00/t = 15 111; 90 % of it at 1.6 t/m³ → 906.66 t ÷ 1.6 = 566.6625 m³.
     expect(beddingCostPerYear(1007.4, 15)).toBeCloseTo(15_111, 9);
@@ -56,12 +56,12 @@ describe('bedding (MODEL.md: kg per stall per day × stalls × housed days × pr
   });
 
   it('costs nothing for a bare mattress', () => {
-    // MODEL.md: none for bare mattresses.
+    // docs/model.md: none for bare mattresses.
     expect(beddingCostPerYear(beddingTonnesPerYear(0, 120, 365), 60)).toBe(0);
   });
 });
 
-describe('health and culling (MODEL.md: cases per 100 cows × N/100 × cost per case; extra culls × (replacement − cull value))', () => {
+describe('health and culling (docs/model.md: cases per 100 cows × N/100 × cost per case; extra culls × (replacement − cull value))', () => {
   it('costs each condition by its rate per 100 cows', () => {
     // Lameness 24 cases per 100 cows (Cook et al. 2004: 24.0 % prevalence in mattress herds, used as a yearly rate)
     // × 120/100 = 28.8 cases × 300 = 8640.

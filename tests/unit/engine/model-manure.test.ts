@@ -76,7 +76,7 @@ describe('manure collected and its fertiliser value', () => {
 
 describe('stored volume and handling cost', () => {
   it('adds manure, wash water, bedding and net rain', () => {
-    // Manure 2 829 480 kg ÷ 1000 kg/m³ (REFERENCES.md, from memory) = 2829.48 m³
+    // Manure 2 829 480 kg ÷ 1000 kg/m³ (docs/references.md, from memory) = 2829.48 m³
     // wash water 0.05 m³ × 120 cows × 365 days = 2190 m³ (common practice: wash water joins the store)
     // bedding 566.6625 m³; net rain 0.4 m × 1000 m² = 400 m³ → 5986.1425 m³.
     const m3 = storedVolumeM3PerYear({

@@ -6,7 +6,7 @@ import { evaluateScenario } from '../../../shared/engine/evaluate';
 import { taxableIncome, taxDepreciation, taxForYear } from '../../../shared/engine/tax';
 import { handScenario } from './hand-scenario';
 
-describe('taxable income (MODEL.md: operating margin − depreciation − loan interest)', () => {
+describe('taxable income (docs/model.md: operating margin − depreciation − loan interest)', () => {
   it('deducts depreciation and interest and adds a disposal gain', () => {
     // 50 000 − 10 000 − 4000 + 0 = 36 000; in H with salvage 8000 over book 6000: + 2000 = 38 000.
     expect(taxableIncome(50_000, 10_000, 4000, 0)).toBe(36_000);
@@ -21,7 +21,7 @@ describe('tax and losses', () => {
   });
 
   it('gives a saving on a loss when losses offset other farm income', () => {
-    // −20 000 × 25 % = −5000 (a refund against other income; MODEL.md default).
+    // −20 000 × 25 % = −5000 (a refund against other income; docs/model.md default).
     expect(taxForYear(-20_000, 0.25, true, 0)).toEqual({ tax: -5000, lossCarried: 0 });
   });
 
@@ -83,6 +83,11 @@ describe('debt-service coverage (FFSC, farmdoc daily (8):175, 2018: cash availab
   it('finds the lowest defined year', () => {
     expect(lowestByYear([{ year: 1, value: 1.4 }, { year: 2, value: null }, { year: 3, value: 1.1 }, { year: 4, value: 1.2 }])).toEqual({ year: 3, value: 1.1 });
     expect(lowestByYear([{ year: 1, value: null }])).toBeNull();
+    // Equal lows apart from floating-point noise (a level loan on a steady herd): the earliest year.
+    const noisy = [1.4742054585405515, 1.4742054585405513, 1.4742054585405513].map((value, i) => ({ year: i + 1, value }));
+    expect(lowestByYear(noisy)).toEqual({ year: 1, value: 1.4742054585405513 });
+    // A real difference, however small next to the display precision, still counts.
+    expect(lowestByYear([{ year: 1, value: 1.2 }, { year: 2, value: 1.2 - 1e-6 }])).toEqual({ year: 2, value: 1.2 - 1e-6 });
   });
 });
 

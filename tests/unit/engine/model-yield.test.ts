@@ -6,9 +6,9 @@ import { extraCullsPer100Cows } from '../../../shared/engine/health';
 import { cappedLyingHours, lactatingShare, milkSoldKgPerYear, rampFraction, stockedLyingHours, yieldPerCowDay } from '../../../shared/engine/yield';
 import { handScenario } from './hand-scenario';
 
-describe('yield per cow-day (MODEL.md: Y_o = Y + g·(L_o − L_current) + a_o)', () => {
+describe('yield per cow-day (docs/model.md: Y_o = Y + g·(L_o − L_current) + a_o)', () => {
   it('adds the lying-time response and the system adjustment', () => {
-    // Hand calculation: Y 28 kg, g 1.0 kg/h (REFERENCES.md default, common practice),
+    // Hand calculation: Y 28 kg, g 1.0 kg/h (docs/references.md default, common practice),
     // L_o 13.8 h vs L_current 12.3 h (Tucker & Weary 2004: topdressed vs bare mattress) → +1.5 h,
     // a_o +0.5 kg → 28 + 1.0 × 1.5 + 0.5 = 30.0 kg/cow/day.
     const y = yieldPerCowDay({
@@ -24,9 +24,9 @@ describe('yield per cow-day (MODEL.md: Y_o = Y + g·(L_o − L_current) + a_o)',
   });
 
   it('phases the lying-time response in at the year-1 fraction, not the system adjustment', () => {
-    // MODEL.md: response may phase in over the first year (default 50 %).
+    // docs/model.md: response may phase in over the first year (default 50 %).
     // 28 + 1.6 × 2 h × 0.5 + 0.5 = 30.1 in year 1; 28 + 3.2 + 0.5 = 31.7 from year 2.
-    // g = 1.6 kg/h is the top of the Miner Institute range (0.9–1.6 kg, REFERENCES.md, read, secondary).
+    // g = 1.6 kg/h is the top of the Miner Institute range (0.9–1.6 kg, docs/references.md, read, secondary).
     const base = { baselineKgPerCowDay: 28, lyingResponseKgPerHour: 1.6, lyingHours: 14, currentLyingHours: 12, systemAdjustmentKgPerCowDay: 0.5, lactatingShare: 1 };
     expect(yieldPerCowDay({ ...base, rampFraction: rampFraction(1, 0.5) })).toBeCloseTo(30.1, 12);
     expect(yieldPerCowDay({ ...base, rampFraction: rampFraction(2, 0.5) })).toBeCloseTo(31.7, 12);
@@ -39,12 +39,12 @@ describe('yield per cow-day (MODEL.md: Y_o = Y + g·(L_o − L_current) + a_o)',
   });
 
   it('sells N · Y_o · 365 kg a year', () => {
-    // MODEL.md: milk sold = N · Y_o · 365 → 120 × 30 × 365 = 1 314 000 kg.
+    // docs/model.md: milk sold = N · Y_o · 365 → 120 × 30 × 365 = 1 314 000 kg.
     expect(milkSoldKgPerYear(120, 30)).toBe(1_314_000);
   });
 });
 
-describe('feed (MODEL.md: N · 365 · feed per cow-day, housed and grazing differ, + marginal feed × extra milk)', () => {
+describe('feed (docs/model.md: N · 365 · feed per cow-day, housed and grazing differ, + marginal feed × extra milk)', () => {
   it('splits the year into housed and grazing days', () => {
     // 150 housed days → 215 grazing days; 120 cows × (150 × 5.20 + 215 × 2.60) = 120 × (780 + 559) = 160 680.
     expect(grazingDaysPerYear(150)).toBe(215);
@@ -65,7 +65,7 @@ describe('feed (MODEL.md: N · 365 · feed per cow-day, housed and grazing diffe
   });
 });
 
-describe('growth of today’s prices (MODEL.md: inputs in today’s money, yearly growth per line)', () => {
+describe('growth of today’s prices (docs/model.md: inputs in today’s money, yearly growth per line)', () => {
   it('grows a price by (1 + g)^t so year 1 carries one year of growth', () => {
     // 0.42 per kg at 1 %/yr: year 1 = 0.4242, year 2 = 0.42 × 1.0201 = 0.428442.
     expect(0.42 * growthFactor(0.01, 1)).toBeCloseTo(0.4242, 12);

@@ -18,22 +18,22 @@ function messages(result: ReturnType<typeof withChange>): string[] {
 describe('scenario schema', () => {
   it('accepts the demo scenario and fills defaults', () => {
     const parsed = scenarioSchema.parse(demoScenarioInput());
-    // MODEL.md: horizon defaults to 20 years; REFERENCES.md: g default 1.0 kg/h (common practice), ramp 50 % in year 1.
+    // docs/model.md: horizon defaults to 20 years; docs/references.md: g default 1.0 kg/h (common practice), ramp 50 % in year 1.
     expect(parsed.horizonYears).toBe(20);
     expect(parsed.herd.lyingResponseKgPerHour).toBe(1);
     expect(parsed.herd.lyingResponseYear1Fraction).toBe(0.5);
-    // REFERENCES.md: default lender threshold 1.25 (common practice, no source).
+    // docs/references.md: default lender threshold 1.25 (common practice, no source).
     expect(parsed.finance.coverageThreshold).toBe(1.25);
-    // REFERENCES.md: ASABE D384.2 lactating cow 68 kg manure, 0.45 kg N per day (from memory).
+    // docs/references.md: ASABE D384.2 lactating cow 68 kg manure, 0.45 kg N per day (from memory).
     expect(parsed.herd.manureExcretion.massKgPerCowDay).toBe(68);
     expect(parsed.herd.manureExcretion.nitrogenKgPerCowDay).toBe(0.45);
-    // REFERENCES.md: Cornell CSS 412, 35 % of organic N available in the year applied (< 18 % DM).
+    // docs/references.md: Cornell CSS 412, 35 % of organic N available in the year applied (< 18 % DM).
     expect(parsed.herd.nutrientAvailability.nitrogen).toBe(0.35);
     expect(parsed.risk.monteCarlo.draws).toBe(5000);
     expect(parsed.risk.sensitivity.milkPrice).toEqual({ low: -0.2, high: 0.2 });
   });
 
-  // MODEL.md "Validation": each of these is refused with a message naming the field.
+  // docs/model.md "Validation": each of these is refused with a message naming the field.
   it('refuses a negative herd, naming the herd size', () => {
     const result = withChange((s) => (s.herd.cows = -5));
     expect(result.success).toBe(false);
@@ -104,7 +104,7 @@ describe('scenario schema', () => {
 
   it('holds default finance terms that validate, each with its source', () => {
     expect(financeSchema.parse(DEFAULT_FINANCE)).toEqual(DEFAULT_FINANCE);
-    // REFERENCES.md: the lender's 1.25 coverage threshold is common practice, no source.
+    // docs/references.md: the lender's 1.25 coverage threshold is common practice, no source.
     expect(DEFAULT_FINANCE.coverageThreshold).toBe(1.25);
     expect(DEFAULT_FINANCE_SOURCES.coverageThreshold.kind).toBe('common-practice');
     expect(financeSchema.parse({ interestRate: 0.05, termYears: 10, discountRate: 0.05 }).coverageThreshold).toBe(DEFAULT_FINANCE.coverageThreshold);

@@ -40,7 +40,7 @@ describe('stall dimension guidance table', () => {
     expect(small.brisketLocatorFromCurbM.max / IN).toBeCloseTo(70, 9);
     expect(small.brisketLocatorHeightM.min / IN).toBeCloseTo(4, 9);
     expect(small.brisketLocatorHeightM.max / IN).toBeCloseTo(6, 9);
-    // 1300–1500 lb = 590–680 kg (REFERENCES.md).
+    // 1300–1500 lb = 590–680 kg (docs/references.md).
     expect(small.bodyWeightKg).toEqual({ min: 590, max: 680 });
   });
 
@@ -119,7 +119,7 @@ describe('water troughs', () => {
   });
 });
 
-describe('manure storage volume (MODEL.md: (manure + wash water + bedding + net rain) × storage days + freeboard)', () => {
+describe('manure storage volume (docs/model.md: (manure + wash water + bedding + net rain) × storage days + freeboard)', () => {
   it('sizes a store for 150 days', () => {
     // manure 120 cows × 68 kg × 0.95 ÷ 1000 kg/m³ = 7.752 m³/day (ASABE D384.2 from memory; density from memory)
     // wash water 0.05 × 120 = 6 m³/day; sand 23 kg × 120 ÷ 1000 × 0.9 ÷ 1.6 t/m³ = 1.5525 m³/day

@@ -8,8 +8,8 @@ import { parsedHerd } from './fixtures';
 const herd = parsedHerd();
 
 describe('starting points', () => {
-  it('lists the five starting points of the product brief', () => {
-    // PRODUCT.md capability 3: grazing with seasonal housing, steel dividers, flexible dividers, mattress, sand.
+  it('lists the five starting points of docs/product.md', () => {
+    // docs/product.md capability 3: grazing with seasonal housing, steel dividers, flexible dividers, mattress, sand.
     expect([...STARTING_POINT_ORDER].sort()).toEqual([...startingPoints].sort());
     expect(STARTING_POINT_ORDER).toHaveLength(5);
   });
@@ -60,7 +60,7 @@ describe('starting points', () => {
     expect(createOption('flexible-freestall', herd, { id: 'f' }).health.injuriesPer100Cows).toBeLessThan(
       createOption('steel-freestall', herd, { id: 'g' }).health.injuriesPer100Cows,
     );
-    // MODEL.md: no bedding for bare mattresses; an automatic scraper has ~0 labour.
+    // docs/model.md: no bedding for bare mattresses; an automatic scraper has ~0 labour.
     expect(createOption('steel-freestall', herd, { id: 'h' }).bedding.kgPerStallDay).toBe(0);
     expect(createOption('mattress-freestall', herd, { id: 'i' }).labour.scrapingPassesPerDay).toBe(0);
   });

@@ -74,7 +74,7 @@ describe('normal distribution helpers', () => {
   });
 
   it('stays finite at u = 0 and u → 1', () => {
-    // The engine never returns Infinity (MODEL.md, Validation).
+    // The engine never returns Infinity (docs/model.md, Validation).
     expect(Number.isFinite(normalQuantile(0))).toBe(true);
     expect(Number.isFinite(normalQuantile(1))).toBe(true);
     expect(Number.isFinite(truncatedNormalQuantile({ mean: 1, sd: 0.1 }, 0))).toBe(true);

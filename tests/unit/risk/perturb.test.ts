@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { riskInputKeys, type Scenario } from '../../../shared/schema';
 import { applyMultipliers, perturb } from '../../../shared/engine/risk/perturb';
 import { riskScenario } from '../engine/fixtures';
+import { evaluateNpvOnly } from '../../../shared/engine/evaluate';
 
 function deepFreeze<T>(value: T): T {
   if (value && typeof value === 'object') {
@@ -14,7 +15,7 @@ function deepFreeze<T>(value: T): T {
 const capitalItems = (scenario: Scenario) =>
   scenario.options.flatMap((option) => option.capitalLines.filter((line) => line.kind === 'item'));
 
-// MODEL.md, Risk: every sensitivity or Monte Carlo value is a multiplier on the base value.
+// docs/model.md, Risk: every sensitivity or Monte Carlo value is a multiplier on the base value.
 describe('perturb', () => {
   it('never mutates the scenario it is given', () => {
     const scenario = deepFreeze(riskScenario());
@@ -75,5 +76,34 @@ describe('perturb', () => {
     const both = applyMultipliers(base, { milkPrice: 1.1, wage: 0.9 });
     expect(both).toEqual(perturb(perturb(base, 'milkPrice', 1.1), 'wage', 0.9));
     expect(applyMultipliers(base, {})).toEqual(base);
+  });
+});
+
+describe('risk inputs that move the barn case (docs: shared/engine/README.md, "Risk")', () => {
+  it('scales feed costs, the system yield adjustment, health costs per case and slurry handling in every option', () => {
+    const base = riskScenario();
+    const option = base.options[1];
+    if (!option) throw new Error('no second option');
+    const at = (key: Parameters<typeof perturb>[1], m: number) => perturb(base, key, m).options[1];
+    // Multipliers on the base value: housed feed 5.00 × 1.2 = 6.00 etc. (hand arithmetic on whatever the fixture holds).
+    expect(at('housedFeedCost', 1.2)?.feedCostPerCowDay.housed).toBeCloseTo(option.feedCostPerCowDay.housed * 1.2, 12);
+    expect(perturb(base, 'housedFeedCost', 1.2).herd.feedCostPerCowDay.housed).toBeCloseTo(base.herd.feedCostPerCowDay.housed * 1.2, 12);
+    expect(at('grazingFeedCost', 0.8)?.feedCostPerCowDay.grazing).toBeCloseTo(option.feedCostPerCowDay.grazing * 0.8, 12);
+    expect(perturb(base, 'marginalFeedCost', 1.5).herd.marginalFeedCostPerKgMilk).toBeCloseTo(base.herd.marginalFeedCostPerKgMilk * 1.5, 12);
+    expect(at('healthCostPerCase', 2)?.health.lamenessCostPerCase).toBeCloseTo(option.health.lamenessCostPerCase * 2, 12);
+    expect(at('healthCostPerCase', 2)?.health.mastitisCostPerCase).toBeCloseTo(option.health.mastitisCostPerCase * 2, 12);
+    expect(at('manureHandlingCost', 1.3)?.manure.handlingCostPerM3).toBeCloseTo(option.manure.handlingCostPerM3 * 1.3, 12);
+    const gained = { ...base, options: base.options.map((o) => (o.current ? o : { ...o, systemYieldAdjustment: 4 })) };
+    // 4 kg × 0.5 = 2 kg: half the barn's feeding gain holds.
+    expect(perturb(gained, 'systemYield', 0.5).options[1]?.systemYieldAdjustment).toBe(2);
+  });
+
+  it('moves the change’s NPV the way a practitioner expects', () => {
+    // Dearer housed feed hurts a year-round barn against grazing; a smaller feeding gain too.
+    const s = riskScenario();
+    const gained = { ...s, options: s.options.map((o) => (o.current ? o : { ...o, systemYieldAdjustment: 4 })) };
+    const npv = (scenario: Scenario) => evaluateNpvOnly(scenario)[1]?.incrementalNpv ?? NaN;
+    expect(npv(perturb(gained, 'housedFeedCost', 1.2))).toBeLessThan(npv(gained));
+    expect(npv(perturb(gained, 'systemYield', 0.5))).toBeLessThan(npv(gained));
   });
 });

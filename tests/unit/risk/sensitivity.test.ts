@@ -12,7 +12,7 @@ describe('sensitivity', () => {
   const scenario = riskScenario();
   const result = sensitivity(scenario);
 
-  it('moves each key input by the default ±20 % (MODEL.md, Risk)', () => {
+  it('moves each key input by the default ±20 % (docs/model.md, Risk)', () => {
     for (const option of result.options) {
       expect(option.npv.map((s) => s.key).sort()).toEqual([...riskInputKeys].sort());
       for (const swing of option.npv) {
@@ -22,7 +22,7 @@ describe('sensitivity', () => {
     }
   });
 
-  it('sorts every list by swing, largest first (MODEL.md, Risk)', () => {
+  it('sorts every list by swing, largest first (docs/model.md, Risk)', () => {
     for (const option of result.options) {
       expect(isSortedBySwing(option.npv)).toBe(true);
       if (option.incrementalNpv) expect(isSortedBySwing(option.incrementalNpv)).toBe(true);
@@ -58,7 +58,7 @@ describe('sensitivity', () => {
 
   it('never lowers any option\'s NPV when the milk price multiplier rises', () => {
     // Milk income is price × kg sold with every other line unchanged, so NPV is non-decreasing
-    // in the milk price (definition of NPV, MODEL.md Conventions).
+    // in the milk price (definition of NPV, docs/model.md Conventions).
     fc.assert(
       fc.property(fc.double({ min: 0.3, max: 2, noNaN: true }), fc.double({ min: 0.3, max: 2, noNaN: true }), (a, b) => {
         const lower = evaluateNpvOnly(perturb(scenario, 'milkPrice', Math.min(a, b)));

@@ -1,0 +1,240 @@
+/**
+ * The API's answers, typed once for the server (which builds them) and the client (which reads
+ * them). Dates are ISO 8601 strings, as they travel in JSON; `expiresOn` is a YYYY-MM-DD date.
+ * `tests/unit/responses.test.ts` checks the server's services return exactly these shapes.
+ */
+import type { ScenarioResults } from './engine/results';
+import type { MonteCarloResult } from './engine/risk/monte-carlo';
+import type { Herd, Scenario } from './schema';
+import type { FarmRole } from './schema/accounts';
+import type { ReviewStatusValue } from './schema/lender';
+import type { FieldChange } from './scenario-diff';
+import type { UnitSystem } from './units';
+
+export const scenarioStatuses = ['draft', 'decided', 'archived'] as const;
+export type ScenarioStatus = (typeof scenarioStatuses)[number];
+
+/** Who saved what and when, beside a scenario. */
+export interface ScenarioMeta {
+  id: number;
+  farmId: number;
+  name: string;
+  status: ScenarioStatus;
+  version: number;
+  createdAt: string;
+  createdBy: string | null;
+  updatedAt: string;
+  updatedBy: string | null;
+}
+
+/** GET S, and every save: the document, its version and its results. */
+export interface ScenarioView {
+  id: number;
+  scenario: Scenario;
+  version: number;
+  results: ScenarioResults;
+  meta: ScenarioMeta;
+}
+
+/** One row of GET F/scenarios. */
+export interface ScenarioListItem {
+  id: number;
+  name: string;
+  status: ScenarioStatus;
+  version: number;
+  optionCount: number;
+  /** Best option by NPV at the last save; null when nothing could be evaluated. */
+  best: { optionId: string; name: string; npv: number } | null;
+  updatedAt: string;
+  updatedBy: string | null;
+}
+
+/** The body of a 409 `version_conflict`: a newer version saved since ours was loaded. */
+export interface VersionConflict {
+  version: number;
+  updatedBy: string | null;
+  updatedAt: string;
+}
+
+export interface VersionListItem {
+  version: number;
+  note: string;
+  author: string | null;
+  createdAt: string;
+}
+
+/** GET S/versions/:version: a past version, read-only, with its results. */
+export interface VersionView {
+  version: number;
+  scenario: Scenario;
+  note: string;
+  author: string | null;
+  createdAt: string;
+  results: ScenarioResults;
+}
+
+/** GET S/versions/compare. */
+export interface VersionComparison {
+  from: number;
+  to: number;
+  units: UnitSystem;
+  changes: FieldChange[];
+}
+
+/** GET/PUT F/baseline: SI units; `herd` null until the baseline is first saved. */
+export interface FarmBaseline {
+  herd: Herd | null;
+  currency: string;
+  locale: string;
+  units: UnitSystem;
+}
+
+/** GET /invitations/:token. */
+export interface InvitationPreview {
+  farmName: string;
+  role: FarmRole;
+  email: string;
+  inviterName: string | null;
+  expiresAt: string;
+  /** True when the address already has an account (the invitee signs in instead of signing up). */
+  accountExists: boolean;
+}
+
+export const shareStates = ['pending', 'live', 'revoked', 'expired'] as const;
+export type ShareState = (typeof shareStates)[number];
+
+/** A lender share as the API answers it (never the token or its hash). */
+export interface ShareView {
+  id: number;
+  scenarioId: number;
+  scenarioName: string;
+  version: number;
+  lenderEmail: string;
+  lenderName: string | null;
+  state: ShareState;
+  /** YYYY-MM-DD: from this date (UTC) the share no longer opens. */
+  expiresOn: string;
+  acceptedAt: string | null;
+  revokedAt: string | null;
+  reviewStatus: ReviewStatusValue;
+  reviewStatusAt: string | null;
+  reviewStatusBy: string | null;
+  sharedBy: string | null;
+  createdAt: string;
+}
+
+export interface ReviewNote {
+  id: number;
+  author: string | null;
+  authorRole: FarmRole;
+  optionId: string | null;
+  /** The option's name in the shared version, when the note is about one. */
+  optionName: string | null;
+  lineRef: string | null;
+  body: string;
+  createdAt: string;
+}
+
+export interface ReviewThread extends ReviewNote {
+  replies: ReviewNote[];
+}
+
+export interface ShareReview {
+  share: ShareView;
+  notes: ReviewThread[];
+}
+
+export interface Preference {
+  userId: number;
+  name: string;
+  /** The person's role on the farm; null if they have since left it. */
+  role: FarmRole | null;
+  optionId: string;
+  reason: string;
+  updatedAt: string;
+}
+
+export interface Decision {
+  id: number;
+  optionId: string;
+  optionName: string;
+  decidedBy: { id: number; name: string } | null;
+  decidedAt: string;
+  note: string;
+  scenarioVersion: number;
+}
+
+export interface PreferencesView {
+  preferences: Preference[];
+  /** The decision in force (the latest), or null. */
+  decision: Decision | null;
+  /** Earlier decisions, newest first. */
+  earlierDecisions: Decision[];
+}
+
+/** The Monte Carlo result kept with a scenario. */
+export interface RiskResultView {
+  result: MonteCarloResult;
+  scenarioVersion: number;
+  inputsHash: string;
+  /** True when the saved scenario's inputs still hash to the result's hash. */
+  fresh: boolean;
+  savedBy: string | null;
+  savedAt: string;
+}
+
+export interface AuditEntry {
+  id: number;
+  actor: string;
+  action: string;
+  /** The action in words, for the log screen. */
+  description: string;
+  subject: string;
+  detail: Record<string, unknown>;
+  createdAt: string;
+}
+
+export interface AuditPage {
+  entries: AuditEntry[];
+  nextBefore: number | null;
+}
+
+/** One of the caller's farms, as GET /farms lists it. */
+export interface FarmSummary {
+  id: number;
+  name: string;
+  location: string;
+  role: FarmRole;
+  currency: string;
+  units: UnitSystem;
+}
+
+/** GET /farms/:farmId: the farm and the caller's role; `baseline` (the stored herd) is null for a lender. */
+export interface FarmDetail extends FarmSummary {
+  locale: string;
+  baseline: unknown;
+  createdAt: string;
+}
+
+/** The signed-in account, as GET /auth/me and every sign-in answer name it. */
+export interface SessionUser {
+  id: number;
+  email: string;
+  name: string;
+  isAdmin: boolean;
+}
+
+/** GET /auth/me: the account and its farm memberships. */
+export interface Session {
+  user: SessionUser;
+  memberships: { farmId: number; role: FarmRole }[];
+}
+
+/** An open invitation, as the owner's list shows it. */
+export interface PendingInvitation {
+  id: number;
+  email: string;
+  role: FarmRole;
+  expiresAt: string;
+  createdAt: string;
+}
