@@ -171,6 +171,7 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
       id: option.id,
       name: option.name,
       current: isCurrent,
+      incremental: null,
       ...metricsOf(projection.cashFlows, discountRate, interestRate),
       stalls: plan.stalls,
       capitalTotal: roundCentsFast(plan.capitalTotal),

@@ -153,7 +153,8 @@ export interface OptionResult extends Metrics {
   beddingTonnesPerYear: number[];
   manureFertiliserValuePerYear: number[];
   sizing: SizingResult;
-  incremental?: IncrementalResult;
+  /** The change against the current option; null for the current option itself. */
+  incremental: IncrementalResult | null;
 }
 
 /** Something about the inputs a reader should check before trusting the figures. */

@@ -38,8 +38,13 @@ describe('npm run evaluate', { timeout: 60_000, concurrent: true }, () => {
   it('prints exactly the evaluation as JSON with --json', async () => {
     const { code, stdout } = await runCli(valid, '--json');
     expect(code).toBe(0);
-    const parsed = JSON.parse(stdout) as { options: { id: string }[] };
+    const parsed = JSON.parse(stdout) as { options: { id: string; current: boolean; incremental: unknown }[] };
     expect(parsed.options.map((o) => o.id)).toEqual(['now', 'steel', 'flex', 'mattress', 'sand']);
+    // Every option keeps the key `incremental`: null for the current option, the change for the others.
+    for (const option of parsed.options) {
+      expect(Object.keys(option)).toContain('incremental');
+      expect(option.incremental === null).toBe(option.current);
+    }
     expect(parsed).toEqual(JSON.parse(JSON.stringify(evaluateScenario(riskScenario()))));
   });
 

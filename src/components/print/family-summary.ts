@@ -72,7 +72,9 @@ function drivers(scenario: Scenario, best: OptionResult | undefined, currentName
       sentence +=
         inc.breakEvenMilkPrice === null
           ? ` No milk price up to ten times today's makes it as good as ${currentName}.`
-          : ` It only matches ${currentName} when milk pays ${perKg(inc.breakEvenMilkPrice)} (today ${perKg(price)}).`;
+          : inc.npv >= 0
+            ? ` It stays ahead of ${currentName} while milk pays more than ${perKg(inc.breakEvenMilkPrice)} (today ${perKg(price)}).`
+            : ` It only catches up with ${currentName} if milk pays ${perKg(inc.breakEvenMilkPrice)} (today ${perKg(price)}).`;
       const atThreshold = best.breakEvenMilkPriceForCoverage.atThreshold;
       if (atThreshold !== null) sentence += ` The bank's coverage of ${f.number(scenario.finance.coverageThreshold, 2)} holds while milk pays at least ${perKg(atThreshold)}.`;
     }

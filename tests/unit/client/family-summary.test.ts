@@ -78,8 +78,10 @@ describe('the family summary', () => {
     const best = { ...barn, incremental: { npv: -120000, breakEvenMilkPrice: 0.487 } as OptionResult['incremental'], breakEvenMilkPriceForCoverage: { atOne: 0.41, atThreshold: 0.432 } };
     const sens = { options: [{ optionId: 'barn', incrementalNpv: [{ key: 'milkPrice', atLow: -900000, atHigh: 400000 }] }] } as unknown as Parameters<typeof familySummary>[2];
     const summary = familySummary(scenario, { ...results, options: [grazing, best] }, sens, en, (v) => `€${v.toFixed(3)} a kg`);
+    const ahead = familySummary(scenario, { ...results, options: [grazing, { ...best, incremental: { npv: 50000, breakEvenMilkPrice: 0.441 } as OptionResult['incremental'] }] }, sens, en, (v) => `€${v.toFixed(3)} a kg`);
+    expect(ahead.drivers[0]).toContain('It stays ahead of grazing while milk pays more than €0.441 a kg (today €0.450 a kg).');
     expect(summary.drivers).toEqual([
-      "Milk price: from its low to its high value the barn ends between −€900,000 and €400,000 against grazing. It only matches grazing when milk pays €0.487 a kg (today €0.450 a kg). The bank's coverage of 1.25 holds while milk pays at least €0.432 a kg.",
+      "Milk price: from its low to its high value the barn ends between −€900,000 and €400,000 against grazing. It only catches up with grazing if milk pays €0.487 a kg (today €0.450 a kg). The bank's coverage of 1.25 holds while milk pays at least €0.432 a kg.",
     ]);
   });
 
