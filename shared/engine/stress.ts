@@ -1,7 +1,7 @@
 import type { Option, Scenario } from '../schema';
 import { coverageSummary, type ExistingFarm } from './farm-coverage';
-import { cashAtMilk, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
-import { scaleCapitalCost, scaleMilkPrice } from './risk/perturb';
+import { cashAtMilk, milkingLyingHours, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
+import { scaleCapitalCost, scaleGrazingFeedCost, scaleHousedFeedCost, scaleMarginalFeedCost, scaleMilkPrice } from './risk/perturb';
 
 /** The lender's shocks, each applied to the inputs as entered. */
 export const STRESS_TESTS = [
@@ -29,17 +29,9 @@ export interface StressResult {
   yearsBelowThreshold: number;
 }
 
-/**
- * Feed cost × m: every option's feed per cow-day (housed and grazing), the herd baseline's and
- * the marginal feed cost of extra milk.
- */
-export function scaleFeedCost(scenario: Scenario, m: number): Scenario {
-  const scale = (feed: Option['feedCostPerCowDay']) => ({ housed: feed.housed * m, grazing: feed.grazing * m });
-  return {
-    ...scenario,
-    herd: { ...scenario.herd, feedCostPerCowDay: scale(scenario.herd.feedCostPerCowDay), marginalFeedCostPerKgMilk: scenario.herd.marginalFeedCostPerKgMilk * m },
-    options: scenario.options.map((option) => ({ ...option, feedCostPerCowDay: scale(option.feedCostPerCowDay) })),
-  };
+/** Feed cost × m: feed per cow-day (housed and grazing, herd and every option) and per extra kg of milk. */
+function scaleFeedCost(scenario: Scenario, m: number): Scenario {
+  return scaleMarginalFeedCost(scaleGrazingFeedCost(scaleHousedFeedCost(scenario, m), m), m);
 }
 
 /** The scenario with one stress test's shocks applied (the discount rate is left alone). */
@@ -89,7 +81,9 @@ function underShock(shocked: Scenario, test: StressTest, entry: StressOption, in
  * within the cents of rounding.
  */
 export function stressTables(anchored: Scenario, farm: ExistingFarm, entries: readonly StressOption[], currentIndex: number): StressResult[][] {
-  const currentLyingHours = entries[currentIndex]?.option.lyingHoursPerDay ?? 0;
+  // The same lying hours the full evaluation measures against: stocking and the cap applied.
+  const currentEntry = entries[currentIndex];
+  const currentLyingHours = currentEntry ? milkingLyingHours(anchored.herd, currentEntry.option) : 0;
   const threshold = anchored.finance.coverageThreshold;
   const tables = entries.map((): StressResult[] => []);
   for (const test of STRESS_TESTS) {
