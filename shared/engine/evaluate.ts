@@ -295,5 +295,5 @@ export function anchoredForShocks(scenario: Scenario): Scenario {
   if (scenario.herd.existingCashHerdMarginPerYear !== null) return scenario;
   const current = currentOptionOf(scenario);
   const { plan } = planOption(scenario, current, 'fast');
-  return withExistingCashAnchored(scenario, projectOption(scenario, current, plan, current.lyingHoursPerDay, false).cashForDebtService);
+  return withExistingCashAnchored(scenario, projectOption(scenario, current, plan, milkingLyingHours(scenario.herd, current), false).cashForDebtService);
 }

@@ -122,6 +122,21 @@ describe('the lender stress table', () => {
   });
 });
 
+describe('the scenario anchored for shocks', () => {
+  it('writes in the same herd margin the full evaluation measures, also with the current option overstocked', () => {
+    const demo = scenarioSchema.parse(JSON.parse(readFileSync(new URL('../../../scenarios/cairnbrook-five-systems.json', import.meta.url), 'utf8')));
+    const scenario = {
+      ...demo,
+      herd: { ...demo.herd, existingCashHerdMarginPerYear: null },
+      options: demo.options.map((o) => (o.current ? { ...o, stockingRate: 1.3 } : o)),
+    };
+    const anchored = anchoredForShocks(scenario).herd.existingCashHerdMarginPerYear;
+    expect(anchored).not.toBeNull();
+    // The full evaluation's figure is rounded to the cent.
+    expect(Math.abs((anchored ?? NaN) - evaluateScenario(scenario).existingFarm.herdMarginInExistingCash)).toBeLessThanOrEqual(0.005 + 1e-6);
+  });
+});
+
 describe('break-even milk price for coverage', () => {
   it('solves the hand case where the lowest whole-farm coverage is 1.0 and 1.25', () => {
     const [current, candidate] = evaluateScenario(handScenario()).options;
