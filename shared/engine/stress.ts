@@ -53,12 +53,24 @@ export interface StressOption {
 }
 
 /** Cash for debt service per year and NPV (currency) of one option under a shocked scenario. */
-function underShock(shocked: Scenario, test: StressTest, entry: StressOption, index: number, currentLyingHours: number): { cash: number[]; plan: OptionPlan; npv: number } {
+function underShock(
+  shocked: Scenario,
+  test: StressTest,
+  entry: StressOption,
+  index: number,
+  currentLyingHours: number,
+  plans: Map<string, OptionPlan>,
+): { cash: number[]; plan: OptionPlan; npv: number } {
   let { plan, model, yearZero } = entry;
   const option = shocked.options[index] ?? entry.option;
   // Interest and capital change the plan (loan, depreciation); capital also the maintenance inside the margin.
   const buysCapital = entry.plan.capitalTotal > 0;
-  if (buysCapital && (test.ratePoints !== 0 || test.capital !== 1)) plan = planOption(shocked, option, 'fast').plan;
+  if (buysCapital && (test.ratePoints !== 0 || test.capital !== 1)) {
+    // The plan does not depend on the milk price: shocks with the same rate and capital share it.
+    const key = `${index}|${test.ratePoints}|${test.capital}`;
+    plan = plans.get(key) ?? planOption(shocked, option, 'fast').plan;
+    plans.set(key, plan);
+  }
   if (buysCapital && test.capital !== 1) {
     const projection = projectOption(shocked, option, plan, currentLyingHours, false, true);
     model = projection.milk ?? model;
@@ -86,9 +98,10 @@ export function stressTables(anchored: Scenario, farm: ExistingFarm, entries: re
   const currentLyingHours = currentEntry ? milkingLyingHours(anchored.herd, currentEntry.option) : 0;
   const threshold = anchored.finance.coverageThreshold;
   const tables = entries.map((): StressResult[] => []);
+  const plans = new Map<string, OptionPlan>();
   for (const test of STRESS_TESTS) {
     const shocked = shockScenario(anchored, test);
-    const runs = entries.map((entry, index) => underShock(shocked, test, entry, index, currentLyingHours));
+    const runs = entries.map((entry, index) => underShock(shocked, test, entry, index, currentLyingHours, plans));
     const current = runs[currentIndex];
     if (!current) continue;
     runs.forEach((run, index) => {

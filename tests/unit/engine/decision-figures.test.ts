@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { scenarioSchema } from '../../../shared/schema';
-import { anchoredForShocks, evaluateScenario } from '../../../shared/engine/evaluate';
+import { anchoredForShocks, evaluateCore, evaluateScenario } from '../../../shared/engine/evaluate';
 import { shockScenario, STRESS_TESTS } from '../../../shared/engine/stress';
 import { handScenario } from './hand-scenario';
 
@@ -192,5 +192,27 @@ describe('Monte Carlo with the existing farm taking the same prices', () => {
     // The change's NPV distribution is reported beside it: the candidate loses money in every draw.
     expect(result.options[1]?.incrementalNpv?.probabilityNegative).toBe(1);
     expect(result.options[1]?.incrementalNpv?.p50).toBeLessThan(0);
+  });
+});
+
+describe('the core evaluation without the decision figures', () => {
+  // The split is the engine's own (docs/model.md, "Decision figures"): the core is the full
+  // evaluation less the stress table and the coverage break-evens, figure for figure.
+  it.each(['cairnbrook-five-systems.json', 'cairnbrook-mattress-or-sand.json'])('equals the full evaluation less stress and coverage break-evens on %s', (name) => {
+    const scenario = scenarioSchema.parse(JSON.parse(readFileSync(new URL(`../../../scenarios/${name}`, import.meta.url), 'utf8')));
+    const full = evaluateScenario(scenario);
+    const core = evaluateCore(scenario);
+    expect(core.options.map((o) => Object.keys(o).filter((key) => key === 'stress' || key === 'breakEvenMilkPriceForCoverage'))).toEqual(core.options.map(() => []));
+    const stripped = full.options.map((option) => {
+      const copy: Record<string, unknown> = { ...option };
+      delete copy.stress;
+      delete copy.breakEvenMilkPriceForCoverage;
+      return copy;
+    });
+    expect(core).toEqual({ ...full, options: stripped });
+    for (const option of full.options) {
+      expect(option.stress.map((s) => s.id)).toEqual(STRESS_TESTS.map((t) => t.id));
+      expect(option.breakEvenMilkPriceForCoverage).toBeDefined();
+    }
   });
 });
