@@ -5,7 +5,7 @@ import { breakEvenMilkPriceForCoverage } from './coverage-break-even';
 import { coverageInYear, coverageSummary, existingFarmOf, withExistingCashAnchored, type CoverageSides, type ExistingFarm } from './farm-coverage';
 import { operationsPayback } from './operations-payback';
 import { sourcesAndUses } from './sources-and-uses';
-import { stressTables } from './stress';
+import { stressTables, stressYears, type StressYears } from './stress';
 import { capitalRecoveryFactor, discount, mirr, paybackYears } from './finance';
 import { milkingLyingHours, npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
 import type { CoreOptionResult, CoreScenarioResults, CoverageYear, DecisionFigures, FastOptionResult, IncrementalResult, Metrics, ScenarioResults } from './results';
@@ -235,15 +235,20 @@ export function evaluateCore(scenario: Scenario): CoreScenarioResults {
   return evaluateParts(scenario).results;
 }
 
+/** The stress tables' inputs from an evaluation: the scenario anchored at its prices and each option's plan and milk model. */
+function stressInputs(scenario: Scenario, parts: Evaluated): Parameters<typeof stressTables> {
+  return [
+    withExistingCashAnchored(scenario, parts.baseCash),
+    parts.farm,
+    parts.entries.map(({ option, plan, search }) => ({ option, plan, model: search.model, yearZero: search.yearZero })),
+    parts.currentIndex,
+  ];
+}
+
 /** The stress table and the coverage break-evens of each option (index = option), from an evaluation's plans and milk models. */
 function decisionFiguresOf(scenario: Scenario, parts: Evaluated): DecisionFigures[] {
   const { farm, entries } = parts;
-  const stress = stressTables(
-    withExistingCashAnchored(scenario, parts.baseCash),
-    farm,
-    entries.map(({ option, plan, search }) => ({ option, plan, model: search.model, yearZero: search.yearZero })),
-    parts.currentIndex,
-  );
+  const stress = stressTables(...stressInputs(scenario, parts));
   const priceHi = milkPriceSearchMax(scenario);
   return entries.map(({ plan, search }, index) => ({
     stress: stress[index] ?? [],
@@ -266,6 +271,15 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
     ...parts.results,
     options: parts.results.options.map((option, index) => ({ ...option, ...(figures[index] as DecisionFigures) })),
   };
+}
+
+/**
+ * The stress table's shocks year by year for each option (index = option; STRESS_TESTS order):
+ * the change's flows and the whole-farm cash and debt service that the workbook's live stress
+ * formulas discount and divide. Their NPV and lowest ratio are `evaluateScenario`'s stress rows.
+ */
+export function evaluateStressYears(scenario: Scenario): StressYears[][] {
+  return stressYears(...stressInputs(scenario, evaluateParts(scenario)));
 }
 
 export interface FastEvaluationOptions {

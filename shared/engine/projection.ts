@@ -616,20 +616,32 @@ const scratch = emptySettlement();
 /**
  * Cash available for debt service per year (currency, index = year, [0] = 0; written into `into`)
  * of an option at another milk price and lying-time response, from its milk model, and the NPV
- * of its project flows (returned; flows[0] = yearZero at t = 0): the same sums as projectOption
- * without rounding (the stress table and the coverage break-evens), one pass over the years.
+ * of its project flows (returned; flows[0] = yearZero at t = 0; each year's flow into `netInto`
+ * when given): the same sums as projectOption without rounding (the stress table and the
+ * coverage break-evens), one pass over the years.
  */
-export function cashAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario['finance'], yearZero: number, milkPrice: number, response: number, into: number[]): number {
+export function cashAtMilk(
+  model: MilkModel,
+  plan: OptionPlan,
+  finance: Scenario['finance'],
+  yearZero: number,
+  milkPrice: number,
+  response: number,
+  into: number[],
+  netInto?: number[],
+): number {
   const factor = 1 / (1 + finance.discountRate);
   const out = scratch;
   let discount = factor;
   let total = yearZero;
   let lossCarried = 0;
   into[0] = 0;
+  if (netInto) netInto[0] = yearZero;
   for (let t = 1; t <= plan.horizon; t++) {
     settleYear(out, plan, finance, t, marginAtMilk(model, t, milkPrice, response), lossCarried, identity, identity);
     lossCarried = out.lossCarried;
     into[t] = out.cashForDebtService;
+    if (netInto) netInto[t] = out.net;
     total += out.net * discount;
     discount *= factor;
   }

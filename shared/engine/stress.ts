@@ -1,5 +1,5 @@
 import type { Option, Scenario } from '../schema';
-import { coverageSummary, type ExistingFarm } from './farm-coverage';
+import { coverageSummary, loanDueIn, type ExistingFarm } from './farm-coverage';
 import { cashAtMilk, milkingLyingHours, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
 import { scaleCapitalCost, scaleGrazingFeedCost, scaleHousedFeedCost, scaleMarginalFeedCost, scaleMilkPrice } from './risk/perturb';
 
@@ -27,6 +27,20 @@ export interface StressResult {
   npvAgainstCurrent: number | null;
   /** Years whose whole-farm coverage is below the lender's threshold (count). */
   yearsBelowThreshold: number;
+}
+
+/**
+ * One option under one shock, year by year (currency, index = year): what the workbook's live
+ * stress formulas are built on. The change's flows are null for the current option.
+ */
+export interface StressYears {
+  id: StressId;
+  /** The project flows of the change against the current option, [0] = year 0. */
+  changeFlows: number[] | null;
+  /** Whole-farm cash for debt service: the existing farm beside the herd + this option's cash ([0] = 0). */
+  wholeFarmCash: number[];
+  /** Whole-farm debt service: existing debt + this option's loan P + I ([0] = 0). */
+  wholeFarmDebt: number[];
 }
 
 /** Feed cost × m: feed per cow-day (housed and grazing, herd and every option) and per extra kg of milk. */
@@ -60,7 +74,7 @@ function underShock(
   index: number,
   currentLyingHours: number,
   plans: Map<string, OptionPlan>,
-): { cash: number[]; plan: OptionPlan; npv: number } {
+): { cash: number[]; net: number[]; plan: OptionPlan; npv: number } {
   let { plan, model, yearZero } = entry;
   const option = shocked.options[index] ?? entry.option;
   // Interest and capital change the plan (loan, depreciation); capital also the maintenance inside the margin.
@@ -80,8 +94,9 @@ function underShock(
   if (test.feed !== 1) model = { ...model, feedPerCow: model.feedPerCow * test.feed, marginalFeedCostPerKg: model.marginalFeedCostPerKg * test.feed };
   const { finance, herd } = shocked;
   const cash = new Array<number>(plan.horizon + 1);
-  const npv = cashAtMilk(model, plan, finance, yearZero, herd.milkPricePerKg, herd.lyingResponseKgPerHour, cash);
-  return { cash, plan, npv };
+  const net = new Array<number>(plan.horizon + 1);
+  const npv = cashAtMilk(model, plan, finance, yearZero, herd.milkPricePerKg, herd.lyingResponseKgPerHour, cash, net);
+  return { cash, net, plan, npv };
 }
 
 /**
@@ -93,11 +108,27 @@ function underShock(
  * within the cents of rounding.
  */
 export function stressTables(anchored: Scenario, farm: ExistingFarm, entries: readonly StressOption[], currentIndex: number): StressResult[][] {
+  return stressRuns(anchored, farm, entries, currentIndex).tables;
+}
+
+/** The stress table's shocks year by year, per option (index = option) and shock (STRESS_TESTS order); see stressTables. */
+export function stressYears(anchored: Scenario, farm: ExistingFarm, entries: readonly StressOption[], currentIndex: number): StressYears[][] {
+  return stressRuns(anchored, farm, entries, currentIndex, true).years;
+}
+
+function stressRuns(
+  anchored: Scenario,
+  farm: ExistingFarm,
+  entries: readonly StressOption[],
+  currentIndex: number,
+  withYears = false,
+): { tables: StressResult[][]; years: StressYears[][] } {
   // The same lying hours the full evaluation measures against: stocking and the cap applied.
   const currentEntry = entries[currentIndex];
   const currentLyingHours = currentEntry ? milkingLyingHours(anchored.herd, currentEntry.option) : 0;
   const threshold = anchored.finance.coverageThreshold;
   const tables = entries.map((): StressResult[] => []);
+  const years = entries.map((): StressYears[] => []);
   const plans = new Map<string, OptionPlan>();
   for (const test of STRESS_TESTS) {
     const shocked = shockScenario(anchored, test);
@@ -116,7 +147,14 @@ export function stressTables(anchored: Scenario, farm: ExistingFarm, entries: re
         npvAgainstCurrent: isCurrent ? null : run.npv - current.npv,
         yearsBelowThreshold: summary.yearsBelowThreshold,
       });
+      if (withYears) {
+        const horizon = run.plan.horizon;
+        const wholeFarmCash = run.cash.map((cash, t) => (t === 0 ? 0 : farm.cashBesideHerd + cash));
+        const wholeFarmDebt = run.cash.map((_, t) => (t === 0 ? 0 : (farm.debtByYear[t] ?? 0) + loanDueIn(run.plan, t)));
+        const changeFlows = isCurrent ? null : run.net.slice(0, horizon + 1).map((flow, t) => flow - (current.net[t] ?? 0));
+        years[index]?.push({ id: test.id, changeFlows, wholeFarmCash, wholeFarmDebt });
+      }
     });
   }
-  return tables;
+  return { tables, years };
 }

@@ -50,8 +50,8 @@ describe('option cards and the existing farm on the finance form', () => {
     const page = await context.newPage();
     await signInThroughForm(page, 'owner@byrecast.test');
     const copy = await createCopy(page, 'Cards with a kept risk run');
-    const document = demoDocument();
-    const candidates = document.options.filter((o) => !o.current);
+    const demo = demoDocument();
+    const candidates = demo.options.filter((o) => !o.current);
 
     // Read once the page has asked for the kept run (the card would say the same while it waits).
     const asked = page.waitForResponse((response) => response.url().endsWith('/risk-result'));
@@ -61,11 +61,11 @@ describe('option cards and the existing farm on the finance form', () => {
       await until(() => cardFigure(page, option.id, 'Chance the change loses money').innerText(), { timeout: 10_000 }).toBe('risk not run yet');
     }
     // The current option is the reference: its card has no chance of loss of its own.
-    const current = document.options.find((o) => o.current);
+    const current = demo.options.find((o) => o.current);
     expect(await cardFigure(page, current?.id ?? '', 'Chance the change loses money').count()).toBe(0);
 
     // A run kept with the scenario, as the Risk tab keeps one (the shared core, seeded; fewer draws for speed).
-    const result = runMonteCarlo(document, { ...document.risk.monteCarlo, draws: 400 });
+    const result = runMonteCarlo(demo, { ...demo.risk.monteCarlo, draws: 400 });
     const kept = await page.request.put(`/api/farms/${copy.farmId}/scenarios/${copy.scenarioId}/risk-result`, { data: { scenarioVersion: copy.version, result } });
     expect(kept.status()).toBe(200);
     await page.reload();
@@ -104,8 +104,8 @@ describe('option cards and the existing farm on the finance form', () => {
     const page = await context.newPage();
     await signInThroughForm(page, 'owner@byrecast.test');
     const copy = await createCopy(page, 'Existing loans on the finance form');
-    const document = demoDocument();
-    const before = evaluateScenario(document);
+    const demo = demoDocument();
+    const before = evaluateScenario(demo);
 
     await page.goto(`${copy.url}?section=finance`);
     await page.getByRole('heading', { name: 'Existing loans that end within the horizon' }).waitFor();
@@ -121,7 +121,7 @@ describe('option cards and the existing farm on the finance form', () => {
     await payment.fill('30000');
     await page.locator('#field-herd-existingLoans-0-lastYear').fill('8');
     const margin = page.locator('#field-herd-existingCashHerdMarginPerYear');
-    const enteredMargin = (document.herd.existingCashHerdMarginPerYear ?? 0) + 40_000;
+    const enteredMargin = (demo.herd.existingCashHerdMarginPerYear ?? 0) + 40_000;
     await margin.fill(String(enteredMargin));
     await until(() => row.innerText()).not.toContain('must');
     await harness.screenshot(page, 'finance-existing-loans-desktop');

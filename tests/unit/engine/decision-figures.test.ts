@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { scenarioSchema } from '../../../shared/schema';
-import { anchoredForShocks, evaluateCore, evaluateScenario } from '../../../shared/engine/evaluate';
+import { anchoredForShocks, evaluateCore, evaluateScenario, evaluateStressYears } from '../../../shared/engine/evaluate';
 import { shockScenario, STRESS_TESTS } from '../../../shared/engine/stress';
 import { handScenario } from './hand-scenario';
 
@@ -214,5 +214,31 @@ describe('the core evaluation without the decision figures', () => {
       expect(option.stress.map((s) => s.id)).toEqual(STRESS_TESTS.map((t) => t.id));
       expect(option.breakEvenMilkPriceForCoverage).toBeDefined();
     }
+  });
+});
+
+describe('the stress shocks year by year (what the workbook discounts and divides)', () => {
+  it('give back every stress row: NPV of the change, lowest whole-farm coverage and years below the threshold', () => {
+    const scenario = scenarioSchema.parse(JSON.parse(readFileSync(new URL('../../../scenarios/cairnbrook-five-systems.json', import.meta.url), 'utf8')));
+    const results = evaluateScenario(scenario);
+    const years = evaluateStressYears(scenario);
+    const { discountRate, coverageThreshold } = scenario.finance;
+    let checked = 0;
+    results.options.forEach((option, i) => {
+      option.stress.forEach((row, k) => {
+        const detail = years[i]?.[k];
+        expect(detail?.id).toBe(row.id);
+        // NPV convention of numpy-financial / `financial` npv: flows[0] at t = 0.
+        const npv = detail?.changeFlows?.reduce((sum, flow, t) => sum + flow / (1 + discountRate) ** t, 0) ?? null;
+        if (row.npvAgainstCurrent === null) expect(npv).toBeNull();
+        else expect(Math.abs((npv ?? NaN) - row.npvAgainstCurrent)).toBeLessThan(1e-6);
+        // Farm Financial Standards Council coverage: cash available for debt service ÷ P + I, per year.
+        const ratios = (detail?.wholeFarmCash ?? []).slice(1).map((cash, t) => cash / (detail?.wholeFarmDebt[t + 1] ?? NaN));
+        expect(Math.min(...ratios)).toBeCloseTo(row.lowestCoverage ?? NaN, 12);
+        expect(ratios.filter((r) => r < coverageThreshold)).toHaveLength(row.yearsBelowThreshold);
+        checked += 1;
+      });
+    });
+    expect(checked).toBe(5 * STRESS_TESTS.length);
   });
 });
