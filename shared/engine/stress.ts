@@ -1,6 +1,6 @@
 import type { Option, Scenario } from '../schema';
 import { coverageSummary, loanDueIn, type ExistingFarm } from './farm-coverage';
-import { cashAtMilk, milkingLyingHours, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
+import { cashAtMilk, milkingLyingHours, planOption, projectOption, withFinanceTerms, type MilkModel, type OptionPlan } from './projection';
 import { scaleCapitalCost, scaleGrazingFeedCost, scaleHousedFeedCost, scaleMarginalFeedCost, scaleMilkPrice } from './risk/perturb';
 
 /** The lender's shocks, each applied to the inputs as entered. */
@@ -80,9 +80,10 @@ function underShock(
   // Interest and capital change the plan (loan, depreciation); capital also the maintenance inside the margin.
   const buysCapital = entry.plan.capitalTotal > 0;
   if (buysCapital && (test.ratePoints !== 0 || test.capital !== 1)) {
-    // The plan does not depend on the milk price: shocks with the same rate and capital share it.
+    // The plan does not depend on the milk price: shocks with the same rate and capital share it;
+    // a rate alone moves only the loan.
     const key = `${index}|${test.ratePoints}|${test.capital}`;
-    plan = plans.get(key) ?? planOption(shocked, option, 'fast').plan;
+    plan = plans.get(key) ?? (test.capital === 1 ? withFinanceTerms(plan, shocked.finance) : planOption(shocked, option, 'fast').plan);
     plans.set(key, plan);
   }
   if (buysCapital && test.capital !== 1) {

@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { scenarioSchema } from '../../../shared/schema';
 import { anchoredForShocks, evaluateCore, evaluateScenario, evaluateStressYears } from '../../../shared/engine/evaluate';
+import { planOption, withFinanceTerms } from '../../../shared/engine/projection';
 import { shockScenario, STRESS_TESTS } from '../../../shared/engine/stress';
 import { handScenario } from './hand-scenario';
 
@@ -240,5 +241,24 @@ describe('the stress shocks year by year (what the workbook discounts and divide
       });
     });
     expect(checked).toBe(5 * STRESS_TESTS.length);
+  });
+});
+
+describe('a plan at other finance terms', () => {
+  it('equals the plan built again with the interest rate 2 points higher, loan line by loan line', () => {
+    const scenario = scenarioSchema.parse(JSON.parse(readFileSync(new URL('../../../scenarios/cairnbrook-five-systems.json', import.meta.url), 'utf8')));
+    const test = STRESS_TESTS.find((t) => t.id === 'rate+2');
+    if (!test) throw new Error('no rate+2 shock');
+    const shocked = shockScenario(scenario, test);
+    for (const option of scenario.options) {
+      const moved = withFinanceTerms(planOption(scenario, option, 'ledger').plan, shocked.finance);
+      const again = planOption(shocked, option, 'fast').plan;
+      // The whole plan, not only the loan: nothing else may depend on the rate (construction interest included).
+      expect(moved, option.id).toEqual(again);
+    }
+    // The rate moved something: the demo's barns borrow.
+    const sand = scenario.options.find((o) => o.id === 'sand-freestall');
+    if (!sand) throw new Error('no sand option');
+    expect(withFinanceTerms(planOption(scenario, sand, 'fast').plan, shocked.finance).interestByYear[1]).toBeGreaterThan(planOption(scenario, sand, 'fast').plan.interestByYear[1] ?? Infinity);
   });
 });
