@@ -92,7 +92,9 @@ export function addStressYearsSheet(context: WorkbookContext): ShockCells[][] {
   ws.getColumn(2).width = 30;
   for (let t = 0; t <= horizon; t++) ws.getColumn(FIRST_YEAR_COLUMN + t).width = 13;
   freeze(ws, header, 2);
-  setupPrint(ws, { lastRow: r, lastColumn: FIRST_YEAR_COLUMN + horizon, titleRows: `${header}:${header}` });
+  // Printed like the cash-flow sheets: about eleven years a page, the shock and line repeated.
+  setupPrint(ws, { lastRow: r, lastColumn: FIRST_YEAR_COLUMN + horizon, titleRows: `${header}:${header}`, pagesWide: Math.max(1, Math.ceil((horizon + 1) / 11)) });
+  ws.pageSetup.printTitlesColumn = 'A:B';
   ws.eachRow((row) => row.eachCell((cell) => (cell.font ??= BASE_FONT)));
   return cells;
 }
