@@ -11,7 +11,7 @@ import { evaluateScenario } from '../../shared/engine/evaluate.js';
 import { runMonteCarlo } from '../../shared/engine/risk/monte-carlo.js';
 import { scenarioSchema, type Scenario } from '../../shared/schema/index.js';
 import { formatNumber, formatPercent } from '../../src/composables/useMoney.js';
-import { SCREENSHOT_DIR, signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser.js';
+import { signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser.js';
 
 const SCENARIO_FILE = 'scenarios/cairnbrook-five-systems.json';
 const DESKTOP = { width: 1366, height: 900 };
@@ -127,7 +127,7 @@ describe('option cards and the existing farm on the finance form', () => {
     await harness.screenshot(page, 'finance-existing-loans-desktop');
     await page.setViewportSize(PHONE);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
-    await page.locator('.loans').screenshot({ path: `${SCREENSHOT_DIR}/finance-existing-loans-phone.png` });
+    await harness.screenshot(page, 'finance-existing-loans-phone');
     await page.setViewportSize(DESKTOP);
 
     await page.getByRole('button', { name: 'Save', exact: true }).click();
