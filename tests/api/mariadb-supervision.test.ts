@@ -1,0 +1,81 @@
+/**
+ * The start command's private MariaDB is supervised: `npm start` (server/start.ts, as a child
+ * process, on its own data directory) is run, its mariadbd killed with SIGKILL; the start
+ * command logs the death and the restart, the server answers 503 meanwhile and 200 again after,
+ * with the data kept. Common practice for supervisors (restart with growing delay), no source.
+ */
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { findFreePort, restartDelayMs } from '../../server/db/local-server.js';
+import { eventually, processGone, signIn, startChild, type ChildServer } from '../helpers/processes.js';
+
+describe('the private MariaDB of the start command', () => {
+  const dataDir = mkdtempSync(join(tmpdir(), 'byrecast-supervise-'));
+  const pidFile = join(dataDir, 'mariadb', 'mariadb.pid');
+  let start: ChildServer | null = null;
+
+  afterAll(async () => {
+    await start?.kill('SIGTERM');
+    // Should the start command have died without stopping its MariaDB, stop that one here.
+    try {
+      process.kill(Number(readFileSync(pidFile, 'utf8')), 'SIGKILL');
+    } catch {
+      // already gone
+    }
+    rmSync(dataDir, { recursive: true, force: true });
+  }, 60_000);
+
+  it('waits 0.5 s, then twice as long each time, at most 30 s', () => {
+    expect([1, 2, 3, 4, 7, 8, 20].map(restartDelayMs)).toEqual([500, 1_000, 2_000, 4_000, 30_000, 30_000, 30_000]);
+  });
+
+  it('is started again when it dies, and the server recovers by itself', async () => {
+    const port = await findFreePort();
+    const { DATABASE_URL: _unset, ...env } = process.env;
+    start = startChild('server/start.ts', {
+      ...env,
+      NODE_ENV: 'production',
+      PORT: String(port),
+      DB_PORT: String(await findFreePort()),
+      DATA_DIR: dataDir,
+      DIST_DIR: process.env.BYRECAST_DIST ?? join(dataDir, 'dist'),
+      BCRYPT_COST: '4',
+      LOG_LEVEL: 'warn',
+      JWT_SECRET: 'supervision-test-secret-of-at-least-32-characters',
+    });
+    const url = (await start.waitFor(/Byrecast is running at (\S+)/, 120_000))[1]!;
+    const cookie = await signIn(url, 'owner@byrecast.test');
+    const health = async () => (await fetch(`${url}/api/health`, { signal: AbortSignal.timeout(5_000) })).status;
+    expect(await health()).toBe(200);
+
+    const firstPid = Number(readFileSync(pidFile, 'utf8'));
+    process.kill(firstPid, 'SIGKILL');
+    await processGone(firstPid);
+    expect(await health()).toBe(503);
+
+    await start.waitFor(/MariaDB exited \(SIGKILL\); restarting in 0\.5 s \(attempt 1\)/, 10_000);
+    await start.waitFor(/MariaDB restarted on 127\.0\.0\.1:\d+/, 60_000);
+    expect(await eventually(async () => (await health()) === 200, 10_000)).toBe(true);
+    expect(Number(readFileSync(pidFile, 'utf8'))).not.toBe(firstPid);
+    // The same session and the demo farm are still there: same data directory.
+    const me = (await (await fetch(`${url}/api/auth/me`, { headers: { cookie } })).json()) as { user: { email: string }; memberships: unknown[] };
+    expect(me.user.email).toBe('owner@byrecast.test');
+    expect(me.memberships.length).toBeGreaterThan(0);
+    expect(start.child.exitCode).toBeNull();
+
+    // Ctrl-C still stops both: no restart after a deliberate stop.
+    const secondPid = Number(readFileSync(pidFile, 'utf8'));
+    await start.kill('SIGTERM');
+    expect(await eventually(async () => {
+      try {
+        process.kill(secondPid, 0);
+        return false;
+      } catch {
+        return true;
+      }
+    }, 20_000)).toBe(true);
+    expect(start.output().match(/restarting in/g)).toHaveLength(1);
+  }, 180_000);
+});
