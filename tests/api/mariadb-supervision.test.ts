@@ -3,18 +3,24 @@
  * process, on its own data directory) is run, its mariadbd killed with SIGKILL; the start
  * command logs the death and the restart, the server answers 503 meanwhile and 200 again after,
  * with the data kept. Common practice for supervisors (restart with growing delay), no source.
+ * The backup and restore commands find that same private MariaDB when DATABASE_URL is unset.
  */
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { findFreePort, restartDelayMs } from '../../server/db/local-server.js';
-import { eventually, processGone, signIn, startChild, type ChildServer } from '../helpers/processes.js';
+import { eventually, processGone, runChild, signIn, startChild, type ChildServer } from '../helpers/processes.js';
 
-describe('the private MariaDB of the start command', () => {
+describe('the private MariaDB of the start command: supervised, backed up, restored', () => {
   const dataDir = mkdtempSync(join(tmpdir(), 'byrecast-supervise-'));
   const pidFile = join(dataDir, 'mariadb', 'mariadb.pid');
   let start: ChildServer | null = null;
+  const backupFile = join(dataDir, 'backups', 'private.tar.gz');
+  const commandEnv = () => {
+    const { DATABASE_URL: _unset, ...env } = process.env;
+    return { ...env, DATA_DIR: dataDir };
+  };
 
   afterAll(async () => {
     await start?.kill('SIGTERM');
@@ -65,6 +71,11 @@ describe('the private MariaDB of the start command', () => {
     expect(me.memberships.length).toBeGreaterThan(0);
     expect(start.child.exitCode).toBeNull();
 
+    // `npm run backup` without DATABASE_URL finds this running private MariaDB by its socket.
+    const backup = await runChild('server/cli/backup.ts', commandEnv(), ['--out', backupFile]);
+    expect(backup.code, backup.output).toBe(0);
+    expect(backup.output).toMatch(/database: database byrecast of the private MariaDB in .*\(running\), \d+ tables \(1 farms, [1-9]\d* scenarios/);
+
     // Ctrl-C still stops both: no restart after a deliberate stop.
     const secondPid = Number(readFileSync(pidFile, 'utf8'));
     await start.kill('SIGTERM');
@@ -78,4 +89,13 @@ describe('the private MariaDB of the start command', () => {
     }, 20_000)).toBe(true);
     expect(start.output().match(/restarting in/g)).toHaveLength(1);
   }, 180_000);
+
+  it('restores into the private MariaDB while the app is stopped, starting and stopping it for the command', async () => {
+    expect(existsSync(backupFile)).toBe(true);
+    const restored = await runChild('server/cli/restore.ts', commandEnv(), [backupFile, '--yes', '--force']);
+    expect(restored.code, restored.output).toBe(0);
+    expect(restored.output).toMatch(/Restored into database byrecast of the private MariaDB in .* \(started for this command\): \d+ tables \(\d+ accounts, 1 farms/);
+    // The server it started is stopped again: its pid file is gone with it.
+    expect(existsSync(pidFile)).toBe(false);
+  }, 120_000);
 });
