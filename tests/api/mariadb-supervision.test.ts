@@ -22,6 +22,25 @@ describe('the private MariaDB of the start command: supervised, backed up, resto
     return { ...env, DATA_DIR: dataDir };
   };
 
+  const startEnv = async () => ({
+    ...commandEnv(),
+    NODE_ENV: 'production',
+    PORT: String(await findFreePort()),
+    DB_PORT: String(await findFreePort()),
+    DIST_DIR: process.env.BYRECAST_DIST ?? join(dataDir, 'dist'),
+    BCRYPT_COST: '4',
+    LOG_LEVEL: 'warn',
+    JWT_SECRET: 'supervision-test-secret-of-at-least-32-characters',
+  });
+  const alive = (pid: number) => {
+    try {
+      process.kill(pid, 0);
+      return true;
+    } catch {
+      return false;
+    }
+  };
+
   afterAll(async () => {
     await start?.kill('SIGTERM');
     // Should the start command have died without stopping its MariaDB, stop that one here.
@@ -38,19 +57,7 @@ describe('the private MariaDB of the start command: supervised, backed up, resto
   });
 
   it('is started again when it dies, and the server recovers by itself', async () => {
-    const port = await findFreePort();
-    const { DATABASE_URL: _unset, ...env } = process.env;
-    start = startChild('server/start.ts', {
-      ...env,
-      NODE_ENV: 'production',
-      PORT: String(port),
-      DB_PORT: String(await findFreePort()),
-      DATA_DIR: dataDir,
-      DIST_DIR: process.env.BYRECAST_DIST ?? join(dataDir, 'dist'),
-      BCRYPT_COST: '4',
-      LOG_LEVEL: 'warn',
-      JWT_SECRET: 'supervision-test-secret-of-at-least-32-characters',
-    });
+    start = startChild('server/start.ts', await startEnv());
     const url = (await start.waitFor(/Byrecast is running at (\S+)/, 120_000))[1]!;
     const cookie = await signIn(url, 'owner@byrecast.test');
     const health = async () => (await fetch(`${url}/api/health`, { signal: AbortSignal.timeout(5_000) })).status;
@@ -79,14 +86,7 @@ describe('the private MariaDB of the start command: supervised, backed up, resto
     // Ctrl-C still stops both: no restart after a deliberate stop.
     const secondPid = Number(readFileSync(pidFile, 'utf8'));
     await start.kill('SIGTERM');
-    expect(await eventually(async () => {
-      try {
-        process.kill(secondPid, 0);
-        return false;
-      } catch {
-        return true;
-      }
-    }, 20_000)).toBe(true);
+    expect(await eventually(async () => !alive(secondPid), 20_000)).toBe(true);
     expect(start.output().match(/restarting in/g)).toHaveLength(1);
   }, 180_000);
 
@@ -98,4 +98,21 @@ describe('the private MariaDB of the start command: supervised, backed up, resto
     // The server it started is stopped again: its pid file is gone with it.
     expect(existsSync(pidFile)).toBe(false);
   }, 120_000);
+
+  it('after a start killed with SIGKILL, the next start stops the MariaDB it left behind and carries on', async () => {
+    start = startChild('server/start.ts', await startEnv());
+    await start.waitFor(/Byrecast is running at/, 120_000);
+    const leftPid = Number(readFileSync(pidFile, 'utf8'));
+    await start.kill('SIGKILL');
+    // SIGKILL gave the start command no chance to stop its MariaDB.
+    expect(alive(leftPid)).toBe(true);
+
+    start = startChild('server/start.ts', await startEnv());
+    await start.waitFor(new RegExp(`MariaDB \\(pid ${leftPid}\\) was left running by an earlier start`), 60_000);
+    const url = (await start.waitFor(/Byrecast is running at (\S+)/, 120_000))[1]!;
+    expect(alive(leftPid)).toBe(false);
+    expect((await fetch(`${url}/api/health`)).status).toBe(200);
+    await signIn(url, 'owner@byrecast.test');
+    await start.kill('SIGTERM');
+  }, 180_000);
 });
