@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { findFreePort, restartDelayMs } from '../../server/db/local-server.js';
-import { eventually, processGone, runChild, signIn, startChild, type ChildServer } from '../helpers/processes.js';
+import { eventually, isRunning, processGone, runChild, signIn, startChild, type ChildServer } from '../helpers/processes.js';
 
 describe('the private MariaDB of the start command: supervised, backed up, restored', () => {
   const dataDir = mkdtempSync(join(tmpdir(), 'byrecast-supervise-'));
@@ -32,14 +32,7 @@ describe('the private MariaDB of the start command: supervised, backed up, resto
     LOG_LEVEL: 'warn',
     JWT_SECRET: 'supervision-test-secret-of-at-least-32-characters',
   });
-  const alive = (pid: number) => {
-    try {
-      process.kill(pid, 0);
-      return true;
-    } catch {
-      return false;
-    }
-  };
+  const alive = isRunning;
 
   afterAll(async () => {
     await start?.kill('SIGTERM');

@@ -4,6 +4,7 @@
  * a line of its output, sign in over real HTTP, wait for a process to be gone.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
+import { readFileSync } from 'node:fs';
 import { SESSION_COOKIE } from '../../server/auth/session.js';
 
 export interface ChildServer {
@@ -76,19 +77,24 @@ export async function signIn(baseUrl: string, email: string, password = 'byrecas
   return cookie.split(';')[0]!;
 }
 
-function alive(pid: number): boolean {
+/** True for a running process; a zombie (ended, not yet reaped by whoever adopted it) counts as gone. */
+export function isRunning(pid: number): boolean {
   try {
     process.kill(pid, 0);
-    return true;
   } catch {
     return false;
+  }
+  try {
+    return !/^\d+ \(.*\) Z/.test(readFileSync(`/proc/${pid}/stat`, 'utf8'));
+  } catch {
+    return true;
   }
 }
 
 /** Waits until process `pid` has ended (a killed child of another process may linger as a zombie; its port is closed by then). */
 export async function processGone(pid: number, ms = 10_000): Promise<void> {
   const deadline = Date.now() + ms;
-  while (alive(pid) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 50));
+  while (isRunning(pid) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 50));
 }
 
 /** Polls `probe` until it returns true or `ms` pass; returns whether it did. */
