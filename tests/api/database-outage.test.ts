@@ -2,8 +2,9 @@
  * MariaDB killed under a running server: the real server (server/serve.ts, over real HTTP) on a
  * private MariaDB of its own. While the database is gone every API route answers 503
  * `database_unavailable` within 3 s and the health check says `database: "down"`; once MariaDB
- * is started again on the same port and data the server carries on by itself. The 3 s bound is
- * the product's own promise (DEVELOPERS.md, "Faults"), no outside source.
+ * is started again on the same port and data the server carries on by itself. A frozen MariaDB
+ * (SIGSTOP) answers 503 after the query deadline. The 3 s bound is the product's own promise
+ * (DEVELOPERS.md, "Faults and backups"), no outside source.
  */
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -12,9 +13,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { farmRouteRegistry } from '../../server/auth/middleware.js';
 import { SESSION_COOKIE } from '../../server/auth/session.js';
 import { findFreePort, startLocalMariadb, type LocalMariadb } from '../../server/db/local-server.js';
-import { startServer, type RunningServer } from '../../server/serve.js';
+import { QUERY_DEADLINE_MS, startServer, type RunningServer } from '../../server/serve.js';
 import { testConfig } from '../helpers/app.js';
-import { processGone, signIn } from '../helpers/processes.js';
+import { eventually, processGone, signIn } from '../helpers/processes.js';
 
 const DATABASE = 'byrecast_outage';
 
@@ -85,6 +86,28 @@ describe('MariaDB stopped under a running server', () => {
     expect((await call('get', `/api/farms/${ids.farmId}/scenarios/${ids.scenarioId}`, owner)).status).toBe(200);
     expect((await call('get', '/api/health')).body).toEqual({ status: 'ok', database: 'up' });
   });
+
+  it('answers 503 while MariaDB is frozen (SIGSTOP: no reset, TCP would wait), and 200 once it runs again', async () => {
+    const scenarios = `/api/farms/${ids.farmId}/scenarios`;
+    // Several open connections in the pool, idle: the ones a frozen server leaves hanging.
+    await Promise.all(Array.from({ length: 12 }, () => call('get', scenarios, owner)));
+    const pid = mariadb!.pid()!;
+    process.kill(pid, 'SIGSTOP');
+    try {
+      const answers = await Promise.all([...Array.from({ length: 12 }, () => call('get', scenarios, owner)), call('get', '/api/health')]);
+      for (const res of answers) {
+        expect(res.status).toBe(503);
+        // The query deadline, then at most a queue wait and one 2 s connect attempt.
+        expect(res.ms).toBeLessThan(QUERY_DEADLINE_MS + 4_000);
+      }
+      expect(answers.at(-1)!.body).toEqual({ status: 'degraded', database: 'down' });
+    } finally {
+      process.kill(pid, 'SIGCONT');
+    }
+    expect(await eventually(async () => (await call('get', '/api/health')).status === 200, 10_000)).toBe(true);
+    const again = await Promise.all(Array.from({ length: 12 }, () => call('get', scenarios, owner)));
+    expect(again.map((r) => r.status)).toEqual(again.map(() => 200));
+  }, 60_000);
 
   it('answers every API route 503 database_unavailable within 3 s once MariaDB is killed, and recovers when it is back', async () => {
     const pid = mariadb!.pid()!;
