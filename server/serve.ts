@@ -10,7 +10,7 @@ import { createLogger } from './logger.js';
 import { createMailer } from './mail/index.js';
 
 /** No query of a request takes near this long on a healthy database; a frozen one answers 503 after it. */
-export const QUERY_DEADLINE_MS = 5_000;
+export const QUERY_DEADLINE_MS = 10_000;
 
 export interface RunningServer {
   url: string;

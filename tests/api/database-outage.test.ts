@@ -76,7 +76,7 @@ describe('MariaDB stopped under a running server', () => {
       headers: { 'content-type': 'application/json', ...(cookie ? { cookie } : {}) },
       body: method === 'get' || method === 'delete' ? undefined : JSON.stringify({ email: 'owner@byrecast.test', password: 'byrecast-demo', version: 1, name: 'x' }),
       // A hung request fails here instead of at the test timeout.
-      signal: AbortSignal.timeout(10_000),
+      signal: AbortSignal.timeout(20_000),
     });
     const text = await res.text();
     return { status: res.status, body: text.startsWith('{') ? JSON.parse(text) : {}, ms: Date.now() - started };
