@@ -5,7 +5,7 @@
  * Exit codes: 0 written, 1 failed (nothing left behind), 2 bad usage.
  */
 import { parseArgs } from 'node:util';
-import { BackupError, createBackup } from '../backup/archive.js';
+import { createBackup } from '../backup/archive.js';
 import { commandDatabase } from '../backup/command-database.js';
 import { loadConfig } from '../config.js';
 
@@ -47,7 +47,8 @@ try {
     await database.release();
   }
 } catch (error) {
-  console.error(error instanceof BackupError ? `Backup failed: ${error.message}` : error);
+  // A refusal or a failed tool says what happened; only a bug shows its stack.
+  console.error(error instanceof Error ? `Backup failed: ${error.message}` : error);
   exitCode = 1;
 }
 process.exit(exitCode);

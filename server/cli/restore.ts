@@ -59,7 +59,8 @@ try {
     backup.close();
   }
 } catch (error) {
-  console.error(error instanceof BackupError ? `Restore refused: ${error.message}` : error);
+  // A refusal says what happened and that nothing changed; a failure says what broke.
+  console.error(error instanceof BackupError ? `Restore refused: ${error.message}` : error instanceof Error ? `Restore failed: ${error.message}` : error);
   exitCode = 1;
 }
 process.exit(exitCode);
