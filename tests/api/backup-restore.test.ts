@@ -12,6 +12,7 @@ import { join } from 'node:path';
 import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { referencedKeys } from '../../server/backup/archive.js';
+import { optionFile } from '../../server/db/dump.js';
 import { createTestApp, type TestApp } from '../helpers/app.js';
 import { createTestDatabase, type TestDatabase } from '../helpers/database.js';
 import { runChild } from '../helpers/processes.js';
@@ -131,4 +132,18 @@ describe('backup and restore', () => {
     const [still] = (await fresh.pool.query('SELECT COUNT(*) AS n FROM scenarios')) as unknown as [{ n: number }[]];
     expect(Number(still[0]!.n)).toBe(original.length);
   }, 120_000);
+
+  it('writes a password with quotes, a backslash, a hash and spaces into the option file so MariaDB reads it back intact', () => {
+    const password = `p"a\\ss #w'rd x`;
+    const url = new URL('mysql://127.0.0.1:3306/byrecast');
+    url.username = 'backup user';
+    url.password = encodeURIComponent(password);
+    const file = join(work, 'client.cnf');
+    writeFileSync(file, optionFile({ url: url.toString() }));
+    // my_print_defaults parses option files with the same code as the mariadb programs.
+    const parsed = execFileSync('my_print_defaults', [`--defaults-file=${file}`, 'client'], { encoding: 'utf8' }).split('\n');
+    expect(parsed).toContain(`--password=${password}`);
+    expect(parsed).toContain('--user=backup user');
+    expect(parsed).toContain('--port=3306');
+  });
 });
