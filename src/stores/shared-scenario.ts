@@ -7,6 +7,7 @@ import { defineStore } from 'pinia';
 import { readonly, ref, shallowRef } from 'vue';
 import { ApiError } from '@/api/client';
 import { documentsApi, type CapitalLineQuotes } from '@/api/documents';
+import { lenderApi, type LenderShare } from '@/api/lender';
 import { preferencesApi, type SavedRiskResult } from '@/api/preferences';
 import { scenariosApi, type ScenarioDocument } from '@/api/scenarios';
 
@@ -42,6 +43,20 @@ export const useSharedScenarioStore = defineStore('shared-scenario', () => {
     }
   }
 
+  /** The newest live share to the caller over the farms where they are a lender; null when none. */
+  async function newestShare(farmIds: readonly number[]): Promise<{ farmId: number; scenarioId: number } | null> {
+    const lists = await Promise.all(
+      farmIds.map((farmId) =>
+        lenderApi
+          .mine(farmId)
+          .then((shares) => shares.map((share) => ({ farmId, share })))
+          .catch(() => [] as { farmId: number; share: LenderShare }[]),
+      ),
+    );
+    const newest = lists.flat().sort((a, b) => (a.share.createdAt < b.share.createdAt ? 1 : a.share.createdAt > b.share.createdAt ? -1 : b.share.id - a.share.id))[0];
+    return newest ? { farmId: newest.farmId, scenarioId: newest.share.scenarioId } : null;
+  }
+
   function clear(): void {
     loading = null;
     doc.value = null;
@@ -50,5 +65,5 @@ export const useSharedScenarioStore = defineStore('shared-scenario', () => {
     error.value = null;
   }
 
-  return { doc, risk, quotes, error: readonly(error), load, clear };
+  return { doc, risk, quotes, error: readonly(error), load, clear, newestShare };
 });
