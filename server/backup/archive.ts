@@ -191,6 +191,9 @@ export async function currentContents(config: Pick<AppConfig, 'dataDir' | 'stora
 export async function restoreBackup(config: Pick<AppConfig, 'dataDir' | 'storage'>, database: CommandDatabase, backup: OpenedBackup, force: boolean, now = new Date()): Promise<RestoreResult> {
   const { manifest } = backup;
   const notes: string[] = [];
+  if (database.inUseBy) {
+    throw new BackupError(`The app (pid ${database.inUseBy}) is running on ${database.description}: stop it (Ctrl-C) and run the restore again. Nothing changed.`);
+  }
   const before = await currentContents(config, database);
   const holds = Object.entries(before.rows).map(([t, n]) => `${n} ${t}`);
   if (before.files > 0) holds.push(`${before.files} stored files`);

@@ -15,6 +15,8 @@ export interface CommandDatabase {
   target: DatabaseTarget;
   /** Said in the command's report: which database this is. */
   description: string;
+  /** The process (`npm start` or `npm run dev`) serving the private database now, if any. */
+  inUseBy: number | null;
   release(): Promise<void>;
 }
 
@@ -34,16 +36,19 @@ export async function commandDatabase(dataDir: string, options: { create: boolea
   const env = options.env ?? process.env;
   if (env.DATABASE_URL) {
     const url = new URL(env.DATABASE_URL);
-    return { target: { url: env.DATABASE_URL }, description: `database ${url.pathname.slice(1)} on ${url.host} (DATABASE_URL)`, release: async () => {} };
+    return { target: { url: env.DATABASE_URL }, description: `database ${url.pathname.slice(1)} on ${url.host} (DATABASE_URL)`, inUseBy: null, release: async () => {} };
   }
   const dir = resolve(dataDir, 'mariadb');
   const socketPath = join(dir, 'mariadb.sock');
   const target = { socketPath, database: PRIVATE_DATABASE };
   const description = `database ${PRIVATE_DATABASE} of the private MariaDB in ${dir}`;
-  if (runningPid(join(dir, 'mariadb.pid')) && existsSync(socketPath)) return { target, description: `${description} (running)`, release: async () => {} };
+  if (runningPid(join(dir, 'mariadb.pid')) && existsSync(socketPath)) {
+    const owner = runningPid(join(dir, 'owner.pid'));
+    return { target, description: `${description} (running)`, inUseBy: owner !== process.pid ? owner : null, release: async () => {} };
+  }
   if (!options.create && !existsSync(join(dir, 'db', 'mysql'))) {
     throw new Error(`No database found: DATABASE_URL is not set and there is no private MariaDB in ${dir} (run npm start once, or set DATA_DIR)`);
   }
   const local = await startLocalMariadb({ dataDir: dir, database: PRIVATE_DATABASE, quiet: true });
-  return { target, description: `${description} (started for this command)`, release: local.stop };
+  return { target, description: `${description} (started for this command)`, inUseBy: null, release: local.stop };
 }

@@ -75,6 +75,10 @@ describe('the private MariaDB of the start command: supervised, backed up, resto
     const backup = await runChild('server/cli/backup.ts', commandEnv(), ['--out', backupFile]);
     expect(backup.code, backup.output).toBe(0);
     expect(backup.output).toMatch(/database: database byrecast of the private MariaDB in .*\(running\), \d+ tables \(1 farms, [1-9]\d* scenarios/);
+    // A restore under the running app is refused: it would serve half-restored data.
+    const underApp = await runChild('server/cli/restore.ts', commandEnv(), [backupFile, '--yes', '--force']);
+    expect(underApp.code).toBe(1);
+    expect(underApp.output).toMatch(new RegExp(`The app \\(pid ${start.child.pid}\\) is running on .*stop it \\(Ctrl-C\\).*Nothing changed`));
 
     // Ctrl-C still stops both: no restart after a deliberate stop.
     const secondPid = Number(readFileSync(pidFile, 'utf8'));
