@@ -393,6 +393,7 @@ export function createOption(startingPoint: StartingPoint, herd: Herd, settings:
     lyingHoursPerDay: defaults.lyingHoursPerDay,
     systemYieldAdjustment: 0,
     stockingRate,
+    milkQualityPricePerKg: 0,
     ...(defaults.bed === 'none' ? {} : { stallDimensions: guidanceStall(herd.breedSize) }),
     feedCostPerCowDay: { ...herd.feedCostPerCowDay },
     health: { ...defaults.health },

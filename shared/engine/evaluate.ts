@@ -8,7 +8,8 @@ import { sourcesAndUses } from './sources-and-uses';
 import { stressTables } from './stress';
 import { capitalRecoveryFactor, discount, mirr, paybackYears } from './finance';
 import { milkingLyingHours, npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
-import type { CoverageYear, FastOptionResult, IncrementalResult, Metrics, OptionResult, ScenarioResults } from './results';
+import { expansionSplitFlows, type SplitSide } from './expansion-split';
+import type { CoverageYear, ExpansionSplit, FastOptionResult, IncrementalResult, Metrics, OptionResult, ScenarioResults } from './results';
 import { irrFast } from './irr-fast';
 import { findRoot } from './root';
 import { checkStallDimensions, checkWater } from './sizing';
@@ -132,6 +133,17 @@ function breakEvens(scenario: Scenario, option: SearchInput, current: SearchInpu
   };
 }
 
+/** The change's split into housing with today's herd and the expansion, with metrics on each part. */
+function splitMetrics(scenario: Scenario, option: SplitSide, current: SplitSide, currentLyingHours: number): ExpansionSplit | null {
+  const flows = expansionSplitFlows(scenario, option, current, currentLyingHours);
+  if (!flows) return null;
+  const { discountRate, interestRate } = scenario.finance;
+  return {
+    housingTodaysHerd: metricsOf(flows.housingTodaysHerd, discountRate, interestRate, 'incremental'),
+    expansion: metricsOf(flows.expansion, discountRate, interestRate, 'incremental'),
+  };
+}
+
 /**
  * Evaluates every option of a valid scenario (currency of the scenario, nominal, money in cents):
  * yearly lines, loan schedule, metrics on the project cash flow (year 0 = grants − capital −
@@ -206,6 +218,7 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
         ...metricsOf(flows, discountRate, interestRate, 'incremental'),
         ...operationsPayback(lines, baseLines),
         ...breakEvens(scenario, search, base.search, sameLyingTime),
+        split: splitMetrics(scenario, { option, plan, cashFlows: projection.cashFlows }, { option: current, plan: base.plan, cashFlows: base.projection.cashFlows }, currentLying),
       };
     }
     return result;

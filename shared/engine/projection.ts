@@ -15,6 +15,7 @@ import { MACRS_10_YEAR_150DB, MACRS_10_YEAR_200DB, MACRS_20_YEAR_150DB } from '.
 import { baseFeedCostPerYear, effectiveHousedDays, grazingDaysPerYear, marginalFeedCostPerYear } from './feed';
 import type { LoanSchedule } from './finance';
 import { cullingCostPerYear, extraCullsPer100Cows, healthCostPerYear } from './health';
+import { herdReplacementCostPerYear, milkCowEquivalents, milkingHoursPerYear, otherCowCostsPerYear } from './herd-costs';
 import { cowsPerYear, herdPurchasesByYear, herdValueAtHorizon } from './herd-size';
 import {
   bedCareHoursPerYear,
@@ -35,6 +36,8 @@ import { cappedLyingHours, lactatingShare, MILK_DAYS_PER_YEAR, milkSoldKgPerYear
 export interface OptionPlan {
   horizon: number;
   cows: number[];
+  /** Cows in milk at the herd's yield per year (cow equivalents): newcomers at the first-lactation factor. */
+  milkCows: number[];
   designCows: number;
   stalls: number;
   housedDays: number;
@@ -181,6 +184,7 @@ export function planOption(scenario: Scenario, option: Option, mode: PlanMode): 
     plan: {
       horizon,
       cows,
+      milkCows: milkCowEquivalents(cows, herd.firstLactationYieldFactor),
       designCows,
       stalls,
       housedDays,
@@ -224,6 +228,10 @@ export interface Projection {
  */
 export interface MilkModel {
   cows: number[];
+  /** Cows in milk at the herd's yield (cow equivalents), as OptionPlan.milkCows. */
+  milkCows: number[];
+  /** The option's milk quality premium (+) or penalty (−) on the milk price (currency per kg, today). */
+  qualityPricePerKg: number;
   /** Operating margin without milk income and feed. */
   otherMargin: number[];
   milkGrowth: number[];
@@ -376,6 +384,7 @@ export function projectOption(
   const feedPerCow = baseFeedCostPerYear(1, housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
   const healthPerCow = healthCostPerYear(1, option.health);
   const cullingPerCow = cullingCostPerYear(extraCullsPer100Cows(option.health), 1, herd.replacementHeiferCost, herd.cullCowValue);
+  const herdReplacementPerCow = herdReplacementCostPerYear(herd.replacementRate, 1, herd.replacementHeiferCost, herd.cullCowValue);
   const manurePerCow = collectedManurePerYear(herd.manureExcretion, 1, housedDays, option.manure.collectionEfficiency);
   // Dung dropped on grazing days, of which the credited share counts as fertiliser saved.
   const pasturePerCow = collectedManurePerYear(herd.manureExcretion, 1, grazingDays, option.manure.pastureDungCredit);
@@ -408,6 +417,8 @@ export function projectOption(
   const milk: MilkModel | null = withMilkModel
     ? {
         cows: plan.cows,
+        milkCows: plan.milkCows,
+        qualityPricePerKg: option.milkQualityPricePerKg,
         otherMargin: new Array<number>(H + 1).fill(0),
         milkGrowth: new Array<number>(H + 1).fill(1),
         feedGrowth: new Array<number>(H + 1).fill(1),
@@ -438,10 +449,10 @@ export function projectOption(
     }
     const cows = plan.cows[t] ?? 0;
     const yieldKg = t === 1 ? yieldYear1 : yieldLater;
-    const milkKg = milkSoldKgPerYear(cows, yieldKg);
+    const milkKg = milkSoldKgPerYear(plan.milkCows[t] ?? cows, yieldKg);
     const extraMilkKg = milkKg - baselineMilkPerCow * cows;
 
-    const milkIncome = round(milkKg * milkPrice * gMilk);
+    const milkIncome = round(milkKg * (milkPrice + option.milkQualityPricePerKg) * gMilk);
     const feed = round((feedPerCow * cows + marginalFeedCostPerYear(extraMilkKg, herd.marginalFeedCostPerKgMilk)) * gFeed);
     const wage = herd.wagePerHour;
     const labourScraping = round(labourCost(scrapingHours, wage, gWage));
@@ -449,9 +460,13 @@ export function projectOption(
     const labourBeddingTopUp = round(labourCost(beddingTopUpHours, wage, gWage));
     const labourTroughs = round(labourCost(troughHours, wage, gWage));
     const labourGrazing = round(labourCost(grazingHours, wage, gWage));
+    const milkingHours = milkingHoursPerYear(herd.milkingHoursPerCowYear, cows);
+    const labourMilking = round(labourCost(milkingHours, wage, gWage));
     const bedding = round(beddingToday * gBedding);
     const health = round(healthPerCow * cows * gGeneral);
     const culling = round(cullingPerCow * cows * gGeneral);
+    const herdReplacement = round(herdReplacementPerCow * cows * gGeneral);
+    const otherCowCosts = round(otherCowCostsPerYear(herd.otherVariableCostPerCowYear, cows) * gGeneral);
     const maintenance = round(maintenanceToday * gGeneral);
     const energy = round(energyToday * gGeneral);
     const runningCosts = round(
@@ -467,8 +482,8 @@ export function projectOption(
     const storedM3 = storedFixedM3 + storedPerCowM3 * cows;
     const manureHandling = round(storedM3 * handlingPerM3 * gGeneral);
     const operatingMargin = centsTotal(
-      milkIncome + manureValue - feed - labourScraping - labourBedCare - labourBeddingTopUp - labourTroughs - labourGrazing -
-        bedding - health - culling - maintenance - energy - runningCosts - manureHandling,
+      milkIncome + manureValue - feed - labourScraping - labourBedCare - labourBeddingTopUp - labourTroughs - labourGrazing - labourMilking -
+        bedding - health - culling - herdReplacement - otherCowCosts - maintenance - energy - runningCosts - manureHandling,
     );
 
     settleYear(settled, plan, finance, t, operatingMargin, lossCarried, round, centsTotal);
@@ -494,9 +509,12 @@ export function projectOption(
         labourBeddingTopUp,
         labourTroughs,
         labourGrazing,
+        labourMilking,
         bedding,
         health,
         culling,
+        herdReplacement,
+        otherCowCosts,
         maintenance,
         energy,
         runningCosts,
@@ -523,7 +541,8 @@ export function projectOption(
           beddingTopUp: beddingTopUpHours,
           troughs: troughHours,
           grazing: grazingHours,
-          total: labourHoursTotal,
+          milking: milkingHours,
+          total: labourHoursTotal + milkingHours,
         },
         beddingTonnes: beddingTonnes,
         manure: {
@@ -551,9 +570,12 @@ function yearZeroLine(plan: OptionPlan, net: number, capital: number, grants: nu
     labourBeddingTopUp: 0,
     labourTroughs: 0,
     labourGrazing: 0,
+    labourMilking: 0,
     bedding: 0,
     health: 0,
     culling: 0,
+    herdReplacement: 0,
+    otherCowCosts: 0,
     maintenance: 0,
     energy: 0,
     runningCosts: 0,
@@ -574,7 +596,7 @@ function yearZeroLine(plan: OptionPlan, net: number, capital: number, grants: nu
     loanPrincipal: 0,
     financedCashFlow: financed,
     cashAvailableForDebtService: 0,
-    labourHours: { scraping: 0, bedCare: 0, beddingTopUp: 0, troughs: 0, grazing: 0, total: 0 },
+    labourHours: { scraping: 0, bedCare: 0, beddingTopUp: 0, troughs: 0, grazing: 0, milking: 0, total: 0 },
     beddingTonnes: 0,
     manure: { storedM3: 0, nitrogenKg: 0, phosphateKg: 0, potashKg: 0 },
   };
@@ -584,8 +606,8 @@ function yearZeroLine(plan: OptionPlan, net: number, capital: number, grants: nu
 function marginAtMilk(model: MilkModel, t: number, milkPrice: number, response: number): number {
   const cows = model.cows[t] ?? 0;
   const yieldKg = Math.max(0, model.yieldFixed + response * (t === 1 ? model.yieldPerResponseYear1 : model.yieldPerResponseLater));
-  const milkKg = milkSoldKgPerYear(cows, yieldKg);
-  const milkIncome = milkKg * milkPrice * (model.milkGrowth[t] ?? 1);
+  const milkKg = milkSoldKgPerYear(model.milkCows[t] ?? cows, yieldKg);
+  const milkIncome = milkKg * (milkPrice + model.qualityPricePerKg) * (model.milkGrowth[t] ?? 1);
   const feed = (model.feedPerCow * cows + marginalFeedCostPerYear(milkKg - model.baselineMilkPerCow * cows, model.marginalFeedCostPerKg)) * (model.feedGrowth[t] ?? 1);
   return (model.otherMargin[t] ?? 0) + milkIncome - feed;
 }
