@@ -35,7 +35,11 @@ export const INPUT_NAMES = {
   existingCash: 'ExistingCashForDebtService',
   existingDebt: 'ExistingDebtPayments',
   herdMarginInExistingCash: 'HerdMarginInExistingCash',
+  milkPriceIndex: 'MilkPriceIndex',
 } as const;
+
+/** Defined-name suffix of each option's milk quality premium or penalty (Opt1_MilkQualityPrice). */
+export const MILK_QUALITY_PRICE = 'MilkQualityPrice';
 
 /** Defined name of one option's key cell or row, e.g. optionName(2, 'NPV') → 'Opt2_NPV'. */
 export function optionName(option: OptionLayout | number, key: string): string {

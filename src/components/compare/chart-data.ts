@@ -102,9 +102,10 @@ export function capitalMakeUpChart(scenario: Scenario, results: ScenarioResults)
 
 const RUNNING_GROUPS: { label: string; keys: (keyof OptionResult['years'][number])[] }[] = [
   { label: 'Feed', keys: ['feed'] },
-  { label: 'Labour', keys: ['labourScraping', 'labourBedCare', 'labourBeddingTopUp', 'labourTroughs', 'labourGrazing'] },
+  { label: 'Labour', keys: ['labourScraping', 'labourBedCare', 'labourBeddingTopUp', 'labourTroughs', 'labourGrazing', 'labourMilking'] },
   { label: 'Bedding material', keys: ['bedding'] },
-  { label: 'Health and culling', keys: ['health', 'culling'] },
+  { label: 'Health, culling and replacement', keys: ['health', 'culling', 'herdReplacement'] },
+  { label: 'Other cow costs', keys: ['otherCowCosts'] },
   { label: 'Maintenance', keys: ['maintenance'] },
   { label: 'Energy', keys: ['energy'] },
   { label: 'Manure handling', keys: ['manureHandling'] },
