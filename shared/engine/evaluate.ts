@@ -6,6 +6,7 @@ import { coverageInYear, coverageSummary, existingFarmOf, withExistingCashAnchor
 import { operationsPayback } from './operations-payback';
 import { sourcesAndUses } from './sources-and-uses';
 import { stressTables } from './stress';
+import { presentValue } from './discounting';
 import { capitalRecoveryFactor, discount, mirr, paybackYears } from './finance';
 import { milkingLyingHours, npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
 import { expansionSplitFlows, type SplitSide } from './expansion-split';
@@ -248,17 +249,6 @@ export interface FastEvaluationOptions {
   irrStart?: readonly (number | null)[];
 }
 
-function npvFast(rate: number, flows: readonly number[]): number {
-  const factor = 1 / (1 + rate);
-  let discount = 1;
-  let total = 0;
-  for (let t = 0; t < flows.length; t++) {
-    total += (flows[t] ?? 0) * discount;
-    discount *= factor;
-  }
-  return total;
-}
-
 /**
  * Fast path for Monte Carlo and sensitivity: NPV, incremental NPV against the current option,
  * IRR and lowest coverage per option, in floating point without decimal.js or yearly detail.
@@ -274,12 +264,12 @@ export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOpti
   });
   const base = runs.find((run) => run.option === current) ?? runs[0];
   if (!base) return [];
-  const baseNpv = npvFast(discountRate, base.projection.cashFlows);
+  const baseNpv = presentValue(discountRate, base.projection.cashFlows);
   const farm = existingFarmOf(scenario, base.projection.cashForDebtService);
   return runs.map(({ option, plan, projection }, index) => {
     const isCurrent = option === current;
     const flows = projection.cashFlows;
-    const optionNpv = npvFast(discountRate, flows);
+    const optionNpv = presentValue(discountRate, flows);
     const sides: CoverageSides = { ownCash: projection.cashForDebtService, ownPlan: plan, currentCash: base.projection.cashForDebtService, currentPlan: base.plan, isCurrent };
     const { minCoverage, minProjectCoverage, yearsBelowThreshold } = coverageSummary(farm, sides, plan.horizon, scenario.finance.coverageThreshold);
     let incrementalIrr: number | null = null;

@@ -7,6 +7,7 @@ import {
   requireRate,
   roundCents,
 } from './money';
+import { presentValue, presentValues, signChanges } from './discounting';
 import { findRoot } from './root';
 
 // Conventions: rates are decimal fractions per period (0.08 = 8 %); flows[t] falls at the end of
@@ -25,7 +26,7 @@ function requireNonEmptyFlows(flows: readonly number[]): void {
 export function discount(rate: number, flows: readonly number[]): number[] {
   requireRate('rate', rate);
   requireFlows(flows);
-  return flows.map((cf, t) => cf / (1 + rate) ** t);
+  return presentValues(rate, flows);
 }
 
 /** Running totals: element t is flows[0] + … + flows[t], same currency as the flows. */
@@ -33,12 +34,6 @@ export function cumulative(flows: readonly number[]): number[] {
   requireFlows(flows);
   let sum = 0;
   return flows.map((cf) => (sum += cf));
-}
-
-function presentValue(rate: number, flows: readonly number[]): number {
-  let total = 0;
-  for (let t = 0; t < flows.length; t++) total += (flows[t] ?? 0) / (1 + rate) ** t;
-  return total;
 }
 
 /** Net present value Σ flows[t] / (1 + rate)^t with flows[0] at t = 0, undiscounted (numpy / `financial` convention). */
@@ -75,17 +70,6 @@ const IRR_GRID: readonly number[] = (() => {
 const ROOT_TOLERANCE = 1e-12;
 const SAME_ROOT = 1e-9;
 
-function countSignChanges(flows: readonly number[]): number {
-  let changes = 0;
-  let previous = 0;
-  for (const cf of flows) {
-    if (cf === 0) continue;
-    if (previous !== 0 && Math.sign(cf) !== previous) changes++;
-    previous = Math.sign(cf);
-  }
-  return changes;
-}
-
 function rootsOnGrid(f: (rate: number) => number): number[] {
   const roots: number[] = [];
   let lo = IRR_GRID[0] ?? IRR_RANGE.lo;
@@ -113,11 +97,11 @@ function rootsOnGrid(f: (rate: number) => number): number[] {
  */
 export function irr(flows: readonly number[]): IrrResult {
   requireFlows(flows);
-  const signChanges = countSignChanges(flows);
-  if (signChanges === 0) return { value: null, reason: 'no-sign-change' };
+  const changes = signChanges(flows);
+  if (changes === 0) return { value: null, reason: 'no-sign-change' };
   const f = (rate: number): number => presentValue(rate, flows);
 
-  if (signChanges === 1) {
+  if (changes === 1) {
     const root = findRoot(f, IRR_RANGE.lo, IRR_RANGE.hi, { tolerance: ROOT_TOLERANCE });
     return root.value === null ? { value: null, reason: 'no-root' } : { value: root.value };
   }
