@@ -73,7 +73,7 @@ export function optionStalls(option: Option, designCows: number): number {
   return option.bed === 'none' ? 0 : stallsFor(designCows, option.stockingRate);
 }
 
-// The float twins give the same cents as depreciation.ts (tests pin them) at a fraction of the cost.
+// The float twins give the same cents as the decimal.js schedules in tests/oracles (tests pin them) at a fraction of the cost.
 function depreciationSchedule(scenario: Scenario): DepreciationSchedule {
   const { depreciation, decliningBalanceFactor } = scenario.finance;
   if (depreciation === 'declining-balance') return (cost, life) => decliningBalanceFast(cost, life, decliningBalanceFactor);
