@@ -1,8 +1,8 @@
 import { readFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import { scenarioSchema, type Scenario } from '../../shared/schema';
-import { evaluateScenario } from '../../shared/engine/evaluate';
-import type { IncrementalResult, OptionResult, ScenarioResults } from '../../shared/engine/results';
+import { evaluateScenario } from '../../shared/engine';
+import type { IncrementalResult, OptionResult, ScenarioResults } from '../../shared/engine';
 import { exportLenderWorkbookFile } from '../workbook/export-file';
 
 /** Exit codes: 0 success, 1 the workbook could not be written, 2 bad usage or bad scenario file. */

@@ -3,8 +3,7 @@
  * discounting and the metrics as live formulas over them and over the named inputs.
  */
 import type ExcelJS from 'exceljs';
-import type { YearLine } from '../../shared/engine/results.js';
-import { resolvedGrowth } from '../../shared/engine/growth.js';
+import { resolvedGrowth, type YearLine } from '../../shared/engine/index.js';
 import { hasYearlyPriceIndex } from './assumptions.js';
 import { INPUT_NAMES as N, MILK_QUALITY_PRICE, defineName, optionName, type OptionLayout, type WorkbookContext } from './context.js';
 import {

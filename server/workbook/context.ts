@@ -1,6 +1,6 @@
 /** What every sheet builder of the lender workbook shares: inputs, formats, sheet names and defined names. */
 import type ExcelJS from 'exceljs';
-import type { OptionResult, ScenarioResults } from '../../shared/engine/results.js';
+import type { OptionResult, ScenarioResults } from '../../shared/engine/index.js';
 import type { Scenario } from '../../shared/schema/index.js';
 import { safeSheetName, type Formats } from './layout.js';
 

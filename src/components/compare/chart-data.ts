@@ -3,9 +3,7 @@
  * capital make-up, the engine's own capital-line costing). Each chart and its "Show as table"
  * view read the same ChartData, so the table is exactly what the chart draws. Pure.
  */
-import { capitalAssets } from '@shared/engine/capital';
-import { cumulative, discount } from '@shared/engine/finance';
-import type { OptionResult, ScenarioResults } from '@shared/engine/results';
+import { capitalAssets, cumulative, discount, type OptionResult, type ScenarioResults } from '@shared/engine';
 import type { Scenario } from '@shared/schema';
 import { optionColour, optionDash } from '@/composables/useOptionColours';
 import { sumCents } from '@/components/results/projection-rows';

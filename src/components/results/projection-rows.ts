@@ -3,7 +3,7 @@
  * subtotals summed in whole cents (so a subtotal equals the sum of the cents shown above it),
  * and the table as CSV. Pure.
  */
-import type { YearLine } from '@shared/engine/results';
+import type { YearLine } from '@shared/engine';
 
 type MoneyKey = {
   [K in keyof YearLine]: YearLine[K] extends number ? K : never;

@@ -3,8 +3,7 @@
  * a metric is not defined. Pure: the numbers come in, the words go out; formatting is passed in
  * so the farm's locale and currency are used.
  */
-import { signChanges } from '@shared/engine/discounting';
-import type { IrrReason, PaybackReason } from '@shared/engine/results';
+import { type IrrReason, type PaybackReason, signChanges } from '@shared/engine';
 
 /** Formatters the readings use: money to the cent, percentages, plain numbers. */
 export interface ReadingFormat {
@@ -21,7 +20,7 @@ export function timesInWords(count: number): string {
 }
 
 /** Sign changes along a cash-flow series, zeros skipped: the engine's own count. */
-export { signChanges as countSignChanges } from '@shared/engine/discounting';
+export { signChanges as countSignChanges } from '@shared/engine';
 
 /**
  * Operating year (1-based) in which a payback of `years` falls: 6.3 → 7, 7 → 7. Cash flows fall
