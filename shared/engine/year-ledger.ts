@@ -3,7 +3,6 @@
  * available for debt service, and (when asked) its milk model for the break-even searches.
  */
 import type { Option, Scenario } from '../schema';
-import { beddingCostPerYear, beddingToStorageM3PerYear, beddingTonnesPerYear } from './bedding';
 import { maintenanceCostPerYear } from './capital';
 import { roundCentsFast } from './cents';
 import { energyCostToday } from './energy';
@@ -11,14 +10,16 @@ import { baseFeedCostPerYear, marginalFeedCostPerYear } from './feed';
 import { resolvedGrowth } from './growth';
 import { cullingCostPerYear, extraCullsPer100Cows, healthCostPerYear } from './health';
 import { herdReplacementCostPerYear, milkingHoursPerYear, otherCowCostsPerYear } from './herd-costs';
-import { bedCareHoursPerYear, beddingTopUpHoursPerYear, grazingHoursPerYear, labourCost, scrapingHoursPerYear, troughHoursPerYear } from './labour';
-import { collectedManurePerYear, creditedNutrients, creditedValue, cropNeedCap, K_TO_K2O, manureHandlingCostPerYear, P_TO_P2O5, scaleManure, storedVolumeM3PerYear } from './manure';
+import { housingWork } from './housing-work';
+import { labourCost } from './labour';
+import { K_TO_K2O, P_TO_P2O5 } from './manure';
 import { openMilkModel, optionYield, type MilkModel } from './milk-model';
+import { optionManure } from './option-manure';
 import type { OptionPlan } from './plan';
 import type { YearLine } from './results';
 import { grownRunningCosts, runningCostsByGrowth, type GrowthFactors } from './running-costs';
 import { emptySettlement, noiseFreeCents, settleYear } from './settle-year';
-import { MILK_DAYS_PER_YEAR, milkSoldKgPerYear } from './yield';
+import { milkSoldKgPerYear } from './yield';
 
 export interface Projection {
   /** Project (unlevered) net cash flow per year, index = year. */
@@ -52,23 +53,14 @@ export function projectOption(
   const H = plan.horizon;
   const milkPrice = herd.milkPricePerKg;
   const response = herd.lyingResponseKgPerHour;
-  const { housedDays, grazingDays, stalls } = plan;
-  const labour = option.labour;
 
   // Price-independent pieces of each line, per cow or per year in today's money.
   const energyToday = energyCostToday(option.energyLines);
   const runningByGrowth = runningCostsByGrowth(option.runningCosts);
   // Maintenance and insurance fall on the new capital and on any existing housing the option keeps using.
   const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate + option.insuranceRate, plan.capitalTotal + option.existingHousingValue);
-  const scrapingHours = scrapingHoursPerYear(labour.scrapingPassesPerDay, labour.minutesPerScrapingPass, housedDays);
-  const bedCareHours = bedCareHoursPerYear(labour.bedCleaningsPerDay, labour.secondsPerStallCleaning, stalls, housedDays);
-  const troughHours = troughHoursPerYear(labour.troughCleaningsPerDay, labour.minutesPerTroughCleaning, option.water.troughs, housedDays);
-  const grazingHours = grazingHoursPerYear(labour.grazingHoursPerGrazingDay, grazingDays);
-  const beddingTonnes = beddingTonnesPerYear(option.bedding.kgPerStallDay, stalls, housedDays);
-  const beddingTopUpHours = beddingTopUpHoursPerYear(beddingTonnes, labour.beddingTonnesPerHour);
-  const beddingToday = beddingCostPerYear(beddingTonnes, option.bedding.pricePerTonne);
-  const beddingStoredM3 = beddingToStorageM3PerYear(beddingTonnes, option.bedding.shareToManureStorage, option.bedding.bulkDensityTonnesPerM3);
-  const labourHoursTotal = scrapingHours + bedCareHours + beddingTopUpHours + troughHours + grazingHours;
+  const work = housingWork(option, plan);
+  const { scrapingHours, bedCareHours, beddingTopUpHours, troughHours, grazingHours, beddingTonnes } = work;
 
   const cashFlows = new Array<number>(H + 1);
   const cashForDebtService = new Array<number>(H + 1).fill(0);
@@ -87,36 +79,11 @@ export function projectOption(
   const yieldLater = optionYield(scenario, option, currentLyingHours, response, 2);
   const milk: MilkModel | null = withMilkModel ? openMilkModel(scenario, option, plan, currentLyingHours) : null;
   const baselineMilkPerCow = milkSoldKgPerYear(1, herd.yieldKgPerCowDay);
-  const feedPerCow = baseFeedCostPerYear(1, housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
+  const feedPerCow = baseFeedCostPerYear(1, plan.housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
   const healthPerCow = healthCostPerYear(1, option.health);
   const cullingPerCow = cullingCostPerYear(extraCullsPer100Cows(option.health), 1, herd.replacementHeiferCost, herd.cullCowValue);
   const herdReplacementPerCow = herdReplacementCostPerYear(herd.replacementRate, 1, herd.replacementHeiferCost, herd.cullCowValue);
-  const manurePerCow = collectedManurePerYear(herd.manureExcretion, 1, housedDays, option.manure.collectionEfficiency);
-  // Dung dropped on grazing days, of which the credited share counts as fertiliser saved.
-  const pasturePerCow = collectedManurePerYear(herd.manureExcretion, 1, grazingDays, option.manure.pastureDungCredit);
-  const nutrientCap = {
-    phosphateKg: cropNeedCap(herd.land.phosphateNeedKgPerHa, herd.land.hectares),
-    potashKg: cropNeedCap(herd.land.potashNeedKgPerHa, herd.land.hectares),
-  };
-  const manureValueToday = (cows: number): number =>
-    creditedValue(
-      creditedNutrients(scaleManure(manurePerCow, cows), scaleManure(pasturePerCow, cows), option.manure.storageNitrogenLoss, herd.nutrientAvailability, nutrientCap),
-      herd.fertiliserPrices,
-    );
-  const storedVolume = (cows: number): number =>
-    storedVolumeM3PerYear({
-      manureKgPerYear: manurePerCow.massKg * cows,
-      manureDensityKgPerM3: herd.manureDensityKgPerM3,
-      washWaterM3PerCowDay: option.manure.washWaterM3PerCowDay,
-      cows,
-      washWaterDays: option.manure.washWaterDiverted ? 0 : MILK_DAYS_PER_YEAR,
-      beddingM3PerYear: beddingStoredM3,
-      openStorageAreaM2: option.manure.openStorageAreaM2,
-      netRainMPerYear: option.manure.netRainMPerYear,
-    });
-  const storedFixedM3 = storedVolume(0);
-  const storedPerCowM3 = storedVolume(1) - storedFixedM3;
-  const handlingPerM3 = manureHandlingCostPerYear(1, option.manure.handlingCostPerM3, option.manure.sandExtraHandlingCostPerM3);
+  const manure = optionManure(herd, option, plan, work.beddingStoredM3);
 
   const settled = emptySettlement();
   // This year's growth factors per price group, updated in place year by year.
@@ -153,7 +120,7 @@ export function projectOption(
     const labourGrazing = round(labourCost(grazingHours, wage, gWage));
     const milkingHours = milkingHoursPerYear(herd.milkingHoursPerCowYear, cows);
     const labourMilking = round(labourCost(milkingHours, wage, gWage));
-    const bedding = round(beddingToday * gBedding);
+    const bedding = round(work.beddingCostToday * gBedding);
     const health = round(healthPerCow * cows * gGeneral);
     const culling = round(cullingPerCow * cows * gGeneral);
     const herdReplacement = round(herdReplacementPerCow * cows * gGeneral);
@@ -167,9 +134,9 @@ export function projectOption(
     factors.fertiliser = gFert;
     factors.general = gGeneral;
     const runningCosts = round(grownRunningCosts(runningByGrowth, factors));
-    const manureValue = round(manureValueToday(cows) * gFert);
-    const storedM3 = storedFixedM3 + storedPerCowM3 * cows;
-    const manureHandling = round(storedM3 * handlingPerM3 * gGeneral);
+    const manureValue = round(manure.valueToday(cows) * gFert);
+    const storedM3 = manure.storedM3(cows);
+    const manureHandling = round(storedM3 * manure.handlingPerM3 * gGeneral);
     const operatingMargin = centsTotal(
       milkIncome + manureValue - feed - labourScraping - labourBedCare - labourBeddingTopUp - labourTroughs - labourGrazing - labourMilking -
         bedding - health - culling - herdReplacement - otherCowCosts - maintenance - energy - runningCosts - manureHandling,
@@ -231,14 +198,14 @@ export function projectOption(
           troughs: troughHours,
           grazing: grazingHours,
           milking: milkingHours,
-          total: labourHoursTotal + milkingHours,
+          total: work.totalHours + milkingHours,
         },
         beddingTonnes: beddingTonnes,
         manure: {
           storedM3,
-          nitrogenKg: manurePerCow.nitrogenKg * cows,
-          phosphateKg: manurePerCow.phosphorusKg * cows * P_TO_P2O5,
-          potashKg: manurePerCow.potassiumKg * cows * K_TO_K2O,
+          nitrogenKg: manure.perCow.nitrogenKg * cows,
+          phosphateKg: manure.perCow.phosphorusKg * cows * P_TO_P2O5,
+          potashKg: manure.perCow.potassiumKg * cows * K_TO_K2O,
         },
       });
     }
