@@ -5,7 +5,7 @@
  */
 
 // Evaluation of a scenario: the full ledger, the fast path and the scenario ready for shocks.
-export { anchoredForShocks, currentOptionOf, evaluateNpvOnly, evaluateScenario, metricsOf, type FastEvaluationOptions } from './evaluate';
+export { anchoredForShocks, currentOptionOf, evaluateNpvOnly, evaluateScenario, type FastEvaluationOptions } from './evaluate';
 export type {
   CoverageYear,
   ExpansionSplit,
