@@ -92,6 +92,10 @@ function formatSummary(scenario: Scenario, results: ScenarioResults): string {
     lines.push(
       `  From operations   ${years(change.paybackFromOperationsYears, change.paybackFromOperationsReason)}${recovered !== null && change.paybackFromOperationsYears === null ? ` (operations recover ${Math.round(recovered * 100)} % of the outlay)` : ''}`,
     );
+    if (change.split) {
+      // The barn as planned with today's herd in it, and what the herd change adds (docs/model.md "Housing and expansion").
+      lines.push(`  Housing, today's herd NPV ${money(change.split.housingTodaysHerd.npv)}; herd change NPV ${money(change.split.expansion.npv)}`);
+    }
     lines.push(coverageLine(option));
     const breakEven = change.breakEvenMilkPrice;
     lines.push(`  Break-even milk price ${breakEven === null ? 'none in range' : `${breakEven.toFixed(3)} ${results.currency} per kg`} (NPV of the change = 0)`);
