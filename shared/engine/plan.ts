@@ -17,21 +17,32 @@ import { taxDepreciation, type DepreciationSchedule, type PurchaseForTax } from 
 
 /** Everything about an option that does not change with prices: herd, sizing, capital, tax depreciation, loan. */
 export interface OptionPlan {
+  /** Operating years H (years). */
   horizon: number;
+  /** Cows per year (head), index = year, [0] = today's herd. */
   cows: number[];
   /** Cows in milk at the herd's yield per year (cow equivalents): newcomers at the first-lactation factor. */
   milkCows: number[];
+  /** The largest herd of the horizon, which sizes stalls and storage (head). */
   designCows: number;
+  /** Stalls built (count). */
   stalls: number;
+  /** Housed and grazing days per year (days/yr). */
   housedDays: number;
   grazingDays: number;
+  /** Manure storage volume sized (m³). */
   storageM3: number;
   assets: CapitalAsset[];
+  /** Capital at year 0 (currency). */
   capitalTotal: number;
+  /** Replacement purchases per year (currency, index = year). */
   replacementsByYear: number[];
+  /** Salvage value at the horizon (currency). */
   salvage: number;
+  /** Tax depreciation per year (currency, index = year) and the tax book value left at H (currency). */
   depreciationByYear: number[];
   taxBookValueAtHorizon: number;
+  /** Grants and equity at year 0 (currency). */
   grants: number;
   equity: number;
   /** Loan principal (currency), interest during construction included when it is capitalised. */
@@ -41,8 +52,11 @@ export interface OptionPlan {
   /** Loan interest and principal per year (currency), index = year, [0] = 0. */
   interestByYear: number[];
   principalByYear: number[];
+  /** Loan balance still owed at H (currency), repaid in year H in the financed view. */
   loanBalanceAtHorizon: number;
+  /** Cows bought (+) or sold (−) per year (currency, index = year; bought at the end of the year before they join). */
   herdPurchasesByYear: number[];
+  /** The herd change valued at cull value at H (currency). */
   herdValueAtHorizon: number;
 }
 
