@@ -145,8 +145,11 @@ function splitRows(context: WorkbookContext): (ComparisonRow | string)[] {
     if (!o.result.incremental?.split) return 'no herd change';
     return value ?? fallback;
   };
+  const { herd } = context.scenario;
+  const costsEntered = herd.otherVariableCostPerCowYear > 0 || herd.milkingHoursPerCowYear > 0 || herd.replacementRate > 0;
+  const title = 'The change in two parts: the housing with today\'s herd, and the expansion (the added cows)';
   return [
-    'The change in two parts: the housing with today\'s herd, and the expansion (the added cows)',
+    costsEntered ? title : `${title} — no cost per cow besides feed is entered, so the expansion part leaves out vet, breeding, milking labour and replacement`,
     { label: "NPV of the housing, today's herd", format: 'money', value: (o) => shown(o, part(o, 'housingTodaysHerd')?.npv, 'n/a') },
     { label: 'NPV of the expansion (the added cows)', format: 'money', value: (o) => shown(o, part(o, 'expansion')?.npv, 'n/a') },
     { label: "IRR of the housing, today's herd", format: 'percent', value: (o) => shown(o, part(o, 'housingTodaysHerd')?.irr, 'not defined') },
