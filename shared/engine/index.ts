@@ -5,9 +5,12 @@
  */
 
 // Evaluation of a scenario: the full ledger, the fast path and the scenario ready for shocks.
-export { anchoredForShocks, currentOptionOf, evaluateNpvOnly, evaluateScenario, type FastEvaluationOptions } from './evaluate';
+export { anchoredForShocks, currentOptionOf, evaluateCore, evaluateNpvOnly, evaluateScenario, evaluateStressYears, type FastEvaluationOptions } from './evaluate';
 export type {
+  CoreOptionResult,
+  CoreScenarioResults,
   CoverageYear,
+  DecisionFigures,
   ExpansionSplit,
   FastOptionResult,
   IncrementalResult,
@@ -22,6 +25,9 @@ export type {
   SizingResult,
   YearLine,
 } from './results';
+
+// The lender's stress table: its shocks and results.
+export { STRESS_TESTS, type StressResult, type StressYears } from './stress';
 
 // Risk: sensitivity and the seeded Monte Carlo.
 export {

@@ -127,9 +127,20 @@ export function npvAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario[
 /**
  * Cash available for debt service per year (currency, index = year, [0] = 0; written into `into`)
  * of an option at another milk price and lying-time response, from its milk model, and the NPV
- * of its project flows (returned; flows[0] = yearZero at t = 0): the stress table and the
- * coverage break-evens.
+ * of its project flows (returned; flows[0] = yearZero at t = 0; each year's flow into `netInto`
+ * when given): the stress table and the coverage break-evens.
  */
-export function cashAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario['finance'], yearZero: number, milkPrice: number, response: number, into: number[]): number {
-  return presentValue(finance.discountRate, flowsAtMilk(model, plan, finance, yearZero, milkPrice, response, into));
+export function cashAtMilk(
+  model: MilkModel,
+  plan: OptionPlan,
+  finance: Scenario['finance'],
+  yearZero: number,
+  milkPrice: number,
+  response: number,
+  into: number[],
+  netInto?: number[],
+): number {
+  const flows = flowsAtMilk(model, plan, finance, yearZero, milkPrice, response, into);
+  if (netInto) flows.forEach((net, t) => (netInto[t] = net));
+  return presentValue(finance.discountRate, flows);
 }
