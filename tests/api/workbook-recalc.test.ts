@@ -356,6 +356,23 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
     expect(indexedIncome).toBeLessThan(plain * 0.85);
     expect(indexedResults.options[2]?.incremental?.split).not.toBeNull();
     checkAllOptions(recalculatedIndexed, indexedResults);
+    // docs/model.md "Housing and expansion": the Comparison sheet carries both parts, which add up to the change.
+    const comparison = recalculatedIndexed.getWorksheet('Comparison');
+    const rowOf = (label: string) => {
+      let found = 0;
+      comparison?.eachRow((row, number) => {
+        if (row.getCell(1).value === label) found = number;
+      });
+      return found;
+    };
+    const housingRow = rowOf("NPV of the housing, today's herd");
+    const expansionRow = rowOf('NPV of the expansion (the added cows)');
+    expect(housingRow).toBeGreaterThan(0);
+    indexedResults.options.forEach((option, index) => {
+      if (!option.incremental?.split || !comparison) return;
+      expectMoney(shown(comparison.getCell(housingRow, index + 2)), option.incremental.split.housingTodaysHerd.npv, `${option.name} housing NPV`);
+      expectMoney(shown(comparison.getCell(expansionRow, index + 2)), option.incremental.split.expansion.npv, `${option.name} expansion NPV`);
+    });
   });
 
   it('writes cached values equal to what LibreOffice recalculates, in every formula cell', () => {
