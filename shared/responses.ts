@@ -3,8 +3,7 @@
  * them). Dates are ISO 8601 strings, as they travel in JSON; `expiresOn` is a YYYY-MM-DD date.
  * `tests/unit/responses.test.ts` checks the server's services return exactly these shapes.
  */
-import type { ScenarioResults } from './engine/results';
-import type { MonteCarloResult } from './engine/risk/monte-carlo';
+import type { MonteCarloResult, ScenarioResults } from './engine';
 import type { Herd, Scenario } from './schema';
 import type { FarmRole } from './schema/accounts';
 import type { ReviewStatusValue } from './schema/lender';

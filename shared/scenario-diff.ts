@@ -51,6 +51,7 @@ const FIELD_KINDS: Readonly<Record<string, FieldKind>> = {
   systemYieldAdjustment: kind('yield'),
   milkPricePerKg: kind('milkPrice'),
   marginalFeedCostPerKgMilk: kind('pricePerKg'),
+  milkQualityPricePerKg: kind('pricePerKg'),
   nitrogenPerKg: kind('pricePerKg'),
   phosphatePerKg: kind('pricePerKg'),
   potashPerKg: kind('pricePerKg'),

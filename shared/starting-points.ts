@@ -1,7 +1,5 @@
 import { LINE_ID_MAX_LENGTH, type CapitalLine, type Herd, type Option, type RunningCostLine, type Source, type StartingPoint } from './schema';
-import { stallsFor } from './engine/sizing';
-import { beddingTonnesPerYear, beddingToStorageM3PerYear } from './engine/bedding';
-import { manureStorageVolumeM3, MIN_TROUGH_PERIMETER_PER_COW_M, STALL_GUIDANCE, type Range } from './engine/sizing';
+import { beddingTonnesPerYear, beddingToStorageM3PerYear, manureStorageVolumeM3, MIN_TROUGH_PERIMETER_PER_COW_M, type Range, STALL_GUIDANCE, stallsFor } from './engine';
 
 // Sources of the defaults. 'reference' names a docs/references.md source, 'common-practice' a trade
 // rule of thumb, 'assumption' an invented planning figure the user should replace.
@@ -393,6 +391,7 @@ export function createOption(startingPoint: StartingPoint, herd: Herd, settings:
     lyingHoursPerDay: defaults.lyingHoursPerDay,
     systemYieldAdjustment: 0,
     stockingRate,
+    milkQualityPricePerKg: 0,
     ...(defaults.bed === 'none' ? {} : { stallDimensions: guidanceStall(herd.breedSize) }),
     feedCostPerCowDay: { ...herd.feedCostPerCowDay },
     health: { ...defaults.health },

@@ -6,7 +6,7 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { herdSchema, scenarioSchema, type Finance, type Herd, type Option, type Scenario, type ScenarioInput, type StartingPoint } from '../../shared/schema';
-import { anchoredForShocks } from '../../shared/engine/evaluate';
+import { anchoredForShocks } from '../../shared/engine';
 import { createOption } from '../../shared/starting-points';
 
 const demoDir = fileURLToPath(new URL('../../scenarios/', import.meta.url));

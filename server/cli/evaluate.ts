@@ -1,8 +1,8 @@
 import { readFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import { scenarioSchema, type Scenario } from '../../shared/schema';
-import { evaluateScenario } from '../../shared/engine/evaluate';
-import type { IncrementalResult, OptionResult, ScenarioResults } from '../../shared/engine/results';
+import { evaluateScenario } from '../../shared/engine';
+import type { IncrementalResult, OptionResult, ScenarioResults } from '../../shared/engine';
 import { exportLenderWorkbookFile } from '../workbook/export-file';
 
 /** Exit codes: 0 success, 1 the workbook could not be written, 2 bad usage or bad scenario file. */
@@ -92,6 +92,10 @@ function formatSummary(scenario: Scenario, results: ScenarioResults): string {
     lines.push(
       `  From operations   ${years(change.paybackFromOperationsYears, change.paybackFromOperationsReason)}${recovered !== null && change.paybackFromOperationsYears === null ? ` (operations recover ${Math.round(recovered * 100)} % of the outlay)` : ''}`,
     );
+    if (change.split) {
+      // The barn as planned with today's herd in it, and what the herd change adds (docs/model.md "Housing and expansion").
+      lines.push(`  Housing, today's herd NPV ${money(change.split.housingTodaysHerd.npv)}; herd change NPV ${money(change.split.expansion.npv)}`);
+    }
     lines.push(coverageLine(option));
     const breakEven = change.breakEvenMilkPrice;
     lines.push(`  Break-even milk price ${breakEven === null ? 'none in range' : `${breakEven.toFixed(3)} ${results.currency} per kg`} (NPV of the change = 0)`);

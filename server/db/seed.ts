@@ -6,7 +6,7 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import bcrypt from 'bcryptjs';
 import { count } from 'drizzle-orm';
-import { evaluateCore } from '../../shared/engine/evaluate.js';
+import { evaluateCore } from '../../shared/engine/index.js';
 import { herdSchema, scenarioSchema } from '../../shared/schema/index.js';
 import { summarise } from '../services/scenarios.js';
 import type { Database } from './client.js';

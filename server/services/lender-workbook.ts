@@ -5,8 +5,7 @@
  * carries figures a browser sent.
  */
 import type ExcelJS from 'exceljs';
-import { runMonteCarlo, type MonteCarloResult } from '../../shared/engine/risk/monte-carlo.js';
-import { sensitivity } from '../../shared/engine/risk/sensitivity.js';
+import { type MonteCarloResult, runMonteCarlo, sensitivity } from '../../shared/engine/index.js';
 import type { Database } from '../db/client.js';
 import { findFarm } from '../db/repositories/farms.js';
 import type { FarmRole } from '../db/schema/index.js';

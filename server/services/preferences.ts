@@ -3,7 +3,7 @@
  * must name an option of the scenario's latest version; a risk result is kept only for the
  * version it was run on, with the hash of its inputs, and reported stale once they change.
  */
-import type { MonteCarloResult } from '../../shared/engine/risk/monte-carlo.js';
+import type { MonteCarloResult } from '../../shared/engine/index.js';
 import type { Decision, PreferencesView, RiskResultView } from '../../shared/responses.js';
 import type { Database } from '../db/client.js';
 import {

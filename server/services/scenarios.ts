@@ -6,8 +6,7 @@
  */
 import type { ScenarioListItem, ScenarioView, VersionComparison, VersionListItem, VersionView } from '../../shared/responses.js';
 import type { z } from 'zod';
-import { evaluateCore, evaluateScenario } from '../../shared/engine/evaluate.js';
-import type { CoreScenarioResults } from '../../shared/engine/results.js';
+import { evaluateCore, evaluateScenario, type CoreScenarioResults } from '../../shared/engine/index.js';
 import { diffScenarios, type Json } from '../../shared/scenario-diff.js';
 import type { createScenarioBodySchema } from '../../shared/scenario-api.js';
 import { DEFAULT_FINANCE, herdSchema, scenarioSchema, type Option, type Scenario, type ScenarioInput, type StartingPoint } from '../../shared/schema/index.js';

@@ -4,7 +4,7 @@
  */
 import type ExcelJS from 'exceljs';
 import { scenarioSchema, type Option, type Source } from '../../shared/schema/index.js';
-import { INPUT_NAMES, defineName, type WorkbookContext } from './context.js';
+import { INPUT_NAMES, MILK_QUALITY_PRICE, defineName, optionName, type WorkbookContext } from './context.js';
 import {
   BASE_FONT,
   COUNT_FORMAT,
@@ -35,6 +35,12 @@ const NAMED_PATHS: Readonly<Record<string, string>> = {
   'herd.existingDebtPaymentsPerYear': INPUT_NAMES.existingDebt,
   'herd.existingCashHerdMarginPerYear': INPUT_NAMES.herdMarginInExistingCash,
 };
+
+/** True when the scenario sets a yearly milk price or feed index: the Assumptions sheet then lists it year by year. */
+export function hasYearlyPriceIndex(scenario: WorkbookContext['scenario']): boolean {
+  const { milkPrice, feed } = scenario.herd.yearlyPriceIndex;
+  return milkPrice !== null || feed !== null;
+}
 
 /** Inputs that only restructure the workbook (rows of the schedule): named but fixed by the export. */
 const STRUCTURAL = new Set(['finance.paymentsPerYear', 'finance.termYears']);
@@ -181,6 +187,9 @@ export function addAssumptionsSheet(context: WorkbookContext): ExcelJS.Worksheet
     styleSection(ws.getCell(r, 1));
     r++;
   };
+  // Each option's milk quality premium is a named input too: its milk price row adds it.
+  const named: Record<string, string> = { ...NAMED_PATHS };
+  for (const layout of context.options) named[`options.${layout.result.id}.milkQualityPricePerKg`] = optionName(layout, MILK_QUALITY_PRICE);
   const write = (rows: InputRow[], sourceOf: (row: InputRow) => string) => {
     for (const input of rows) {
       ws.getCell(r, 1).value = input.label || input.path;
@@ -192,7 +201,7 @@ export function addAssumptionsSheet(context: WorkbookContext): ExcelJS.Worksheet
       ws.getCell(r, 4).value = sourceOf(input);
       ws.getCell(r, 5).value = input.path;
       styleNote(ws.getCell(r, 5));
-      const name = NAMED_PATHS[input.path];
+      const name = named[input.path];
       if (name) {
         defineName(workbook, name, sheetRef(ASSUMPTIONS_SHEET, r, 2));
         styleInput(cell);
@@ -224,6 +233,21 @@ export function addAssumptionsSheet(context: WorkbookContext): ExcelJS.Worksheet
     if (row.path === 'herd.existingCashHerdMarginPerYear' && !herdMarginEntered) return "Not entered: the current option's year-1 cash for debt service as projected";
     return farmFigure();
   });
+  if (hasYearlyPriceIndex(scenario)) {
+    // One row per operating year, so INDEX(MilkPriceIndex, t) is year t's multiplier; years past the list are 1.
+    const { milkPrice, feed } = scenario.herd.yearlyPriceIndex;
+    const yearRows = (label: string, list: readonly number[] | null, path: string): InputRow[] =>
+      Array.from({ length: context.horizon }, (_, i) => ({ path: `${path}[${i}]`, label: `${label}, year ${i + 1}`, unit: 'multiplier', value: list?.[i] ?? 1 }));
+    section('Yearly price index (multipliers on the grown price, 1 = as grown)');
+    const firstMilkRow = r;
+    write(yearRows('Milk price index', milkPrice, 'herd.yearlyPriceIndex.milkPrice'), () => 'Farm figure (1 past the list entered)');
+    defineName(workbook, INPUT_NAMES.milkPriceIndex, sheetRef(ASSUMPTIONS_SHEET, firstMilkRow, 2, r - 1, 2));
+    for (let row = firstMilkRow; row < r; row++) {
+      styleInput(ws.getCell(row, 2));
+      ws.getCell(row, 4).value = `Farm figure (1 past the list entered) — named range ${INPUT_NAMES.milkPriceIndex}`;
+    }
+    write(yearRows('Feed cost index', feed, 'herd.yearlyPriceIndex.feed'), () => 'Farm figure (1 past the list entered); the feed lines are engine values that already carry it');
+  }
   section('Finance, discounting and tax');
   write(flattenInputs(shape.finance as SchemaNode, scenario.finance, 'finance', currency), farmFigure);
   section('Risk settings');

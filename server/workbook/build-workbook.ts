@@ -4,8 +4,7 @@
  */
 import type { Writable } from 'node:stream';
 import ExcelJS from 'exceljs';
-import { resolvedGrowth } from '../../shared/engine/growth.js';
-import type { ScenarioResults } from '../../shared/engine/results.js';
+import { resolvedGrowth, type ScenarioResults } from '../../shared/engine/index.js';
 import type { Scenario } from '../../shared/schema/index.js';
 import { addAssumptionsSheet, ASSUMPTIONS_SHEET } from './assumptions.js';
 import { addCashFlowSheet } from './cash-flows.js';

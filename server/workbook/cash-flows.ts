@@ -3,9 +3,9 @@
  * discounting and the metrics as live formulas over them and over the named inputs.
  */
 import type ExcelJS from 'exceljs';
-import type { YearLine } from '../../shared/engine/results.js';
-import { resolvedGrowth } from '../../shared/engine/growth.js';
-import { INPUT_NAMES as N, defineName, optionName, type OptionLayout, type WorkbookContext } from './context.js';
+import { resolvedGrowth, type YearLine } from '../../shared/engine/index.js';
+import { hasYearlyPriceIndex } from './assumptions.js';
+import { INPUT_NAMES as N, MILK_QUALITY_PRICE, defineName, optionName, type OptionLayout, type WorkbookContext } from './context.js';
 import {
   address,
   BASE_FONT,
@@ -64,9 +64,12 @@ const ROWS: readonly RowSpec[] = [
   { key: 'labourBeddingTopUp', label: 'Labour: bedding top-up', kind: 'value', line: 'labourBeddingTopUp', format: 'money', total: true },
   { key: 'labourTroughs', label: 'Labour: water troughs', kind: 'value', line: 'labourTroughs', format: 'money', total: true },
   { key: 'labourGrazing', label: 'Labour: grazing work', kind: 'value', line: 'labourGrazing', format: 'money', total: true },
+  { key: 'labourMilking', label: 'Labour: milking and cows', kind: 'value', line: 'labourMilking', format: 'money', total: true },
   { key: 'bedding', label: 'Bedding material', kind: 'value', line: 'bedding', format: 'money', total: true },
   { key: 'health', label: 'Health', kind: 'value', line: 'health', format: 'money', total: true },
   { key: 'culling', label: 'Extra culling', kind: 'value', line: 'culling', format: 'money', total: true },
+  { key: 'herdReplacement', label: 'Herd replacement', kind: 'value', line: 'herdReplacement', format: 'money', total: true },
+  { key: 'otherCowCosts', label: 'Other cow costs', kind: 'value', line: 'otherCowCosts', format: 'money', total: true },
   { key: 'maintenance', label: 'Maintenance', kind: 'value', line: 'maintenance', format: 'money', total: true },
   { key: 'energy', label: 'Energy', kind: 'value', line: 'energy', format: 'money', total: true },
   { key: 'runningCosts', label: 'Other running costs', kind: 'value', line: 'runningCosts', format: 'money', total: true },
@@ -132,12 +135,26 @@ export const METRIC_NAME: Readonly<Record<MetricKey, string>> = {
   incrementalIrr: 'IncrementalIRR',
 };
 
-/** Engine milk price per kg in year t: today's price grown year by year, as the projection compounds it. */
-function grownMilkPrice(context: WorkbookContext, t: number): number {
-  let price = context.scenario.herd.milkPricePerKg;
-  const growth = resolvedGrowth(context.scenario.herd.growth).milkPrice;
-  for (let y = 1; y <= t; y++) price *= 1 + growth;
-  return price;
+/**
+ * Engine milk price per kg of an option in year t: today's price plus the option's quality
+ * premium, grown year by year as the projection compounds it, times the year's price index.
+ */
+function grownMilkPrice(context: WorkbookContext, layout: OptionLayout, t: number): number {
+  const { herd } = context.scenario;
+  let grown = 1;
+  const growth = resolvedGrowth(herd.growth).milkPrice;
+  for (let y = 1; y <= t; y++) grown *= 1 + growth;
+  return (herd.milkPricePerKg + qualityPremium(context, layout)) * grown * (herd.yearlyPriceIndex.milkPrice?.[t - 1] ?? 1);
+}
+
+function qualityPremium(context: WorkbookContext, layout: OptionLayout): number {
+  return context.scenario.options.find((option) => option.id === layout.result.id)?.milkQualityPricePerKg ?? 0;
+}
+
+/** The milk price formula of year t: (MilkPrice + Opt_n_MilkQualityPrice) × growth, × INDEX(MilkPriceIndex, t) when an index is set. */
+function milkPriceFormula(context: WorkbookContext, layout: OptionLayout, t: number): string {
+  const index = hasYearlyPriceIndex(context.scenario) ? `*INDEX(${N.milkPriceIndex},${t})` : '';
+  return `(${N.milkPrice}+${optionName(layout, MILK_QUALITY_PRICE)})*(1+${N.milkPriceGrowth})^${t}${index}`;
 }
 
 function sumColumns(r: number, from: number, to: number): string {
@@ -152,7 +169,7 @@ function formulaFor(key: string, t: number, line: YearLine, layout: OptionLayout
   const current = context.current;
   switch (key) {
     case 'milkPrice':
-      return { formula: `${N.milkPrice}*(1+${N.milkPriceGrowth})^${t}`, result: grownMilkPrice(context, t) };
+      return { formula: milkPriceFormula(context, layout, t), result: grownMilkPrice(context, layout, t) };
     case 'milkIncome':
       return { formula: `ROUND(${at('milkKg')}*${at('milkPrice')},2)`, result: line.milkIncome };
     case 'income':

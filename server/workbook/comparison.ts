@@ -65,6 +65,7 @@ export function addComparisonSheet(context: WorkbookContext): ExcelJS.Worksheet 
     { label: 'Share of the outlay operations recover', format: 'percent', value: (o) => na(o, o.result.incremental?.operationsRecoveredShare) },
     { label: 'Break-even milk price (per kg)', format: 'text', value: (o) => (o.result.current ? 'n/a' : (o.result.incremental?.breakEvenMilkPrice ?? 'none in range')) },
     { label: 'Break-even lying-time response (kg/cow/day per h)', format: 'text', value: (o) => (o.result.current ? 'n/a' : (o.result.incremental?.breakEvenLyingResponse ?? (o.result.incremental?.breakEvenLyingResponseReason === 'same-lying-time' ? 'same lying time' : 'none in range'))) },
+    ...splitRows(context),
     'Coverage',
     { label: 'Lowest whole-farm coverage', format: 'coverage', formula: (o) => optionName(o, 'LowestCoverage'), value: (o) => o.result.lowestCoverage?.value ?? '' },
     { label: 'Year of lowest coverage', format: 'count', formula: (o) => optionName(o, 'LowestCoverageYear'), value: (o) => o.result.lowestCoverage?.year ?? '' },
@@ -124,7 +125,7 @@ export function addComparisonSheet(context: WorkbookContext): ExcelJS.Worksheet 
   }
   r++;
   const note = ws.getCell(r, 1);
-  note.value = `Discount rate, interest rate and coverage threshold are the named cells ${N.discountRate}, ${N.interestRate} and ${N.coverageThreshold} on Assumptions; coverage below the threshold is shaded. Break-even figures, the paybacks of the change and project coverage here are Byrecast engine values (root searches and the change's own series); the stress figures are on the Stress sheet. n/a = not defined or not within the horizon; see the option's sheet for the reason.`;
+  note.value = `Discount rate, interest rate and coverage threshold are the named cells ${N.discountRate}, ${N.interestRate} and ${N.coverageThreshold} on Assumptions; coverage below the threshold is shaded. Break-even figures, the paybacks of the change, the split into housing and expansion (the barn as planned in both parts, so stalls built for the added cows sit with the housing) and project coverage here are Byrecast engine values (root searches and the change's own series); the stress figures are on the Stress sheet. n/a = not defined or not within the horizon; see the option's sheet for the reason.`;
   styleNote(note);
 
   ws.getColumn(1).width = 44;
@@ -133,6 +134,31 @@ export function addComparisonSheet(context: WorkbookContext): ExcelJS.Worksheet 
   setupPrint(ws, { lastRow: r, lastColumn: options.length + 1, titleRows: `${headerRow}:${headerRow}` });
   ws.eachRow((row) => row.eachCell((cell) => (cell.font ??= BASE_FONT)));
   return ws;
+}
+
+/**
+ * The change in two parts when an option changes the herd: the housing with today's herd, and
+ * the expansion (what the added cows bring and cost); engine values, the two NPVs add up to the change's.
+ */
+function splitRows(context: WorkbookContext): (ComparisonRow | string)[] {
+  if (!context.options.some((o) => o.result.incremental?.split)) return [];
+  const part = (o: OptionLayout, which: 'housingTodaysHerd' | 'expansion') => o.result.incremental?.split?.[which] ?? null;
+  const shown = (o: OptionLayout, value: number | null | undefined, fallback: string): Cached => {
+    if (o.result.current) return 'n/a';
+    if (!o.result.incremental?.split) return 'no herd change';
+    return value ?? fallback;
+  };
+  const { herd } = context.scenario;
+  const costsEntered = herd.otherVariableCostPerCowYear > 0 || herd.milkingHoursPerCowYear > 0 || herd.replacementRate > 0;
+  const title = 'The change in two parts: the housing with today\'s herd, and the expansion (the added cows)';
+  return [
+    costsEntered ? title : `${title} — no cost per cow besides feed is entered, so the expansion part leaves out vet, breeding, milking labour and replacement`,
+    { label: "NPV of the housing, today's herd", format: 'money', value: (o) => shown(o, part(o, 'housingTodaysHerd')?.npv, 'n/a') },
+    { label: 'NPV of the expansion (the added cows)', format: 'money', value: (o) => shown(o, part(o, 'expansion')?.npv, 'n/a') },
+    { label: "IRR of the housing, today's herd", format: 'percent', value: (o) => shown(o, part(o, 'housingTodaysHerd')?.irr, 'not defined') },
+    { label: 'IRR of the expansion', format: 'percent', value: (o) => shown(o, part(o, 'expansion')?.irr, 'not defined') },
+    { label: 'Payback of the expansion (years)', format: 'years', value: (o) => shown(o, part(o, 'expansion')?.paybackYears, 'not reached') },
+  ];
 }
 
 function formatOf(format: ComparisonRow['format'], context: WorkbookContext): string {

@@ -1,6 +1,6 @@
 /** What every sheet builder of the lender workbook shares: inputs, formats, sheet names and defined names. */
 import type ExcelJS from 'exceljs';
-import type { OptionResult, ScenarioResults } from '../../shared/engine/results.js';
+import type { OptionResult, ScenarioResults } from '../../shared/engine/index.js';
 import type { Scenario } from '../../shared/schema/index.js';
 import { safeSheetName, type Formats } from './layout.js';
 
@@ -35,7 +35,11 @@ export const INPUT_NAMES = {
   existingCash: 'ExistingCashForDebtService',
   existingDebt: 'ExistingDebtPayments',
   herdMarginInExistingCash: 'HerdMarginInExistingCash',
+  milkPriceIndex: 'MilkPriceIndex',
 } as const;
+
+/** Defined-name suffix of each option's milk quality premium or penalty (Opt1_MilkQualityPrice). */
+export const MILK_QUALITY_PRICE = 'MilkQualityPrice';
 
 /** Defined name of one option's key cell or row, e.g. optionName(2, 'NPV') → 'Opt2_NPV'. */
 export function optionName(option: OptionLayout | number, key: string): string {

@@ -5,7 +5,7 @@
  * year t + this loan's P + I), the existing farm's cash moving with the current option's margin.
  */
 import type ExcelJS from 'exceljs';
-import { COVERAGE_TIE } from '../../shared/engine/coverage.js';
+import { COVERAGE_TIE } from '../../shared/engine/index.js';
 import { CASH_FLOW_ROW, yearColumn as cashFlowYearColumn } from './cash-flows.js';
 import { INPUT_NAMES as N, defineName, optionName, type OptionLayout, type WorkbookContext } from './context.js';
 import {

@@ -1,8 +1,5 @@
 /** Everything a lender workbook needs from one scenario, computed and written in one call (the CLI's --xlsx). */
-import { evaluateScenario } from '../../shared/engine/evaluate.js';
-import type { ScenarioResults } from '../../shared/engine/results.js';
-import { runMonteCarlo } from '../../shared/engine/risk/monte-carlo.js';
-import { sensitivity } from '../../shared/engine/risk/sensitivity.js';
+import { evaluateScenario, runMonteCarlo, type ScenarioResults, sensitivity } from '../../shared/engine/index.js';
 import type { Scenario } from '../../shared/schema/index.js';
 import { buildLenderWorkbook, writeWorkbook, type LenderWorkbookInput } from './build-workbook.js';
 

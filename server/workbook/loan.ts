@@ -3,7 +3,7 @@
  * year (sums of the payments), all driven by the named interest rate on Assumptions.
  */
 import type ExcelJS from 'exceljs';
-import type { LoanPayment } from '../../shared/engine/finance.js';
+import type { LoanPayment } from '../../shared/engine/index.js';
 import { INPUT_NAMES as N, defineName, optionName, type OptionLayout, type WorkbookContext } from './context.js';
 import {
   address,

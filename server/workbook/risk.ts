@@ -3,8 +3,7 @@
  * values, not formulas, because each needs the whole model re-run.
  */
 import type ExcelJS from 'exceljs';
-import type { MonteCarloResult } from '../../shared/engine/risk/monte-carlo.js';
-import type { SensitivityResult } from '../../shared/engine/risk/sensitivity.js';
+import type { MonteCarloResult, SensitivityResult } from '../../shared/engine/index.js';
 import { RISK_INPUT_LABELS } from '../../shared/schema/index.js';
 import type { WorkbookContext } from './context.js';
 import { BASE_FONT, freeze, PERCENT_FORMAT, setupPrint, styleHeaderRow, styleNote, styleSection, writeTitle } from './layout.js';

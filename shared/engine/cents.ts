@@ -1,7 +1,7 @@
-// Floating-point twins of the decimal.js ledger functions (money.ts, depreciation.ts,
-// finance.ts loanSchedule) for the fast path and the break-even search: they work in whole
-// cents held in doubles, so they match the decimal ledger to the cent without its cost.
-// Tests pin them to the decimal originals.
+// The ledger's rounding, tax depreciation and loan in whole cents held in doubles: they match the
+// decimal.js references under tests/oracles (toCents, straightLine, decliningBalance,
+// macrsSchedule, loanSchedule) to the cent without their cost, and property tests pin them there.
+// decimal.js itself settles the rare half-cent ties here.
 
 import Decimal from 'decimal.js';
 import { decimalLevelPayment, loanPeriods, type LoanInput, type LoanPayment, type LoanSchedule } from './finance';
@@ -30,7 +30,7 @@ export function wholeCents(amount: number): number {
 const EXACT_BELOW = 2 ** 42;
 const NEAR_HALF_RELATIVE = 2 ** -48;
 
-/** A currency amount rounded to cents (currency), half-up with ties away from zero, in floating point; equals money.ts toCents. */
+/** A currency amount rounded to cents (currency), half-up with ties away from zero, in floating point; equals the decimal.js toCents (tests/oracles/cents.ts). */
 export function roundCentsFast(amount: number): number {
   // The common case inline (this runs for every line of every year of every Monte Carlo draw):
   // below 2³⁶ the product errs by under 0.005 cents, so an amount more than 0.025 cents away
@@ -66,7 +66,7 @@ function isTie(cents: number, window = Math.max(TIE_WINDOW, cents * TIE_RELATIVE
 const currency = (cents: number): Decimal => new Money(cents).div(100);
 const toWholeCents = (amount: Decimal): number => amount.times(100).toNumber();
 
-/** Straight-line depreciation (currency/yr, cents), as depreciation.ts straightLine with no salvage. */
+/** Straight-line depreciation (currency/yr, cents), as the decimal.js straightLine (tests/oracles/depreciation.ts) with no salvage. */
 export function straightLineFast(cost: number, life: number): number[] {
   const base = wholeCents(cost);
   // Whole cents over a whole life: a half cent there is exact in binary too (k + ½ needs only one
@@ -80,7 +80,7 @@ export function straightLineFast(cost: number, life: number): number[] {
 }
 
 /**
- * A US MACRS table's depreciation (currency/yr, cents), as depreciation.ts macrsSchedule: the
+ * A US MACRS table's depreciation (currency/yr, cents), as the decimal.js macrsSchedule (tests/oracles/depreciation.ts): the
  * cost in whole cents × each year's percentage, rounded half-up, the last year taking the rest.
  */
 export function macrsFast(cost: number, percentages: readonly number[]): number[] {
@@ -93,14 +93,14 @@ export function macrsFast(cost: number, percentages: readonly number[]): number[
   });
 }
 
-// depreciation.ts decliningBalance's amount for one year, in decimal.js (tie years only).
+// The decimal.js decliningBalance's amount for one year, in decimal.js (tie years only).
 function ledgerDecliningAmount(book: number, life: number, factor: number, year: number): number {
   const exactBook = currency(book);
   const larger = Money.max(exactBook.times(new Money(factor).div(life)), exactBook.div(life - year + 1));
   return toWholeCents(roundCents(Money.min(larger, exactBook)));
 }
 
-/** Declining balance with a switch to straight line (currency/yr, cents), as depreciation.ts decliningBalance. */
+/** Declining balance with a switch to straight line (currency/yr, cents), as the decimal.js decliningBalance (tests/oracles/depreciation.ts). */
 export function decliningBalanceFast(cost: number, life: number, factor: number): number[] {
   const total = wholeCents(cost);
   const amounts = new Array<number>(life);
@@ -125,7 +125,7 @@ export interface LoanYearsFast {
   closingBalance: number[];
 }
 
-// finance.ts loanSchedule's interest for one period, in decimal.js (tie periods only).
+// The decimal.js loanSchedule's interest for one period, in decimal.js (tie periods only).
 function ledgerInterest(balance: number, annualRate: number, paymentsPerYear: number): number {
   return toWholeCents(roundCents(currency(balance).times(new Money(annualRate).div(paymentsPerYear))));
 }
@@ -134,7 +134,7 @@ function ledgerInterest(balance: number, annualRate: number, paymentsPerYear: nu
 const LEVEL_TIE_RELATIVE = 1e-12;
 const TINY_RATE = 1e-9;
 
-/** finance.ts loanSchedule's level payment (whole cents) on `balance` cents over `periods`. */
+/** The decimal.js loanSchedule's level payment (whole cents) on `balance` cents over `periods`. */
 function levelPaymentCents(balance: number, annualRate: number, paymentsPerYear: number, periods: number): number {
   const rate = annualRate / paymentsPerYear;
   const raw = rate === 0 ? balance / periods : (balance * rate) / -Math.expm1(-periods * Math.log1p(rate));
@@ -212,8 +212,8 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
 }
 
 /**
- * Yearly interest and principal of a level-payment loan (currency, cents), as finance.ts
- * loanSchedule, without the payment table; inputs as the scenario schema allows them.
+ * Yearly interest and principal of a level-payment loan (currency, cents), as loanScheduleFast
+ * gives them, without the payment table; inputs as the scenario schema allows them.
  */
 export function loanYearsFast(principal: number, annualRate: number, years: number, paymentsPerYear: 1 | 2 | 4 | 12, interestOnlyMonths: number): LoanYearsFast {
   const input = { principal, annualRate, years, paymentsPerYear, interestOnlyMonths };
@@ -223,8 +223,8 @@ export function loanYearsFast(principal: number, annualRate: number, years: numb
 }
 
 /**
- * finance.ts loanSchedule computed in whole cents held in doubles (currency, every amount in
- * cents): the same payments, years and totals to the last cent, and the same RangeErrors.
+ * The loan schedule in whole cents held in doubles (currency, every amount in cents), equal to
+ * the decimal.js loanSchedule in tests/oracles/loan-schedule.ts: the same payments, years and totals to the last cent, and the same RangeErrors.
  * Interest-only periods first, the level payment rounded to cents, interest rounded each
  * period half-up, the last payment clearing the balance; decimal.js settles half-cent ties.
  */

@@ -6,9 +6,11 @@ import { coverageInYear, coverageSummary, existingFarmOf, withExistingCashAnchor
 import { operationsPayback } from './operations-payback';
 import { sourcesAndUses } from './sources-and-uses';
 import { stressTables, stressYears, type StressYears } from './stress';
+import { presentValue } from './discounting';
+import { expansionSplitFlows, type SplitSide } from './expansion-split';
 import { capitalRecoveryFactor, discount, mirr, paybackYears } from './finance';
 import { milkingLyingHours, npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
-import type { CoreOptionResult, CoreScenarioResults, CoverageYear, DecisionFigures, FastOptionResult, IncrementalResult, Metrics, ScenarioResults } from './results';
+import type { CoreOptionResult, CoreScenarioResults, CoverageYear, DecisionFigures, ExpansionSplit, FastOptionResult, IncrementalResult, Metrics, ScenarioResults } from './results';
 import { irrFast } from './irr-fast';
 import { findRoot } from './root';
 import { checkStallDimensions, checkWater } from './sizing';
@@ -132,6 +134,17 @@ function breakEvens(scenario: Scenario, option: SearchInput, current: SearchInpu
   };
 }
 
+/** The change's split into housing with today's herd and the expansion, with metrics on each part. */
+function splitMetrics(scenario: Scenario, option: SplitSide, current: SplitSide, currentLyingHours: number): ExpansionSplit | null {
+  const flows = expansionSplitFlows(scenario, option, current, currentLyingHours);
+  if (!flows) return null;
+  const { discountRate, interestRate } = scenario.finance;
+  return {
+    housingTodaysHerd: metricsOf(flows.housingTodaysHerd, discountRate, interestRate, 'incremental'),
+    expansion: metricsOf(flows.expansion, discountRate, interestRate, 'incremental'),
+  };
+}
+
 /** What the decision figures re-use from an evaluation: the anchored farm, each option's plan and milk model. */
 interface Evaluated {
   results: CoreScenarioResults;
@@ -204,6 +217,7 @@ function evaluateParts(scenario: Scenario): Evaluated {
         ...metricsOf(flows, discountRate, interestRate, 'incremental'),
         ...operationsPayback(lines, baseLines),
         ...breakEvens(scenario, search, base.search, sameLyingTime),
+        split: splitMetrics(scenario, { option, plan, cashFlows: projection.cashFlows }, { option: current, plan: base.plan, cashFlows: base.projection.cashFlows }, currentLying),
       };
     }
     return result;
@@ -292,17 +306,6 @@ export interface FastEvaluationOptions {
   irrStart?: readonly (number | null)[];
 }
 
-function npvFast(rate: number, flows: readonly number[]): number {
-  const factor = 1 / (1 + rate);
-  let discount = 1;
-  let total = 0;
-  for (let t = 0; t < flows.length; t++) {
-    total += (flows[t] ?? 0) * discount;
-    discount *= factor;
-  }
-  return total;
-}
-
 /**
  * Fast path for Monte Carlo and sensitivity: NPV, incremental NPV against the current option,
  * IRR and lowest coverage per option, in floating point without decimal.js or yearly detail.
@@ -318,12 +321,12 @@ export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOpti
   });
   const base = runs.find((run) => run.option === current) ?? runs[0];
   if (!base) return [];
-  const baseNpv = npvFast(discountRate, base.projection.cashFlows);
+  const baseNpv = presentValue(discountRate, base.projection.cashFlows);
   const farm = existingFarmOf(scenario, base.projection.cashForDebtService);
   return runs.map(({ option, plan, projection }, index) => {
     const isCurrent = option === current;
     const flows = projection.cashFlows;
-    const optionNpv = npvFast(discountRate, flows);
+    const optionNpv = presentValue(discountRate, flows);
     const sides: CoverageSides = { ownCash: projection.cashForDebtService, ownPlan: plan, currentCash: base.projection.cashForDebtService, currentPlan: base.plan, isCurrent };
     const { minCoverage, minProjectCoverage, yearsBelowThreshold } = coverageSummary(farm, sides, plan.horizon, scenario.finance.coverageThreshold);
     let incrementalIrr: number | null = null;

@@ -5,8 +5,8 @@ import {
   requireNonNegative,
   requirePositiveInteger,
   requireRate,
-  roundCents,
 } from './money';
+import { presentValue, presentValues, signChanges } from './discounting';
 import { findRoot } from './root';
 
 // Conventions: rates are decimal fractions per period (0.08 = 8 %); flows[t] falls at the end of
@@ -25,7 +25,7 @@ function requireNonEmptyFlows(flows: readonly number[]): void {
 export function discount(rate: number, flows: readonly number[]): number[] {
   requireRate('rate', rate);
   requireFlows(flows);
-  return flows.map((cf, t) => cf / (1 + rate) ** t);
+  return presentValues(rate, flows);
 }
 
 /** Running totals: element t is flows[0] + … + flows[t], same currency as the flows. */
@@ -33,12 +33,6 @@ export function cumulative(flows: readonly number[]): number[] {
   requireFlows(flows);
   let sum = 0;
   return flows.map((cf) => (sum += cf));
-}
-
-function presentValue(rate: number, flows: readonly number[]): number {
-  let total = 0;
-  for (let t = 0; t < flows.length; t++) total += (flows[t] ?? 0) / (1 + rate) ** t;
-  return total;
 }
 
 /** Net present value Σ flows[t] / (1 + rate)^t with flows[0] at t = 0, undiscounted (numpy / `financial` convention). */
@@ -75,17 +69,6 @@ const IRR_GRID: readonly number[] = (() => {
 const ROOT_TOLERANCE = 1e-12;
 const SAME_ROOT = 1e-9;
 
-function countSignChanges(flows: readonly number[]): number {
-  let changes = 0;
-  let previous = 0;
-  for (const cf of flows) {
-    if (cf === 0) continue;
-    if (previous !== 0 && Math.sign(cf) !== previous) changes++;
-    previous = Math.sign(cf);
-  }
-  return changes;
-}
-
 function rootsOnGrid(f: (rate: number) => number): number[] {
   const roots: number[] = [];
   let lo = IRR_GRID[0] ?? IRR_RANGE.lo;
@@ -113,11 +96,11 @@ function rootsOnGrid(f: (rate: number) => number): number[] {
  */
 export function irr(flows: readonly number[]): IrrResult {
   requireFlows(flows);
-  const signChanges = countSignChanges(flows);
-  if (signChanges === 0) return { value: null, reason: 'no-sign-change' };
+  const changes = signChanges(flows);
+  if (changes === 0) return { value: null, reason: 'no-sign-change' };
   const f = (rate: number): number => presentValue(rate, flows);
 
-  if (signChanges === 1) {
+  if (changes === 1) {
     const root = findRoot(f, IRR_RANGE.lo, IRR_RANGE.hi, { tolerance: ROOT_TOLERANCE });
     return root.value === null ? { value: null, reason: 'no-root' } : { value: root.value };
   }
@@ -292,73 +275,4 @@ export function loanPeriods(input: LoanInput): { totalPeriods: number; interestO
 export function decimalLevelPayment(principal: Decimal, rate: Decimal, periods: number): Decimal {
   if (rate.isZero()) return principal.div(periods);
   return principal.times(rate).div(new Money(1).minus(rate.plus(1).pow(-periods)));
-}
-
-/**
- * Loan schedule in currency units, every amount in exact cents (decimal.js, half-up; the
- * principal itself is first rounded to cents).
- * Interest-only periods (ceil(months × paymentsPerYear / 12)) pay interest and no principal;
- * the rest pay the level payment for the remaining periods rounded to cents, with interest
- * rounded to cents each period; the last payment absorbs rounding so principal repaid equals
- * the loan exactly and the closing balance is 0.00. Payments fall at the end of each period.
- */
-export function loanSchedule(input: LoanInput): LoanSchedule {
-  const { principal, annualRate, paymentsPerYear } = input;
-  const { totalPeriods, interestOnlyPeriods } = loanPeriods(input);
-
-  let balance = roundCents(principal);
-  if (balance.isZero()) return { payments: [], years: [], totalInterest: 0, totalPrincipal: 0 };
-
-  const rate = new Money(annualRate).div(paymentsPerYear);
-  const loan = balance;
-  const level = roundCents(decimalLevelPayment(balance, rate, totalPeriods - interestOnlyPeriods));
-  const payments: LoanPayment[] = [];
-  const yearly: LoanYear[] = [];
-  let totalInterest = new Money(0);
-  let yearPayment = new Money(0);
-  let yearInterest = new Money(0);
-  let yearPrincipal = new Money(0);
-
-  for (let number = 1; number <= totalPeriods; number++) {
-    const interest = roundCents(balance.times(rate));
-    let repaid: Decimal;
-    if (number <= interestOnlyPeriods) repaid = new Money(0);
-    else if (number === totalPeriods) repaid = balance;
-    // A rounded-up level payment on a tiny loan could overpay before the last period.
-    else repaid = Money.min(level.minus(interest), balance);
-    const payment = interest.plus(repaid);
-    balance = balance.minus(repaid);
-    totalInterest = totalInterest.plus(interest);
-    yearPayment = yearPayment.plus(payment);
-    yearInterest = yearInterest.plus(interest);
-    yearPrincipal = yearPrincipal.plus(repaid);
-    const year = Math.ceil(number / paymentsPerYear);
-    payments.push({
-      number,
-      year,
-      payment: payment.toNumber(),
-      interest: interest.toNumber(),
-      principal: repaid.toNumber(),
-      balance: balance.toNumber(),
-    });
-    if (number % paymentsPerYear === 0) {
-      yearly.push({
-        year,
-        payment: yearPayment.toNumber(),
-        interest: yearInterest.toNumber(),
-        principal: yearPrincipal.toNumber(),
-        closingBalance: balance.toNumber(),
-      });
-      yearPayment = new Money(0);
-      yearInterest = new Money(0);
-      yearPrincipal = new Money(0);
-    }
-  }
-
-  return {
-    payments,
-    years: yearly,
-    totalInterest: totalInterest.toNumber(),
-    totalPrincipal: loan.toNumber(),
-  };
 }

@@ -1,16 +1,5 @@
+import { signChanges } from './discounting';
 import { IRR_RANGE, irr, type IrrResult } from './finance';
-
-function signChanges(flows: readonly number[]): number {
-  let changes = 0;
-  let previous = 0;
-  for (const cf of flows) {
-    if (cf === 0) continue;
-    const sign = cf > 0 ? 1 : -1;
-    if (previous !== 0 && sign !== previous) changes++;
-    previous = sign;
-  }
-  return changes;
-}
 
 // NPV at rate r and its derivative d/dr, flows[0] at t = 0.
 function npvAndSlope(flows: readonly number[], rate: number): [number, number] {
@@ -29,18 +18,11 @@ function npvAndSlope(flows: readonly number[], rate: number): [number, number] {
 
 /** Sign changes of the running sums of the flows, from the first flow onwards or from the last one backwards. */
 function runningSumSignChanges(flows: readonly number[], fromEnd: boolean): number {
-  let changes = 0;
-  let previous = 0;
-  let sum = 0;
   const n = flows.length;
-  for (let i = 0; i < n; i++) {
-    sum += flows[fromEnd ? n - 1 - i : i] ?? 0;
-    if (sum === 0) continue;
-    const sign = sum > 0 ? 1 : -1;
-    if (previous !== 0 && sign !== previous) changes++;
-    previous = sign;
-  }
-  return changes;
+  const sums = new Array<number>(n);
+  let sum = 0;
+  for (let i = 0; i < n; i++) sums[i] = sum += flows[fromEnd ? n - 1 - i : i] ?? 0;
+  return signChanges(sums);
 }
 
 /**

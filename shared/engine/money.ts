@@ -14,16 +14,6 @@ export function roundCents(amount: Decimal.Value): Decimal {
   return new Money(amount).toDecimalPlaces(2, Decimal.ROUND_HALF_UP);
 }
 
-/**
- * Rounds a currency amount to cents, half-up (ties away from zero), and returns a JS number.
- * The number is read through its shortest decimal form, so 1.005 rounds to 1.01 (where
- * `Math.round(1.005 * 100) / 100` gives 1.00 because of binary floating point).
- */
-export function toCents(x: number): number {
-  requireFinite('x', x);
-  return roundCents(x).toNumber();
-}
-
 /** Throws a RangeError naming `field` unless `value` is a finite number. */
 export function requireFinite(field: string, value: number): void {
   if (!Number.isFinite(value)) {

@@ -11,6 +11,8 @@ export interface LabourHours {
   beddingTopUp: number;
   troughs: number;
   grazing: number;
+  /** Milking and cow handling: hours per cow-year × cows. */
+  milking: number;
   total: number;
 }
 
@@ -42,9 +44,15 @@ export interface YearLine {
   labourBeddingTopUp: number;
   labourTroughs: number;
   labourGrazing: number;
+  /** Milking and cow handling labour (hours per cow-year × cows × wage). */
+  labourMilking: number;
   bedding: number;
   health: number;
   culling: number;
+  /** The herd's own replacement: replacement rate × cows × (heifer cost − cull value). */
+  herdReplacement: number;
+  /** Other variable costs per cow-year × cows (vet, breeding, parlour supplies…). */
+  otherCowCosts: number;
   maintenance: number;
   energy: number;
   runningCosts: number;
@@ -104,6 +112,15 @@ export interface Metrics {
   profitabilityIndex: number | null;
 }
 
+/**
+ * The change split into the housing with today's herd and the expansion (the added cows), each
+ * with the metrics of its own series; the two series add up to the change year by year.
+ */
+export interface ExpansionSplit {
+  housingTodaysHerd: Metrics;
+  expansion: Metrics;
+}
+
 export interface IncrementalResult extends Metrics {
   /** Payback of the change from operations alone: without the year-H salvage and herd value (years); null with a reason. */
   paybackFromOperationsYears: number | null;
@@ -114,6 +131,8 @@ export interface IncrementalResult extends Metrics {
   breakEvenMilkPriceReason?: 'none-in-range';
   breakEvenLyingResponse: number | null;
   breakEvenLyingResponseReason?: 'none-in-range' | 'same-lying-time';
+  /** The change as housing with today's herd + expansion; null when no option here changes the herd. */
+  split: ExpansionSplit | null;
 }
 
 export interface SizingResult {

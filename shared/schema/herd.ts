@@ -115,6 +115,20 @@ export const herdSchema = z
       })
       .prefault({})
       .describe('Multipliers on the grown milk price and feed costs per operating year, e.g. a two-year trough; empty = 1 every year'),
+    otherVariableCostPerCowYear: money(
+      'Other cow costs',
+      'Other costs that come with every cow: vet, breeding, parlour supplies, milk recording, levies (currency per cow per year)',
+      0,
+      1e6,
+    ).default(0),
+    milkingHoursPerCowYear: quantity('Milking labour', 'h/cow/yr', 0, 200, 'Milking and cow handling labour (hours per cow per year); 0 = not counted').default(0),
+    replacementRate: rate('Replacement rate', 0, 0.6, 'Share of the cows replaced each year at the heifer cost less the cull value (fraction per year); 0 = not counted').default(0),
+    firstLactationYieldFactor: rate(
+      'First-lactation yield',
+      0.4,
+      1,
+      "Milk of an added cow in the year she joins as a share of the herd's yield (fraction); 1 = as the herd",
+    ).default(1),
     replacementHeiferCost: money('Replacement heifer cost', 'Cost of a replacement heifer or bought cow today (currency per head)', 0, 1e6),
     cullCowValue: money('Cull cow value', 'Sale value of a cull cow today (currency per head)', 0, 1e6),
     existingCashForDebtServicePerYear: money('Existing farm cash for debt service', 'Cash the farm has for debt service today, before the new loan (currency per year)', -1e10, 1e10).default(0),

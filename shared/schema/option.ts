@@ -220,6 +220,12 @@ export const optionSchema = z
     systemYieldAdjustment: quantity('System yield adjustment', 'kg/cow/day', -30, 30, 'Yield change beyond the lying-time effect (kg per cow per day)'),
     stockingRate: quantity('Stocking rate', 'cows per stall', 0.5, 2, 'Cows per stall (1 = one stall per cow)'),
     stallDimensions: stallDimensionsSchema.optional(),
+    milkQualityPricePerKg: money(
+      'Milk quality premium or penalty',
+      "Change in the milk price that this option's bulk-tank somatic cell count earns, + premium, − penalty; grows with the milk price (currency per kg)",
+      -100,
+      100,
+    ).default(0),
     feedCostPerCowDay: z
       .object({
         housed: money('Housed feed cost', 'Feed cost per cow per housed day today (currency per cow-day)', 0, 100000),

@@ -1,26 +1,8 @@
 import { z } from 'zod';
 import { flag, quantity } from './fields';
+import { riskInputKeys, type RiskInputKey } from './risk-keys';
 
-/** The inputs a sensitivity range or a Monte Carlo distribution can move. */
-export const riskInputKeys = [
-  'milkPrice',
-  'yieldResponse',
-  'capitalCost',
-  'interestRate',
-  'wage',
-  'beddingPrice',
-  'fertiliserPrice',
-  'herdSize',
-  'housedFeedCost',
-  'grazingFeedCost',
-  'marginalFeedCost',
-  'systemYield',
-  'healthCostPerCase',
-  'manureHandlingCost',
-  'milkFeedGrowthGap',
-  'lyingHours',
-] as const;
-export type RiskInputKey = (typeof riskInputKeys)[number];
+export { riskInputKeys, type RiskInputKey };
 
 /** Plain names of the risk inputs, for charts, tables, pickers and the workbook. */
 export const RISK_INPUT_LABELS: Readonly<Record<RiskInputKey, string>> = {

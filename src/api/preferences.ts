@@ -1,5 +1,5 @@
 /** Preferences, decisions and the saved Monte Carlo result of a scenario. */
-import type { MonteCarloResult } from '@shared/engine/risk/monte-carlo';
+import type { MonteCarloResult } from '@shared/engine';
 import type { Decision, Preference, PreferencesView, RiskResultView } from '@shared/responses';
 import { http } from './client';
 

@@ -3,7 +3,7 @@
  * again for the card): the chance the change loses money against the current option, or why
  * there is no such figure.
  */
-import type { MonteCarloResult } from '@shared/engine/risk/monte-carlo';
+import type { MonteCarloResult } from '@shared/engine';
 
 export type CardRisk =
   | { state: 'kept'; chance: number | null; draws: number }

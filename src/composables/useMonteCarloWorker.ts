@@ -3,7 +3,7 @@
  * ended when the component goes; messages of an earlier run are ignored once a new one starts.
  */
 import { onScopeDispose, readonly, ref, shallowRef } from 'vue';
-import type { MonteCarloResult, MonteCarloSettings } from '@shared/engine/risk/monte-carlo';
+import type { MonteCarloResult, MonteCarloSettings } from '@shared/engine';
 import type { Scenario } from '@shared/schema';
 import type { MonteCarloWorkerMessage, MonteCarloWorkerRequest } from '@/workers/monte-carlo-protocol';
 

@@ -5,7 +5,7 @@
 import { defineStore } from 'pinia';
 import { readonly, ref } from 'vue';
 import { ApiError } from '@/api/client';
-import type { MonteCarloResult } from '@shared/engine/risk/monte-carlo';
+import type { MonteCarloResult } from '@shared/engine';
 import { preferencesApi, type PreferencesView, type SavedRiskResult } from '@/api/preferences';
 
 export const usePreferencesStore = defineStore('preferences', () => {

@@ -6,8 +6,7 @@
 import { defineStore } from 'pinia';
 import { computed, readonly, ref, shallowRef, watch } from 'vue';
 import { scenarioSchema, type Option, type Scenario, type StartingPoint } from '@shared/schema';
-import { evaluateScenario } from '@shared/engine/evaluate';
-import type { ScenarioResults } from '@shared/engine/results';
+import { evaluateScenario, type ScenarioResults } from '@shared/engine';
 import { createOption, STARTING_POINT_NAMES, withOptionId } from '@shared/starting-points';
 import { ApiError } from '@/api/client';
 import { scenariosApi, type ScenarioMeta, type VersionConflict } from '@/api/scenarios';

@@ -1,5 +1,5 @@
 /** Messages between the page and the Monte Carlo worker; every message carries the run it belongs to. */
-import type { MonteCarloResult, MonteCarloSettings } from '@shared/engine/risk/monte-carlo';
+import type { MonteCarloResult, MonteCarloSettings } from '@shared/engine';
 import type { Scenario } from '@shared/schema';
 
 export type MonteCarloWorkerRequest =

@@ -4,7 +4,7 @@
  * progress message, then a macrotask break so a 'cancel' message is read between slices. The
  * result is the core's own, so the same seed gives the same numbers here as on the server.
  */
-import { createMonteCarloRun, type MonteCarloRun } from '@shared/engine/risk/monte-carlo';
+import { createMonteCarloRun, type MonteCarloRun } from '@shared/engine';
 import type { MonteCarloWorkerRequest, MonteCarloWorkerMessage } from './monte-carlo-protocol';
 
 declare const self: DedicatedWorkerGlobalScope;

@@ -202,6 +202,26 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
   const levelScenario = demoScenario('cairnbrook-mattress-or-sand');
   const levelResults = evaluateScenario(levelScenario);
   let recalculatedLevel: ExcelJS.Workbook;
+  // The first demo with a two-year milk price trough and a feed spike (the yearly price index),
+  // herd costs per cow-year, a milk quality premium on one option and 20 added cows on another.
+  const indexedScenario = scenarioSchema.parse({
+    ...scenario,
+    herd: {
+      ...scenario.herd,
+      yearlyPriceIndex: { milkPrice: [0.82, 0.9, 1], feed: [1.12, 1.05] },
+      otherVariableCostPerCowYear: 180,
+      milkingHoursPerCowYear: 9,
+      replacementRate: 0.28,
+      firstLactationYieldFactor: 0.82,
+    },
+    options: scenario.options.map((option, index) => {
+      if (index === 1) return { ...option, milkQualityPricePerKg: 0.006 };
+      if (index === 2) return { ...option, herdChange: { ...option.herdChange, addedCows: 20 } };
+      return option;
+    }),
+  });
+  const indexedResults = evaluateScenario(indexedScenario);
+  let recalculatedIndexed: ExcelJS.Workbook;
 
   beforeAll(async () => {
     const workbook = await buildLenderWorkbook({
@@ -236,9 +256,21 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
     const levelPath = join(dir, 'level.xlsx');
     await level.xlsx.writeFile(levelPath);
 
+    const indexed = await buildLenderWorkbook({
+      scenario: indexedScenario,
+      results: indexedResults,
+      farm: { name: 'Cairnbrook Farm', location: 'Lower Tessly (invented)' },
+      version: 'Version 2',
+      preparedBy: 'Selka Dunmore',
+      created: CREATED,
+    });
+    const indexedPath = join(dir, 'indexed.xlsx');
+    await indexed.xlsx.writeFile(indexedPath);
+
     written = new ExcelJS.Workbook();
     await written.xlsx.readFile(original);
-    [recalculated, recalculatedWithNewRates, recalculatedLevel] = (await recalculateWithLibreOffice([original, editedPath, levelPath], dir)) as [
+    [recalculated, recalculatedWithNewRates, recalculatedLevel, recalculatedIndexed] = (await recalculateWithLibreOffice([original, editedPath, levelPath, indexedPath], dir)) as [
+      ExcelJS.Workbook,
       ExcelJS.Workbook,
       ExcelJS.Workbook,
       ExcelJS.Workbook,
@@ -311,6 +343,36 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
     // The tie rule itself (equal lows to 1e-9 go to the earliest year) is checked on noisy ratios
     // in tests/unit/engine/model-tax.test.ts; here LibreOffice must land on the engine's year.
     checkAllOptions(recalculatedLevel, levelResults);
+  });
+
+  it('follows the yearly price index, the milk quality premium and the herd costs as the app does', () => {
+    // docs/model.md "Yearly price index": year t's milk price is today's × growth × entry [t − 1], 1 past the list.
+    const index = named(recalculatedIndexed, INPUT_NAMES.milkPriceIndex);
+    expect(index).toHaveLength(indexedResults.horizonYears);
+    expect(index.slice(0, 4)).toEqual([0.82, 0.9, 1, 1]);
+    // The index and the premium move milk income: the workbook must not be reading the plain grown price.
+    const plain = results.options[1]?.years[1]?.milkIncome ?? 0;
+    const indexedIncome = indexedResults.options[1]?.years[1]?.milkIncome ?? 0;
+    expect(indexedIncome).toBeLessThan(plain * 0.85);
+    expect(indexedResults.options[2]?.incremental?.split).not.toBeNull();
+    checkAllOptions(recalculatedIndexed, indexedResults);
+    // docs/model.md "Housing and expansion": the Comparison sheet carries both parts, which add up to the change.
+    const comparison = recalculatedIndexed.getWorksheet('Comparison');
+    const rowOf = (label: string) => {
+      let found = 0;
+      comparison?.eachRow((row, number) => {
+        if (row.getCell(1).value === label) found = number;
+      });
+      return found;
+    };
+    const housingRow = rowOf("NPV of the housing, today's herd");
+    const expansionRow = rowOf('NPV of the expansion (the added cows)');
+    expect(housingRow).toBeGreaterThan(0);
+    indexedResults.options.forEach((option, index) => {
+      if (!option.incremental?.split || !comparison) return;
+      expectMoney(shown(comparison.getCell(housingRow, index + 2)), option.incremental.split.housingTodaysHerd.npv, `${option.name} housing NPV`);
+      expectMoney(shown(comparison.getCell(expansionRow, index + 2)), option.incremental.split.expansion.npv, `${option.name} expansion NPV`);
+    });
   });
 
   it('writes cached values equal to what LibreOffice recalculates, in every formula cell', () => {

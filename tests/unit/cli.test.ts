@@ -65,6 +65,19 @@ describe('npm run evaluate', { timeout: 60_000, concurrent: true }, () => {
     expect(stdout.indexOf("Whole herd's margin")).toBeGreaterThan(first);
   });
 
+  it('splits the change into housing with today’s herd and the herd change when an option adds cows', async () => {
+    const input = riskScenarioInput();
+    const sand = input.options.find((option) => option.id === 'sand');
+    if (sand) sand.herdChange = { addedCows: 25 };
+    const { code, stdout } = await runCli(writeScenario('expanding.json', input));
+    expect(code).toBe(0);
+    // docs/model.md "Housing and expansion": only the option that changes the herd gets the split.
+    const lines = stdout.match(/Housing, today's herd NPV -?€[\d,.]+; herd change NPV -?€[\d,.]+/g) ?? [];
+    expect(lines).toHaveLength(1);
+    const sandBlock = stdout.slice(stdout.indexOf(`${sand?.name ?? ''} — the change`));
+    expect(sandBlock.indexOf("Housing, today's herd")).toBeLessThan(sandBlock.indexOf('Lowest coverage'));
+  });
+
   it('refuses an invalid scenario with exit code 2 and one line per bad field', async () => {
     // docs/model.md, Validation: a negative herd, a 300 % interest rate and a horizon of 0 are refused
     // with a message naming the field.

@@ -1,4 +1,5 @@
-import { riskInputKeys, type RiskInputKey, type RiskSettings, type Scenario } from '../../schema';
+import type { RiskSettings, Scenario } from '../../schema';
+import { riskInputKeys, type RiskInputKey } from '../../schema/risk-keys';
 import { anchoredForShocks, evaluateNpvOnly } from '../evaluate';
 import type { FastOptionResult } from '../results';
 import { perturb } from './perturb';

@@ -3,9 +3,7 @@
  * capital make-up, the engine's own capital-line costing). Each chart and its "Show as table"
  * view read the same ChartData, so the table is exactly what the chart draws. Pure.
  */
-import { capitalAssets } from '@shared/engine/capital';
-import { cumulative, discount } from '@shared/engine/finance';
-import type { OptionResult, ScenarioResults } from '@shared/engine/results';
+import { capitalAssets, cumulative, discount, type OptionResult, type ScenarioResults } from '@shared/engine';
 import type { Scenario } from '@shared/schema';
 import { optionColour, optionDash } from '@/composables/useOptionColours';
 import { sumCents } from '@/components/results/projection-rows';
@@ -102,9 +100,10 @@ export function capitalMakeUpChart(scenario: Scenario, results: ScenarioResults)
 
 const RUNNING_GROUPS: { label: string; keys: (keyof OptionResult['years'][number])[] }[] = [
   { label: 'Feed', keys: ['feed'] },
-  { label: 'Labour', keys: ['labourScraping', 'labourBedCare', 'labourBeddingTopUp', 'labourTroughs', 'labourGrazing'] },
+  { label: 'Labour', keys: ['labourScraping', 'labourBedCare', 'labourBeddingTopUp', 'labourTroughs', 'labourGrazing', 'labourMilking'] },
   { label: 'Bedding material', keys: ['bedding'] },
-  { label: 'Health and culling', keys: ['health', 'culling'] },
+  { label: 'Health, culling and replacement', keys: ['health', 'culling', 'herdReplacement'] },
+  { label: 'Other cow costs', keys: ['otherCowCosts'] },
   { label: 'Maintenance', keys: ['maintenance'] },
   { label: 'Energy', keys: ['energy'] },
   { label: 'Manure handling', keys: ['manureHandling'] },

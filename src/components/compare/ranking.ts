@@ -3,7 +3,7 @@
  * OptionResult values as they are; a measure an option lacks (null) ranks after every option
  * that has it, ties keep the scenario's option order.
  */
-import type { OptionResult } from '@shared/engine/results';
+import type { OptionResult } from '@shared/engine';
 
 export type MeasureKind = 'money' | 'percent' | 'years' | 'ratio' | 'hours' | 'tonnes';
 

@@ -1,6 +1,6 @@
 /** What a lender's note can point at in a shared scenario: each option and its lines, by name. Pure. */
 import type { Scenario } from '@shared/schema';
-import type { OptionResult } from '@shared/engine/results';
+import type { OptionResult } from '@shared/engine';
 import { projectionRows } from '@/components/results/projection-rows';
 
 export interface NoteTarget {

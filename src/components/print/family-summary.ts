@@ -3,8 +3,7 @@
  * the current option, what that means day to day, and the assumptions that drive the answer with
  * their break-evens. Pure: reads the engine's results and the sensitivity as they are.
  */
-import type { OptionResult, ScenarioResults } from '@shared/engine/results';
-import type { SensitivityResult } from '@shared/engine/risk/sensitivity';
+import type { OptionResult, ScenarioResults, SensitivityResult } from '@shared/engine';
 import type { Scenario } from '@shared/schema';
 import type { ReadingFormat } from '@/components/results/readings';
 import { RISK_INPUT_LABELS } from '@/components/risk/risk-labels';

@@ -3,7 +3,7 @@
  * subtotals summed in whole cents (so a subtotal equals the sum of the cents shown above it),
  * and the table as CSV. Pure.
  */
-import type { YearLine } from '@shared/engine/results';
+import type { YearLine } from '@shared/engine';
 
 type MoneyKey = {
   [K in keyof YearLine]: YearLine[K] extends number ? K : never;
@@ -39,6 +39,7 @@ const LABOUR: LineSpec[] = [
   { key: 'labourBeddingTopUp', label: 'Labour: bedding top-up' },
   { key: 'labourTroughs', label: 'Labour: water troughs' },
   { key: 'labourGrazing', label: 'Labour: grazing work' },
+  { key: 'labourMilking', label: 'Labour: milking and cows' },
 ];
 
 const OTHER_COSTS: LineSpec[] = [
@@ -46,6 +47,8 @@ const OTHER_COSTS: LineSpec[] = [
   { key: 'bedding', label: 'Bedding material' },
   { key: 'health', label: 'Health' },
   { key: 'culling', label: 'Culling' },
+  { key: 'herdReplacement', label: 'Herd replacement' },
+  { key: 'otherCowCosts', label: 'Other cow costs' },
   { key: 'maintenance', label: 'Maintenance' },
   { key: 'energy', label: 'Energy' },
   { key: 'runningCosts', label: 'Other running costs' },

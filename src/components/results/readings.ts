@@ -3,7 +3,7 @@
  * a metric is not defined. Pure: the numbers come in, the words go out; formatting is passed in
  * so the farm's locale and currency are used.
  */
-import type { IrrReason, PaybackReason } from '@shared/engine/results';
+import { type IrrReason, type PaybackReason, signChanges } from '@shared/engine';
 
 /** Formatters the readings use: money to the cent, percentages, plain numbers. */
 export interface ReadingFormat {
@@ -19,18 +19,8 @@ export function timesInWords(count: number): string {
   return WORDS[count] ?? `${count} times`;
 }
 
-/** Sign changes along a cash-flow series, zeros skipped (Descartes' rule counts them so). */
-export function countSignChanges(flows: readonly number[]): number {
-  let changes = 0;
-  let previous = 0;
-  for (const cf of flows) {
-    if (cf === 0) continue;
-    const sign = Math.sign(cf);
-    if (previous !== 0 && sign !== previous) changes += 1;
-    previous = sign;
-  }
-  return changes;
-}
+/** Sign changes along a cash-flow series, zeros skipped: the engine's own count. */
+export { signChanges as countSignChanges } from '@shared/engine';
 
 /**
  * Operating year (1-based) in which a payback of `years` falls: 6.3 → 7, 7 → 7. Cash flows fall
@@ -63,7 +53,7 @@ export function operationsPaybackReading(years: number | null, reason: PaybackRe
 
 /** Why an IRR is missing, in words, from the engine's reason and the flows themselves. */
 export function irrUndefinedReading(reason: IrrReason | undefined, flows: readonly number[]): string {
-  const changes = countSignChanges(flows);
+  const changes = signChanges(flows);
   if (reason === 'no-sign-change' || changes === 0) {
     return 'IRR not defined: the cash flows never change sign, so no rate makes NPV zero';
   }

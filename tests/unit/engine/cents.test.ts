@@ -1,10 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { decliningBalanceFast, loanScheduleFast, loanYearsFast, roundCentsFast, straightLineFast } from '../../../shared/engine/cents';
-import { decliningBalance, straightLine } from '../../../shared/engine/depreciation';
-import { irr, loanSchedule } from '../../../shared/engine/finance';
+import { irr } from '../../../shared/engine/finance';
 import { atMostOneIrr, irrFast } from '../../../shared/engine/irr-fast';
-import { toCents } from '../../../shared/engine/money';
+import { toCents } from '../../oracles/cents';
+import { decliningBalance, straightLine } from '../../oracles/depreciation';
+import { loanSchedule } from '../../oracles/loan-schedule';
 
 // The fast path's floating-point twins must give the decimal.js ledger's cents.
 describe('floating-point twins of the ledger functions', () => {

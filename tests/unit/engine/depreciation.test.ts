@@ -1,14 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import Decimal from 'decimal.js';
-import {
-  MACRS_10_YEAR_150DB,
-  MACRS_10_YEAR_200DB,
-  MACRS_20_YEAR_150DB,
-  decliningBalance,
-  macrsSchedule,
-  residualValueStraightLine,
-  straightLine,
-} from '@shared/engine/depreciation';
+import { MACRS_10_YEAR_150DB, MACRS_10_YEAR_200DB, MACRS_20_YEAR_150DB } from '@shared/engine/depreciation';
+import { decliningBalance, macrsSchedule, residualValueStraightLine, straightLine } from '../../oracles/depreciation';
 
 function sumOf(values: readonly number[]): number {
   return values.reduce((s, v) => s.plus(v), new Decimal(0)).toNumber();

@@ -16,7 +16,7 @@ import {
   profitabilityIndex,
   spreadsheetNpv,
 } from '@shared/engine/finance';
-import { toCents } from '@shared/engine/money';
+import { toCents } from '../../oracles/cents';
 
 const GITMAN_NPV_FLOWS = [-40_000, 5_000, 8_000, 12_000, 30_000];
 const GITMAN_IRR_FLOWS = [-100, 39, 59, 55, 20];

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import Decimal from 'decimal.js';
 import { pmt } from 'financial';
-import { loanSchedule, type LoanSchedule } from '@shared/engine/finance';
+import type { LoanSchedule } from '@shared/engine/finance';
+import { loanSchedule } from '../../oracles/loan-schedule';
 
 function hasAtMostTwoDecimals(x: number): boolean {
   return new Decimal(x).decimalPlaces() <= 2;

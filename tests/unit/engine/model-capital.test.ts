@@ -9,7 +9,7 @@ import {
   residualValue,
   salvageAtHorizon,
 } from '../../../shared/engine/capital';
-import { residualValueStraightLine } from '../../../shared/engine/depreciation';
+import { residualValueStraightLine } from '../../oracles/depreciation';
 import type { CapitalLine } from '../../../shared/schema';
 
 const sized = { stalls: 120, storageM3: 2500, troughs: 4 };

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { macrsFast, straightLineFast } from '../../../shared/engine/cents';
 import { coverageRatio, lowestByYear } from '../../../shared/engine/coverage';
-import { decliningBalance, MACRS_10_YEAR_150DB, MACRS_10_YEAR_200DB, MACRS_20_YEAR_150DB, macrsSchedule, straightLine } from '../../../shared/engine/depreciation';
+import { MACRS_10_YEAR_150DB, MACRS_10_YEAR_200DB, MACRS_20_YEAR_150DB } from '../../../shared/engine/depreciation';
+import { decliningBalance, macrsSchedule, straightLine } from '../../oracles/depreciation';
 import { evaluateScenario } from '../../../shared/engine/evaluate';
 import { taxableIncome, taxDepreciation, taxForYear } from '../../../shared/engine/tax';
 import { handScenario } from './hand-scenario';

@@ -1,0 +1,223 @@
+/**
+ * An option's plan: what does not change with prices — herd per year, stalls, storage, capital,
+ * replacements, salvage, tax depreciation and the loan.
+ */
+import type { Option, Scenario } from '../schema';
+import { beddingToStorageM3PerYear, beddingTonnesPerYear } from './bedding';
+import { capitalAssets, capitalTotal, purchaseSchedule, replacementsByYear, salvageAtHorizon, type CapitalAsset } from './capital';
+import { decliningBalanceFast, loanScheduleFast, loanYearsFast, macrsFast, roundCentsFast, straightLineFast, type LoanYearsFast } from './cents';
+import { interestDuringConstruction } from './construction';
+import { MACRS_10_YEAR_150DB, MACRS_10_YEAR_200DB, MACRS_20_YEAR_150DB } from './depreciation';
+import { effectiveHousedDays, grazingDaysPerYear } from './feed';
+import type { LoanSchedule } from './finance';
+import { milkCowEquivalents } from './herd-costs';
+import { cowsPerYear, herdPurchasesByYear, herdValueAtHorizon } from './herd-size';
+import { manureStorageVolumeM3, stallsFor } from './sizing';
+import { taxDepreciation, type DepreciationSchedule, type PurchaseForTax } from './tax';
+
+/** Everything about an option that does not change with prices: herd, sizing, capital, tax depreciation, loan. */
+export interface OptionPlan {
+  /** Operating years H (years). */
+  horizon: number;
+  /** Cows per year (head), index = year, [0] = today's herd. */
+  cows: number[];
+  /** Cows in milk at the herd's yield per year (cow equivalents): newcomers at the first-lactation factor. */
+  milkCows: number[];
+  /** The largest herd of the horizon, which sizes stalls and storage (head). */
+  designCows: number;
+  /** Stalls built (count). */
+  stalls: number;
+  /** Housed and grazing days per year (days/yr). */
+  housedDays: number;
+  grazingDays: number;
+  /** Manure storage volume sized (m³). */
+  storageM3: number;
+  assets: CapitalAsset[];
+  /** Capital at year 0 (currency). */
+  capitalTotal: number;
+  /** Replacement purchases per year (currency, index = year). */
+  replacementsByYear: number[];
+  /** Salvage value at the horizon (currency). */
+  salvage: number;
+  /** Tax depreciation per year (currency, index = year) and the tax book value left at H (currency). */
+  depreciationByYear: number[];
+  taxBookValueAtHorizon: number;
+  /** Grants and equity at year 0 (currency). */
+  grants: number;
+  equity: number;
+  /** Loan principal (currency), interest during construction included when it is capitalised. */
+  loanAmount: number;
+  /** Interest during construction (currency, cents), owed at year 0; in loanAmount when capitalised. */
+  interestDuringConstruction: number;
+  /** Loan interest and principal per year (currency), index = year, [0] = 0. */
+  interestByYear: number[];
+  principalByYear: number[];
+  /** Loan balance still owed at H (currency), repaid in year H in the financed view. */
+  loanBalanceAtHorizon: number;
+  /** Cows bought (+) or sold (−) per year (currency, index = year; bought at the end of the year before they join). */
+  herdPurchasesByYear: number[];
+  /** The herd change valued at cull value at H (currency). */
+  herdValueAtHorizon: number;
+}
+
+/** 'ledger' also builds the loan's payment table (for display); 'fast' only its yearly totals (the same cents). */
+export type PlanMode = 'ledger' | 'fast';
+
+/**
+ * Manure storage volume (m³) for an option's design herd: manure collected, wash water and
+ * bedding per day, rain on the open store, over the storage period, plus freeboard.
+ */
+export function optionStorageM3(scenario: Scenario, option: Option, designCows: number, stalls: number): number {
+  const { herd } = scenario;
+  const manureKgPerDay = designCows * herd.manureExcretion.massKgPerCowDay * option.manure.collectionEfficiency;
+  const beddingTonnesPerDay = beddingTonnesPerYear(option.bedding.kgPerStallDay, stalls, 1);
+  return manureStorageVolumeM3({
+    manureM3PerDay: manureKgPerDay / herd.manureDensityKgPerM3,
+    washWaterM3PerDay: option.manure.washWaterDiverted ? 0 : option.manure.washWaterM3PerCowDay * designCows,
+    beddingM3PerDay: beddingToStorageM3PerYear(beddingTonnesPerDay, option.bedding.shareToManureStorage, option.bedding.bulkDensityTonnesPerM3),
+    netRainMPerYear: option.manure.netRainMPerYear,
+    openStorageAreaM2: option.manure.openStorageAreaM2,
+    storageDays: option.manure.storageDays,
+    freeboardM: option.manure.freeboardM,
+  });
+}
+
+/** Stalls of an option (count): none without beds, else from the largest herd of the horizon and the stocking rate. */
+export function optionStalls(option: Option, designCows: number): number {
+  return option.bed === 'none' ? 0 : stallsFor(designCows, option.stockingRate);
+}
+
+// The float twins give the same cents as the decimal.js schedules in tests/oracles (tests pin them) at a fraction of the cost.
+function depreciationSchedule(scenario: Scenario): DepreciationSchedule {
+  const { depreciation, decliningBalanceFactor } = scenario.finance;
+  if (depreciation === 'declining-balance') return (cost, life) => decliningBalanceFast(cost, life, decliningBalanceFactor);
+  return straightLineFast;
+}
+
+const MACRS_TABLES = { 'macrs-10-200db': MACRS_10_YEAR_200DB, 'macrs-10-150db': MACRS_10_YEAR_150DB, 'macrs-20-150db': MACRS_20_YEAR_150DB } as const;
+
+/** A capital asset's own tax schedule when its tax class is not its economic life (else none: the scenario's method). */
+function taxClassSchedule(asset: CapitalAsset | undefined): Pick<PurchaseForTax, 'schedule'> {
+  if (!asset || asset.taxClass === 'economic-life') return {};
+  if (asset.taxClass === 'straight-line') {
+    const life = asset.taxLifeYears;
+    return { schedule: (cost) => straightLineFast(cost, life) };
+  }
+  const { percentages } = MACRS_TABLES[asset.taxClass];
+  return { schedule: (cost) => macrsFast(cost, percentages) };
+}
+
+/**
+ * Loan principal (currency): the override, or capital − equity − grants, floored at 0 and never
+ * more than the capital left after grants (an option without capital borrows nothing).
+ */
+export function loanAmountFor(capital: number, grants: number, equity: number, override: number | null): number {
+  const needed = Math.max(0, capital - grants);
+  if (override !== null) return Math.min(override, needed);
+  return Math.max(0, needed - equity);
+}
+
+type LoanLines = Pick<OptionPlan, 'loanAmount' | 'interestDuringConstruction' | 'interestByYear' | 'principalByYear' | 'loanBalanceAtHorizon'>;
+
+/** The loan of a plan at the scenario's finance terms: amount, interest and principal per year (index = year), balance at H. */
+function loanPlan(capitalLoan: number, finance: Scenario['finance'], horizon: number, mode: PlanMode): LoanLines & { loan: LoanSchedule | null } {
+  // Interest during construction is owed at year 0: added to the loan, or paid from farm cash.
+  const constructionInterest = roundCentsFast(interestDuringConstruction(capitalLoan, finance));
+  const loanAmount = finance.interestDuringConstruction === 'capitalised' ? capitalLoan + constructionInterest : capitalLoan;
+
+  const interestByYear = new Array<number>(horizon + 1).fill(0);
+  const principalByYear = new Array<number>(horizon + 1).fill(0);
+  let loanBalanceAtHorizon = 0;
+  let loan: LoanSchedule | null = null;
+  const loanInput = {
+    principal: loanAmount,
+    annualRate: finance.interestRate,
+    years: finance.termYears,
+    paymentsPerYear: finance.paymentsPerYear,
+    interestOnlyMonths: finance.interestOnlyMonths,
+  };
+  let loanYears: LoanYearsFast;
+  if (mode === 'ledger') {
+    loan = loanScheduleFast(loanInput);
+    loanYears = {
+      interest: loan.years.map((y) => y.interest),
+      principal: loan.years.map((y) => y.principal),
+      closingBalance: loan.years.map((y) => y.closingBalance),
+    };
+  } else {
+    loanYears = loanYearsFast(loanAmount, finance.interestRate, finance.termYears, finance.paymentsPerYear, finance.interestOnlyMonths);
+  }
+  for (let year = 1; year <= horizon; year++) {
+    interestByYear[year] = loanYears.interest[year - 1] ?? 0;
+    principalByYear[year] = loanYears.principal[year - 1] ?? 0;
+  }
+  if (loanAmount > 0 && finance.termYears > horizon) loanBalanceAtHorizon = loanYears.closingBalance[horizon - 1] ?? 0;
+  return { loanAmount, interestDuringConstruction: constructionInterest, interestByYear, principalByYear, loanBalanceAtHorizon, loan };
+}
+
+/**
+ * The plan with its loan at other finance terms (e.g. a shocked interest rate): capital, tax
+ * depreciation, herd and salvage do not depend on the loan, so only the loan lines are rebuilt
+ * (yearly totals, as mode 'fast').
+ */
+export function withFinanceTerms(plan: OptionPlan, finance: Scenario['finance']): OptionPlan {
+  const capitalLoan = loanAmountFor(plan.capitalTotal, plan.grants, finance.equity, finance.loanAmount);
+  const { loan: _schedule, ...loanLines } = loanPlan(capitalLoan, finance, plan.horizon, 'fast');
+  return { ...plan, ...loanLines };
+}
+
+/** Builds an option's plan; with mode 'ledger' it also returns the loan schedule in exact cents. */
+export function planOption(scenario: Scenario, option: Option, mode: PlanMode): { plan: OptionPlan; loan: LoanSchedule | null } {
+  const { herd, finance } = scenario;
+  const horizon = scenario.horizonYears;
+  const inflation = herd.growth.general;
+  const cows = cowsPerYear(herd.cows, option.herdChange, horizon);
+  let designCows = 0;
+  for (let year = 1; year <= horizon; year++) designCows = Math.max(designCows, cows[year] ?? 0);
+  const stalls = optionStalls(option, designCows);
+  const storageM3 = optionStorageM3(scenario, option, designCows, stalls);
+  const assets = capitalAssets(option.capitalLines, { stalls, storageM3, troughs: option.water.troughs });
+  const capital = capitalTotal(assets);
+  const purchases = purchaseSchedule(assets, horizon, inflation);
+  const grants = Math.min(finance.grants, capital);
+  // With grants reducing the depreciable base, each year-0 purchase carries its share of them.
+  const year0Base = finance.grantsReduceDepreciableBase && capital > 0 ? 1 - grants / capital : 1;
+  const depreciation = taxDepreciation(
+    purchases.map((p) => {
+      const asset = assets[p.asset];
+      return { year: p.year, cost: p.year === 0 ? p.cost * year0Base : p.cost, lifeYears: asset?.lifeYears ?? 1, ...taxClassSchedule(asset) };
+    }),
+    horizon,
+    depreciationSchedule(scenario),
+  );
+  const capitalLoan = loanAmountFor(capital, grants, finance.equity, finance.loanAmount);
+  const equity = Math.max(0, capital - grants - capitalLoan);
+  const { loan, ...loanLines } = loanPlan(capitalLoan, finance, horizon, mode);
+
+  const addedCowCost = option.herdChange.addedCowCost ?? herd.replacementHeiferCost;
+  const housedDays = effectiveHousedDays(option.housedDaysPerYear);
+  return {
+    plan: {
+      horizon,
+      cows,
+      milkCows: milkCowEquivalents(cows, herd.firstLactationYieldFactor),
+      designCows,
+      stalls,
+      housedDays,
+      grazingDays: grazingDaysPerYear(housedDays),
+      storageM3,
+      assets,
+      capitalTotal: capital,
+      replacementsByYear: replacementsByYear(purchases, horizon),
+      salvage: salvageAtHorizon(assets, purchases, horizon),
+      depreciationByYear: depreciation.byYear,
+      taxBookValueAtHorizon: depreciation.bookValueAtHorizon,
+      grants,
+      equity,
+      ...loanLines,
+      herdPurchasesByYear: herdPurchasesByYear(cows, addedCowCost, herd.cullCowValue, inflation),
+      herdValueAtHorizon: herdValueAtHorizon(cows, herd.cullCowValue, inflation),
+    },
+    loan,
+  };
+}

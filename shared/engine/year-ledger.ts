@@ -1,0 +1,259 @@
+/**
+ * An option's year ledger: the yearly lines t = 0..H in cents, the project flows and the cash
+ * available for debt service, and (when asked) its milk model for the break-even searches.
+ */
+import type { Option, Scenario } from '../schema';
+import { maintenanceCostPerYear } from './capital';
+import { roundCentsFast } from './cents';
+import { energyCostToday } from './energy';
+import { baseFeedCostPerYear, marginalFeedCostPerYear } from './feed';
+import { resolvedGrowth } from './growth';
+import { cullingCostPerYear, extraCullsPer100Cows, healthCostPerYear } from './health';
+import { herdReplacementCostPerYear, milkingHoursPerYear, otherCowCostsPerYear } from './herd-costs';
+import { housingWork } from './housing-work';
+import { labourCost } from './labour';
+import { K_TO_K2O, P_TO_P2O5 } from './manure';
+import { openMilkModel, optionYield, type MilkModel } from './milk-model';
+import { optionManure } from './option-manure';
+import type { OptionPlan } from './plan';
+import type { YearLine } from './results';
+import { grownRunningCosts, runningCostsByGrowth, type GrowthFactors } from './running-costs';
+import { emptySettlement, noiseFreeCents, settleYear } from './settle-year';
+import { milkSoldKgPerYear } from './yield';
+
+export interface Projection {
+  /** Project (unlevered) net cash flow per year, index = year. */
+  cashFlows: number[];
+  /** Cash available for debt service per year (operating margin − tax), index = year, [0] = 0. */
+  cashForDebtService: number[];
+  /** The yearly lines, when asked for. */
+  lines: YearLine[] | null;
+  /** The flows with milk income and feed left open, when asked for. */
+  milk: MilkModel | null;
+}
+
+/**
+ * The yearly flows of one option, t = 0..H (currency, nominal). Every money line is rounded to
+ * cents half-up exactly as decimal.js does (cents.ts roundCentsFast) before it enters a total, so
+ * net = Σ lines exactly. With `withMilkModel` it also returns the option's milk model for the
+ * break-even searches.
+ */
+export function projectOption(
+  scenario: Scenario,
+  option: Option,
+  plan: OptionPlan,
+  currentLyingHours: number,
+  detail: boolean,
+  withMilkModel = false,
+): Projection {
+  const round = roundCentsFast;
+  const centsTotal = noiseFreeCents;
+  const { herd, finance } = scenario;
+  const growth = resolvedGrowth(herd.growth);
+  const H = plan.horizon;
+  const milkPrice = herd.milkPricePerKg;
+  const response = herd.lyingResponseKgPerHour;
+
+  // Price-independent pieces of each line, per cow or per year in today's money.
+  const energyToday = energyCostToday(option.energyLines);
+  const runningByGrowth = runningCostsByGrowth(option.runningCosts);
+  // Maintenance and insurance fall on the new capital and on any existing housing the option keeps using.
+  const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate + option.insuranceRate, plan.capitalTotal + option.existingHousingValue);
+  const work = housingWork(option, plan);
+  const { scrapingHours, bedCareHours, beddingTopUpHours, troughHours, grazingHours, beddingTonnes } = work;
+
+  const cashFlows = new Array<number>(H + 1);
+  const cashForDebtService = new Array<number>(H + 1).fill(0);
+  const lines: YearLine[] | null = detail ? [] : null;
+
+  const capital0 = round(plan.capitalTotal);
+  const grants0 = round(plan.grants);
+  const herd0 = round(plan.herdPurchasesByYear[0] ?? 0);
+  cashFlows[0] = centsTotal(grants0 - capital0 - herd0);
+  // Financed year 0: loan proceeds less the interest during construction paid out of them or beside them.
+  const financed0 = centsTotal(round(plan.loanAmount) - plan.interestDuringConstruction + cashFlows[0]);
+  if (lines) lines.push(yearZeroLine(plan, cashFlows[0], capital0, grants0, herd0, financed0));
+
+  // Every line is linear in the cows of the year: per-cow amounts in today's money, hoisted.
+  const yieldYear1 = optionYield(scenario, option, currentLyingHours, response, 1);
+  const yieldLater = optionYield(scenario, option, currentLyingHours, response, 2);
+  const milk: MilkModel | null = withMilkModel ? openMilkModel(scenario, option, plan, currentLyingHours) : null;
+  const baselineMilkPerCow = milkSoldKgPerYear(1, herd.yieldKgPerCowDay);
+  const feedPerCow = baseFeedCostPerYear(1, plan.housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
+  const healthPerCow = healthCostPerYear(1, option.health);
+  const cullingPerCow = cullingCostPerYear(extraCullsPer100Cows(option.health), 1, herd.replacementHeiferCost, herd.cullCowValue);
+  const herdReplacementPerCow = herdReplacementCostPerYear(herd.replacementRate, 1, herd.replacementHeiferCost, herd.cullCowValue);
+  const manure = optionManure(herd, option, plan, work.beddingStoredM3);
+
+  const settled = emptySettlement();
+  // This year's growth factors per price group, updated in place year by year.
+  const factors: GrowthFactors = { milkPrice: 1, feed: 1, wages: 1, bedding: 1, fertiliser: 1, general: 1 };
+  let grownMilk = 1, grownFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
+  let lossCarried = 0;
+  const { milkPrice: milkIndex, feed: feedIndex } = herd.yearlyPriceIndex;
+  for (let t = 1; t <= H; t++) {
+    grownMilk *= 1 + growth.milkPrice;
+    grownFeed *= 1 + growth.feed;
+    // A year's price index (a trough, a spike) scales that year alone; growth carries on from the grown path.
+    const gMilk = grownMilk * (milkIndex?.[t - 1] ?? 1);
+    const gFeed = grownFeed * (feedIndex?.[t - 1] ?? 1);
+    gWage *= 1 + growth.wages;
+    gBedding *= 1 + growth.bedding;
+    gFert *= 1 + growth.fertiliser;
+    gGeneral *= 1 + growth.general;
+    if (milk) {
+      milk.milkGrowth[t] = gMilk;
+      milk.feedGrowth[t] = gFeed;
+    }
+    const cows = plan.cows[t] ?? 0;
+    const yieldKg = t === 1 ? yieldYear1 : yieldLater;
+    const milkKg = milkSoldKgPerYear(plan.milkCows[t] ?? cows, yieldKg);
+    const extraMilkKg = milkKg - baselineMilkPerCow * cows;
+
+    const milkIncome = round(milkKg * (milkPrice + option.milkQualityPricePerKg) * gMilk);
+    const feed = round((feedPerCow * cows + marginalFeedCostPerYear(extraMilkKg, herd.marginalFeedCostPerKgMilk)) * gFeed);
+    const wage = herd.wagePerHour;
+    const labourScraping = round(labourCost(scrapingHours, wage, gWage));
+    const labourBedCare = round(labourCost(bedCareHours, wage, gWage));
+    const labourBeddingTopUp = round(labourCost(beddingTopUpHours, wage, gWage));
+    const labourTroughs = round(labourCost(troughHours, wage, gWage));
+    const labourGrazing = round(labourCost(grazingHours, wage, gWage));
+    const milkingHours = milkingHoursPerYear(herd.milkingHoursPerCowYear, cows);
+    const labourMilking = round(labourCost(milkingHours, wage, gWage));
+    const bedding = round(work.beddingCostToday * gBedding);
+    const health = round(healthPerCow * cows * gGeneral);
+    const culling = round(cullingPerCow * cows * gGeneral);
+    const herdReplacement = round(herdReplacementPerCow * cows * gGeneral);
+    const otherCowCosts = round(otherCowCostsPerYear(herd.otherVariableCostPerCowYear, cows) * gGeneral);
+    const maintenance = round(maintenanceToday * gGeneral);
+    const energy = round(energyToday * gGeneral);
+    factors.milkPrice = gMilk;
+    factors.feed = gFeed;
+    factors.wages = gWage;
+    factors.bedding = gBedding;
+    factors.fertiliser = gFert;
+    factors.general = gGeneral;
+    const runningCosts = round(grownRunningCosts(runningByGrowth, factors));
+    const manureValue = round(manure.valueToday(cows) * gFert);
+    const storedM3 = manure.storedM3(cows);
+    const manureHandling = round(storedM3 * manure.handlingPerM3 * gGeneral);
+    const operatingMargin = centsTotal(
+      milkIncome + manureValue - feed - labourScraping - labourBedCare - labourBeddingTopUp - labourTroughs - labourGrazing - labourMilking -
+        bedding - health - culling - herdReplacement - otherCowCosts - maintenance - energy - runningCosts - manureHandling,
+    );
+
+    settleYear(settled, plan, finance, t, operatingMargin, lossCarried, round, centsTotal);
+    lossCarried = settled.lossCarried;
+    const { replacements, herdPurchases, salvage, herdValue, depreciation, taxable, tax, net } = settled;
+    const interest = plan.interestByYear[t] ?? 0;
+    const principal = plan.principalByYear[t] ?? 0;
+    cashFlows[t] = net;
+    cashForDebtService[t] = settled.cashForDebtService;
+    if (milk) milk.otherMargin[t] = operatingMargin - milkIncome + feed;
+
+    if (lines) {
+      const repaidAtHorizon = t === H ? round(plan.loanBalanceAtHorizon) : 0;
+      lines.push({
+        year: t,
+        cows,
+        yieldKgPerCowDay: yieldKg,
+        milkSoldKg: milkKg,
+        milkIncome,
+        feed,
+        labourScraping,
+        labourBedCare,
+        labourBeddingTopUp,
+        labourTroughs,
+        labourGrazing,
+        labourMilking,
+        bedding,
+        health,
+        culling,
+        herdReplacement,
+        otherCowCosts,
+        maintenance,
+        energy,
+        runningCosts,
+        manureValue,
+        manureHandling,
+        operatingMargin,
+        capital: 0,
+        grants: 0,
+        replacements,
+        herdPurchases,
+        salvage,
+        herdValueAtHorizon: herdValue,
+        depreciation,
+        taxableIncome: taxable,
+        tax,
+        netCashFlow: net,
+        loanInterest: interest,
+        loanPrincipal: principal,
+        financedCashFlow: centsTotal(net - interest - principal - repaidAtHorizon),
+        cashAvailableForDebtService: cashForDebtService[t] ?? 0,
+        labourHours: {
+          scraping: scrapingHours,
+          bedCare: bedCareHours,
+          beddingTopUp: beddingTopUpHours,
+          troughs: troughHours,
+          grazing: grazingHours,
+          milking: milkingHours,
+          total: work.totalHours + milkingHours,
+        },
+        beddingTonnes: beddingTonnes,
+        manure: {
+          storedM3,
+          nitrogenKg: manure.perCow.nitrogenKg * cows,
+          phosphateKg: manure.perCow.phosphorusKg * cows * P_TO_P2O5,
+          potashKg: manure.perCow.potassiumKg * cows * K_TO_K2O,
+        },
+      });
+    }
+  }
+  return { cashFlows, cashForDebtService, lines, milk };
+}
+
+function yearZeroLine(plan: OptionPlan, net: number, capital: number, grants: number, herdPurchases: number, financed: number): YearLine {
+  return {
+    year: 0,
+    cows: plan.cows[0] ?? 0,
+    yieldKgPerCowDay: 0,
+    milkSoldKg: 0,
+    milkIncome: 0,
+    feed: 0,
+    labourScraping: 0,
+    labourBedCare: 0,
+    labourBeddingTopUp: 0,
+    labourTroughs: 0,
+    labourGrazing: 0,
+    labourMilking: 0,
+    bedding: 0,
+    health: 0,
+    culling: 0,
+    herdReplacement: 0,
+    otherCowCosts: 0,
+    maintenance: 0,
+    energy: 0,
+    runningCosts: 0,
+    manureValue: 0,
+    manureHandling: 0,
+    operatingMargin: 0,
+    capital,
+    grants,
+    replacements: 0,
+    herdPurchases,
+    salvage: 0,
+    herdValueAtHorizon: 0,
+    depreciation: 0,
+    taxableIncome: 0,
+    tax: 0,
+    netCashFlow: net,
+    loanInterest: 0,
+    loanPrincipal: 0,
+    financedCashFlow: financed,
+    cashAvailableForDebtService: 0,
+    labourHours: { scraping: 0, bedCare: 0, beddingTopUp: 0, troughs: 0, grazing: 0, milking: 0, total: 0 },
+    beddingTonnes: 0,
+    manure: { storedM3: 0, nitrogenKg: 0, phosphateKg: 0, potashKg: 0 },
+  };
+}
