@@ -3,7 +3,7 @@
  * them). Dates are ISO 8601 strings, as they travel in JSON; `expiresOn` is a YYYY-MM-DD date.
  * `tests/unit/responses.test.ts` checks the server's services return exactly these shapes.
  */
-import type { ScenarioResults } from './engine/results';
+import type { OptionDetail, ScenarioResultsSummary } from './engine/result-parts';
 import type { MonteCarloResult } from './engine/risk/monte-carlo';
 import type { Herd, Scenario } from './schema';
 import type { FarmRole } from './schema/accounts';
@@ -27,13 +27,26 @@ export interface ScenarioMeta {
   updatedBy: string | null;
 }
 
-/** GET S, and every save: the document, its version and its results. */
+declare const jsonOf: unique symbol;
+/** The JSON text of a `T`, written once and sent as it is (the server keeps results as text). */
+export type JsonText<T> = string & { readonly [jsonOf]: T };
+
+/**
+ * GET S, and every save: the document, its version and the summary of its results (no yearly
+ * lines or loan payments: GET S/results/detail has those).
+ */
 export interface ScenarioView {
   id: number;
   scenario: Scenario;
   version: number;
-  results: ScenarioResults;
+  results: ScenarioResultsSummary;
   meta: ScenarioMeta;
+}
+
+/** GET S/results/detail: each option's yearly lines and loan payments at one version. */
+export interface ResultsDetailView {
+  version: number;
+  options: OptionDetail[];
 }
 
 /** One row of GET F/scenarios. */
@@ -63,14 +76,14 @@ export interface VersionListItem {
   createdAt: string;
 }
 
-/** GET S/versions/:version: a past version, read-only, with its results. */
+/** GET S/versions/:version: a past version, read-only, with the summary of its results. */
 export interface VersionView {
   version: number;
   scenario: Scenario;
   note: string;
   author: string | null;
   createdAt: string;
-  results: ScenarioResults;
+  results: ScenarioResultsSummary;
 }
 
 /** GET S/versions/compare. */
