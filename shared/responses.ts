@@ -28,8 +28,16 @@ export interface ScenarioMeta {
 }
 
 declare const jsonOf: unique symbol;
-/** The JSON text of a `T`, written once and sent as it is (the server keeps results as text). */
-export type JsonText<T> = string & { readonly [jsonOf]: T };
+/**
+ * The JSON text of a `T`, written by the server around results it keeps as text and sent as it
+ * is. `key` names the content (the same key always comes with the same text), so the server can
+ * remember the text's compressed forms without reading the text.
+ */
+export interface JsonText<T> {
+  readonly text: string;
+  readonly key: string;
+  readonly [jsonOf]?: T;
+}
 
 /**
  * GET S, and every save: the document, its version and the summary of its results (no yearly

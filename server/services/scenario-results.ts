@@ -34,16 +34,51 @@ export async function keep(db: Executor, scenarioId: number, version: number, do
   return kept;
 }
 
-/** The kept texts of one version (only `columns`), evaluated and kept first when missing; 404 for a version that does not exist. */
-export async function keptResults<K extends keyof KeptResults>(db: Executor, scenarioId: number, version: number, columns: readonly K[]): Promise<Pick<KeptResults, K>> {
-  const found = await findKeptResults(db, scenarioId, version, resultsCacheKey(), columns);
-  if (found) return found;
+/**
+ * Kept texts read lately, per database handle, by scenario id and version (about 0.3 MB each). A
+ * version's texts never change under one engine key, so they can be remembered; only texts of
+ * committed versions go in (a save's own `keep` may still be rolled back).
+ */
+const REMEMBERED = 48;
+let rememberedBy = new WeakMap<Executor, Map<string, KeptResults>>();
+
+function rememberedIn(db: Executor): Map<string, KeptResults> {
+  let map = rememberedBy.get(db);
+  if (!map) {
+    map = new Map();
+    rememberedBy.set(db, map);
+  }
+  return map;
+}
+
+function remember(remembered: Map<string, KeptResults>, key: string, kept: KeptResults): KeptResults {
+  remembered.delete(key);
+  if (remembered.size >= REMEMBERED) remembered.delete(remembered.keys().next().value as string);
+  remembered.set(key, kept);
+  return kept;
+}
+
+/** Forgets every remembered text: for tests that change kept rows in the database behind the service's back. */
+export function forgetRememberedResults(): void {
+  rememberedBy = new WeakMap();
+}
+
+const ALL_COLUMNS = ['name', 'document', 'summary', 'detail'] as const;
+
+/** The kept texts of one committed version, evaluated and kept first when missing; 404 for a version that does not exist. */
+export async function keptResults(db: Executor, scenarioId: number, version: number): Promise<KeptResults> {
+  const remembered = rememberedIn(db);
+  const key = `${scenarioId}:${version}`;
+  const known = remembered.get(key);
+  if (known) return remember(remembered, key, known);
+  const found = await findKeptResults(db, scenarioId, version, resultsCacheKey(), ALL_COLUMNS);
+  if (found) return remember(remembered, key, found);
   const stored = await findVersion(db, scenarioId, version);
   if (!stored) throw notFound(`Version ${version} not found`);
-  return keep(db, scenarioId, version, stored.document, evaluateForKeeping(stored.document));
+  return remember(remembered, key, await keep(db, scenarioId, version, stored.document, evaluateForKeeping(stored.document)));
 }
 
 /** The kept document of one version, parsed (it was validated before it was kept). */
 export async function keptDocument(db: Executor, scenarioId: number, version: number): Promise<Scenario> {
-  return JSON.parse((await keptResults(db, scenarioId, version, ['document'])).document) as Scenario;
+  return JSON.parse((await keptResults(db, scenarioId, version)).document) as Scenario;
 }

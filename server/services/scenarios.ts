@@ -39,6 +39,7 @@ import type { KeptResults } from '../db/repositories/scenario-results.js';
 import { AppError, fieldErrors, notFound } from '../errors.js';
 import { accessOf, canSeeScenario, canSeeVersion, visibleVersions, type Access, type Actor } from './access.js';
 import { evaluateForKeeping, keep, keptDocument, keptResults } from './scenario-results.js';
+import { resultsCacheKey } from '../../shared/engine/version.js';
 
 export type { ResultsDetailView, ScenarioListItem, ScenarioView, VersionListItem };
 
@@ -88,7 +89,11 @@ function viewText(head: ScenarioHead, kept: Pick<KeptResults, 'name' | 'document
     updatedAt: head.updatedAt.toISOString(),
     updatedBy: head.updatedBy?.name ?? null,
   };
-  return `{"id":${head.id},"scenario":${kept.document},"version":${head.version},"results":${kept.summary},"meta":${JSON.stringify(meta)}}` as JsonText<ScenarioView>;
+  const metaJson = JSON.stringify(meta);
+  return {
+    key: `scenario:${head.id}:${head.version}:${resultsCacheKey()}:${metaJson}`,
+    text: `{"id":${head.id},"scenario":${kept.document},"version":${head.version},"results":${kept.summary},"meta":${metaJson}}`,
+  };
 }
 
 /** A 400 naming one field of the request, shaped as parseOrThrow shapes it. */
@@ -134,7 +139,7 @@ export async function listFarmScenarios(db: Database, actor: ScenarioActor): Pro
     ? await Promise.all(
         visible.map(async (record) => {
           const seen = await visibleHead(db, actor, record.id, access);
-          const kept = await keptResults(db, record.id, seen.version, ['name', 'summary']);
+          const kept = await keptResults(db, record.id, seen.version);
           return { ...seen, name: kept.name, summary: summarise(JSON.parse(kept.summary) as ScenarioResultsSummary) };
         }),
       )
@@ -155,7 +160,7 @@ export async function listFarmScenarios(db: Database, actor: ScenarioActor): Pro
 /** The version of a scenario the caller sees, with the summary of its results, as JSON text: nothing is parsed or evaluated once its results are kept. */
 export async function readScenario(db: Executor, actor: ScenarioActor, scenarioId: number): Promise<JsonText<ScenarioView>> {
   const head = await visibleHead(db, actor, scenarioId);
-  return viewText(head, await keptResults(db, scenarioId, head.version, ['name', 'document', 'summary']));
+  return viewText(head, await keptResults(db, scenarioId, head.version));
 }
 
 /** The version the caller sees (or `version`, when they may see it): each option's yearly lines and loan payments. */
@@ -165,8 +170,8 @@ export async function readResultsDetail(db: Database, actor: ScenarioActor, scen
   const at = version ?? head.version;
   assertVersionVisible(access, scenarioId, at);
   if (at > head.version) throw notFound(`Version ${at} not found`);
-  const kept = await keptResults(db, scenarioId, at, ['detail']);
-  return `{"version":${at},"options":${kept.detail}}` as JsonText<ResultsDetailView>;
+  const kept = await keptResults(db, scenarioId, at);
+  return { key: `detail:${scenarioId}:${at}:${resultsCacheKey()}`, text: `{"version":${at},"options":${kept.detail}}` };
 }
 
 /** The version the caller sees with its whole results (yearly lines and loan payments too), for the lender workbook. */
@@ -388,9 +393,9 @@ export async function readVersion(db: Database, actor: ScenarioActor, scenarioId
   assertVersionVisible(access, scenarioId, version);
   const found = await findVersionHead(db, scenarioId, version);
   if (!found) throw notFound(`Version ${version} not found`);
-  const kept = await keptResults(db, scenarioId, version, ['document', 'summary']);
+  const kept = await keptResults(db, scenarioId, version);
   const about = JSON.stringify({ version: found.version, note: found.note, author: found.author?.name ?? null, createdAt: found.createdAt.toISOString() });
-  return `${about.slice(0, -1)},"scenario":${kept.document},"results":${kept.summary}}` as JsonText<VersionView>;
+  return { key: `version:${scenarioId}:${resultsCacheKey()}:${about}`, text: `${about.slice(0, -1)},"scenario":${kept.document},"results":${kept.summary}}` };
 }
 
 /** Changed fields between two versions, in `units` for display (the farm's units by default). */

@@ -13,7 +13,8 @@ import { joinOption, type OptionDetail, type ScenarioResultsSummary } from '../.
 import { ENGINE_VERSION, resultsCacheKey } from '../../shared/engine/version.js';
 import type { Scenario } from '../../shared/schema/index.js';
 import { scenarioResultsTable } from '../../server/db/schema/index.js';
-import { keptEvaluationCount } from '../../server/services/scenario-results.js';
+import { forgetEncodedTexts } from '../../server/http/json-text.js';
+import { forgetRememberedResults as forgetKept, keptEvaluationCount } from '../../server/services/scenario-results.js';
 import { createTestApp, type TestApp } from '../helpers/app.js';
 import { asJson, demoScenarioFile, farmIdByName, signedIn } from '../helpers/scenarios.js';
 
@@ -79,9 +80,13 @@ describe('kept results', () => {
     kept.options[0]!.npv = 123.45;
     const where = and(eq(scenarioResultsTable.scenarioId, scenarioId), eq(scenarioResultsTable.version, read.body.version), eq(scenarioResultsTable.engineKey, resultsCacheKey()));
     await t.database.db.update(scenarioResultsTable).set({ summary: JSON.stringify(kept) }).where(where);
+    forgetKept();
+    forgetEncodedTexts();
     expect((await owner.get(path())).body.results.options[0].npv).toBe(123.45);
     // Put the true summary back for the tests after this one.
     await t.database.db.update(scenarioResultsTable).set({ summary: JSON.stringify(read.body.results) }).where(where);
+    forgetKept();
+    forgetEncodedTexts();
   });
 
   it('recomputes results kept under another engine version once, and drops the stale row', async () => {
@@ -90,6 +95,8 @@ describe('kept results', () => {
       .update(scenarioResultsTable)
       .set({ engineKey: resultsCacheKey(ENGINE_VERSION + 1), summary: '{"stale":true}' })
       .where(and(eq(scenarioResultsTable.scenarioId, scenarioId), eq(scenarioResultsTable.version, read.body.version)));
+    forgetKept();
+    forgetEncodedTexts();
     const before = keptEvaluationCount();
     const again = await owner.get(path());
     expect(again.status).toBe(200);
@@ -99,6 +106,12 @@ describe('kept results', () => {
     expect(keptEvaluationCount()).toBe(before + 1);
     const rows = (await keptRows(scenarioId)).filter((r) => r.version === read.body.version);
     expect(rows).toEqual([{ version: read.body.version, engineKey: resultsCacheKey() }]);
+  });
+
+  it('answers 304 to a read that names the ETag it already has', async () => {
+    const first = await owner.get(path());
+    expect(first.headers.etag).toBeTruthy();
+    expect((await owner.get(path()).set('If-None-Match', first.headers.etag as string)).status).toBe(304);
   });
 
   it('compresses the answer with gzip or brotli when the client accepts it, and not otherwise', async () => {

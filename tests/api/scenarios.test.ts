@@ -18,6 +18,8 @@ const summaryOf = (scenario: Scenario) => splitResults(evaluateScenario(scenario
 import { scenarioSchema, type Scenario } from '../../shared/schema/index.js';
 import { eq } from 'drizzle-orm';
 import { scenarioResultsTable, scenariosTable, scenarioVersionsTable } from '../../server/db/schema/index.js';
+import { forgetEncodedTexts } from '../../server/http/json-text.js';
+import { forgetRememberedResults as forgetKept } from '../../server/services/scenario-results.js';
 import { createTestApp, type TestApp } from '../helpers/app.js';
 import { asJson, demoScenarioFile, farmIdByName, signedIn } from '../helpers/scenarios.js';
 
@@ -267,6 +269,8 @@ describe('scenario API', () => {
       await t.database.db.update(scenariosTable).set({ document: old }).where(eq(scenariosTable.id, created.id));
       // As before results were kept: nothing kept for this version yet.
       await t.database.db.delete(scenarioResultsTable).where(eq(scenarioResultsTable.scenarioId, created.id));
+      forgetKept();
+    forgetEncodedTexts();
       const read = await owner.get(`${base}/scenarios/${created.id}`);
       expect(read.status).toBe(200);
       expect(read.body.scenario.herd.dryDaysPerCowYear).toBe(60);

@@ -1,10 +1,11 @@
-import { availableParallelism } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import { scenarioSchema, type Scenario, type ScenarioInput } from '../../shared/schema';
 import { createOption, STARTING_POINT_ORDER } from '../../shared/starting-points';
 import { evaluateScenario } from '../../shared/engine/evaluate';
 import { runMonteCarlo } from '../../shared/engine/risk/monte-carlo';
 import { bench, formatTable, type TableRow } from './harness';
 import { reportBundleSizes } from './bundle-size';
+import { httpBench } from './http';
 import { milkImportBench } from './milk-import';
 
 // Project targets: a live preview must feel instant, and a 10 000-draw risk run must finish
@@ -77,7 +78,8 @@ for (const horizon of [20, 40]) {
 }
 
 rows.push(...milkImportBench());
+rows.push(...(await httpBench()));
 
-process.stdout.write(`Node ${process.version}, ${availableParallelism()} cores available, benchmarks run on one\n\n`);
+process.stdout.write(`Node ${process.version}, ${availableParallelism()} cores available (load average ${loadavg().map((l) => l.toFixed(1)).join(' ')}), benchmarks run on one\n\n`);
 process.stdout.write(`${formatTable(rows)}\n`);
 reportBundleSizes(process.env.BYRECAST_DIST);
