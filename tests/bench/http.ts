@@ -4,13 +4,10 @@
  * and the median time of a save (PUT of the whole document, sequential).
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import autocannon from 'autocannon';
 import mysql from 'mysql2/promise';
-import { startLocalMariadb } from '../../server/db/local-server.js';
 import type { Scenario } from '../../shared/schema/index.js';
 import { median, type TableRow } from './harness';
 
@@ -33,7 +30,7 @@ function startServerProcess(databaseUrl: string): Promise<{ child: ChildProcess;
       const match = /listening (\S+)/.exec(out);
       if (match?.[1]) resolve({ child, url: match[1] });
     });
-    child.on('exit', (code) => reject(new Error(`bench server exited with ${code}`)));
+    child.once('exit', (code) => reject(new Error(`bench server exited with ${code}`)));
   });
 }
 
@@ -64,16 +61,14 @@ function load(url: string, cookie: string): Promise<autocannon.Result> {
   });
 }
 
-/** Runs the load and save benchmarks and returns their table rows. */
-export async function httpBench(): Promise<TableRow[]> {
-  const workDir = mkdtempSync(join(tmpdir(), 'byrecast-bench-'));
-  const database = await startLocalMariadb({ dataDir: join(workDir, 'mariadb'), quiet: true });
+/** Runs the load and save benchmarks on a database created on `databaseServerUrl`; returns their table rows. */
+export async function httpBench(databaseServerUrl: string): Promise<TableRow[]> {
   let child: ChildProcess | null = null;
   try {
-    const admin = await mysql.createConnection(database.serverUrl);
+    const admin = await mysql.createConnection(databaseServerUrl);
     await admin.query('CREATE DATABASE `bench` CHARACTER SET utf8mb4');
     await admin.end();
-    const server = await startServerProcess(`${database.serverUrl}/bench`);
+    const server = await startServerProcess(`${databaseServerUrl}/bench`);
     child = server.child;
     const cookie = await signIn(server.url, 'owner@byrecast.test');
     const [farm] = await getJson<{ id: number }[]>(`${server.url}/api/farms`, cookie);
@@ -121,8 +116,10 @@ export async function httpBench(): Promise<TableRow[]> {
       },
     ];
   } finally {
-    child?.kill('SIGTERM');
-    await database.stop();
-    rmSync(workDir, { recursive: true, force: true });
+    if (child && child.exitCode === null) {
+      const exited = new Promise((resolve) => child?.once('exit', resolve));
+      child.kill('SIGTERM');
+      await exited;
+    }
   }
 }
