@@ -427,7 +427,8 @@ export async function restoreVersion(
 ): Promise<JsonText<ScenarioView>> {
   await visibleHead(db, actor, scenarioId);
   const past = await versionOf(db, scenarioId, version);
-  return saveChange(db, actor, scenarioId, basedOn, note ?? `Restored version ${version}`, () => past.document);
+  // The past document was validated as it was read: it is saved whole, as a PUT is.
+  return saveChange(db, actor, scenarioId, basedOn, note ?? `Restored version ${version}`, { whole: past.document });
 }
 
 /** The latest document as the file `npm run evaluate` reads, and a file name for it. */
