@@ -110,7 +110,8 @@ function validated(document: unknown): Scenario {
   throw new AppError(400, 'invalid_input', first ? `${first[0]}: ${first[1]}` : 'Invalid scenario', fields);
 }
 
-async function visibleRecord(db: Executor, actor: ScenarioActor, scenarioId: number): Promise<ScenarioRecord> {
+/** The scenario as the caller may see it (a lender: the shared version); 404 otherwise. */
+export async function visibleRecord(db: Executor, actor: ScenarioActor, scenarioId: number): Promise<ScenarioRecord> {
   const access = await accessOf(db, actor);
   const record = canSeeScenario(access, scenarioId) ? await findScenario(db, actor.farmId, scenarioId) : null;
   if (!record) throw notFound('Scenario not found');
