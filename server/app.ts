@@ -1,6 +1,7 @@
 /** The Express application, built from its dependencies; `listen` lives in serve.ts. */
 import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import express, { type RequestHandler } from 'express';
 import helmet from 'helmet';
@@ -74,6 +75,8 @@ export function createApp(deps: AppDeps): express.Express {
     }),
   );
   if (config.logLevel !== 'silent') app.use(pinoHttp(requestLogOptions(logger)));
+  // gzip or brotli, as the client accepts: a scenario with its results is ~100 KB of JSON.
+  app.use(compression());
   app.use(express.json({ limit: '1mb' }));
   app.use(refuseMalformedText);
   app.use(cookieParser());

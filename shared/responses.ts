@@ -3,7 +3,7 @@
  * them). Dates are ISO 8601 strings, as they travel in JSON; `expiresOn` is a YYYY-MM-DD date.
  * `tests/unit/responses.test.ts` checks the server's services return exactly these shapes.
  */
-import type { MonteCarloResult, ScenarioResults } from './engine';
+import type { OptionDetail, ScenarioResultsSummary, MonteCarloResult } from './engine/index.js';
 import type { Herd, Scenario } from './schema';
 import type { FarmRole } from './schema/accounts';
 import type { ReviewStatusValue } from './schema/lender';
@@ -26,13 +26,34 @@ export interface ScenarioMeta {
   updatedBy: string | null;
 }
 
-/** GET S, and every save: the document, its version and its results. */
+declare const jsonOf: unique symbol;
+/**
+ * The JSON text of a `T`, written by the server around results it keeps as text and sent as it
+ * is. `key` names the content (the same key always comes with the same text), so the server can
+ * remember the text's compressed forms without reading the text.
+ */
+export interface JsonText<T> {
+  readonly text: string;
+  readonly key: string;
+  readonly [jsonOf]?: T;
+}
+
+/**
+ * GET S, and every save: the document, its version and the summary of its results (no yearly
+ * lines or loan payments: GET S/results/detail has those).
+ */
 export interface ScenarioView {
   id: number;
   scenario: Scenario;
   version: number;
-  results: ScenarioResults;
+  results: ScenarioResultsSummary;
   meta: ScenarioMeta;
+}
+
+/** GET S/results/detail: each option's yearly lines and loan payments at one version. */
+export interface ResultsDetailView {
+  version: number;
+  options: OptionDetail[];
 }
 
 /** One row of GET F/scenarios. */
@@ -62,14 +83,14 @@ export interface VersionListItem {
   createdAt: string;
 }
 
-/** GET S/versions/:version: a past version, read-only, with its results. */
+/** GET S/versions/:version: a past version, read-only, with the summary of its results. */
 export interface VersionView {
   version: number;
   scenario: Scenario;
   note: string;
   author: string | null;
   createdAt: string;
-  results: ScenarioResults;
+  results: ScenarioResultsSummary;
 }
 
 /** GET S/versions/compare. */

@@ -81,3 +81,5 @@ export const compareQuerySchema = z.object({
   units: choice('Units', ['metric', 'us'], 'Display units of the comparison; default the farm units').optional(),
 });
 export const versionQuerySchema = z.object({ version: idParamSchema('Version') });
+/** GET S/results/detail: the version to read; default the one the caller sees. */
+export const resultsDetailQuerySchema = z.object({ version: idParamSchema('Version').optional() });

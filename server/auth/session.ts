@@ -2,6 +2,7 @@
  * Sessions are a signed JWT in an httpOnly, SameSite=Lax cookie. The token carries the user's
  * token version: raising it (sign-out, password change) ends every earlier session.
  */
+import { createSecretKey, type KeyObject } from 'node:crypto';
 import type { Request, Response } from 'express';
 import jwt from 'jsonwebtoken';
 
@@ -16,8 +17,23 @@ export interface SessionClaims {
   exp: number;
 }
 
+const keys = new Map<string, KeyObject>();
+
+/**
+ * The secret as a KeyObject, made once: given a string, jsonwebtoken first tries it as a PEM
+ * public or private key and catches the failure on every call (about a millisecond a request).
+ */
+function keyOf(secret: string): KeyObject {
+  let key = keys.get(secret);
+  if (!key) {
+    key = createSecretKey(Buffer.from(secret, 'utf8'));
+    keys.set(secret, key);
+  }
+  return key;
+}
+
 export function issueSession(res: Response, req: Request, secret: string, userId: number, tokenVersion: number): void {
-  const token = jwt.sign({ ver: tokenVersion }, secret, {
+  const token = jwt.sign({ ver: tokenVersion }, keyOf(secret), {
     subject: String(userId),
     expiresIn: SESSION_LIFETIME_SECONDS,
     algorithm: 'HS256',
@@ -40,7 +56,7 @@ export function readSession(req: Request, secret: string): SessionClaims | null 
   const token = (req.cookies as Record<string, string> | undefined)?.[SESSION_COOKIE];
   if (!token) return null;
   try {
-    const claims = jwt.verify(token, secret, { algorithms: ['HS256'] });
+    const claims = jwt.verify(token, keyOf(secret), { algorithms: ['HS256'] });
     if (typeof claims === 'string' || typeof claims.sub !== 'string' || typeof claims.ver !== 'number') return null;
     return { sub: claims.sub, ver: claims.ver, iat: claims.iat ?? 0, exp: claims.exp ?? 0 };
   } catch {

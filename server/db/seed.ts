@@ -6,8 +6,9 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import bcrypt from 'bcryptjs';
 import { count } from 'drizzle-orm';
-import { evaluateCore } from '../../shared/engine/index.js';
+import { evaluateScenario } from '../../shared/engine/index.js';
 import { herdSchema, scenarioSchema } from '../../shared/schema/index.js';
+import { keep } from '../services/scenario-results.js';
 import { summarise } from '../services/scenarios.js';
 import type { Database } from './client.js';
 import { insertScenario } from './repositories/scenarios.js';
@@ -96,17 +97,19 @@ export async function seedDemoData(db: Database, options: { bcryptCost?: number 
     const now = new Date();
     const scenarioIds: number[] = [];
     for (const document of scenarios) {
-      scenarioIds.push(
-        await insertScenario(tx, {
-          farmId: farm.insertId,
-          name: document.name,
-          document,
-          summary: summarise(document, evaluateCore(document)),
-          userId: ownerId as number,
-          note: 'Demo scenario',
-          now,
-        }),
-      );
+      const results = evaluateScenario(document);
+      const id = await insertScenario(tx, {
+        farmId: farm.insertId,
+        name: document.name,
+        document,
+        summary: summarise(results),
+        userId: ownerId as number,
+        note: 'Demo scenario',
+        now,
+      });
+      // Kept with the version, so even the first read of a demo scenario evaluates nothing.
+      await keep(tx, id, 1, document, results);
+      scenarioIds.push(id);
     }
     await seedLenderShare(tx, farm.insertId, scenarioIds[0], lenderId, ownerId, now);
     return farm.insertId;

@@ -7,15 +7,16 @@ import {
   createScenarioBodySchema,
   duplicateOptionBodySchema,
   duplicateScenarioBodySchema,
-  
   importScenarioBodySchema,
   optionChangeBodySchema,
   reorderOptionsBodySchema,
   restoreVersionBodySchema,
+  resultsDetailQuerySchema,
   saveScenarioBodySchema,
   versionQuerySchema,
 } from '../../shared/scenario-api.js';
 import type { AppDeps } from '../app.js';
+import { sendJsonText } from '../http/json-text.js';
 import { actorOf, idParam } from '../http/params.js';
 import { farmAccess, farmRouter } from '../auth/middleware.js';
 import { parseOrThrow } from '../errors.js';
@@ -45,20 +46,26 @@ export function scenarioRoutes({ db }: AppDeps): Router {
     const isImport = typeof req.body === 'object' && req.body !== null && 'scenario' in req.body;
     if (isImport) {
       const input = parseOrThrow(importScenarioBodySchema, req.body);
-      res.status(201).json(await scenarios.importScenario(db, actorOf(req), input.scenario, input.name));
+      sendJsonText(req, res, await scenarios.importScenario(db, actorOf(req), input.scenario, input.name), 201);
     } else {
       const input = parseOrThrow(createScenarioBodySchema, req.body);
-      res.status(201).json(await scenarios.createFromBaseline(db, actorOf(req), input));
+      sendJsonText(req, res, await scenarios.createFromBaseline(db, actorOf(req), input), 201);
     }
   });
 
   route('get', '/scenarios/:scenarioId', 'scenario:read', async (req, res) => {
-    res.json(await scenarios.readScenario(db, actorOf(req), scenarioIdOf(req)));
+    sendJsonText(req, res, await scenarios.readScenario(db, actorOf(req), scenarioIdOf(req)));
+  });
+  // The yearly lines and loan payments, which GET S leaves out: the tables fetch them when shown.
+  route('get', '/scenarios/:scenarioId/results/detail', 'scenario:read', async (req, res) => {
+    const id = scenarioIdOf(req);
+    const query = parseOrThrow(resultsDetailQuerySchema, req.query);
+    sendJsonText(req, res, await scenarios.readResultsDetail(db, actorOf(req), id, query.version));
   });
   route('put', '/scenarios/:scenarioId', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const input = parseOrThrow(saveScenarioBodySchema, req.body);
-    res.json(await scenarios.saveScenario(db, actorOf(req), id, input.version, input.scenario, input.note));
+    sendJsonText(req, res, await scenarios.saveScenario(db, actorOf(req), id, input.version, input.scenario, input.note));
   });
   route('delete', '/scenarios/:scenarioId', 'scenario:write', async (req, res) => {
     await scenarios.deleteScenario(db, actorOf(req), scenarioIdOf(req));
@@ -67,7 +74,7 @@ export function scenarioRoutes({ db }: AppDeps): Router {
   route('post', '/scenarios/:scenarioId/duplicate', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const input = parseOrThrow(duplicateScenarioBodySchema, req.body ?? {});
-    res.status(201).json(await scenarios.duplicateScenario(db, actorOf(req), id, input.name));
+    sendJsonText(req, res, await scenarios.duplicateScenario(db, actorOf(req), id, input.name), 201);
   });
   route('post', '/scenarios/:scenarioId/archive', 'scenario:write', async (req, res) => {
     res.json(await scenarios.archiveScenario(db, actorOf(req), scenarioIdOf(req)));
@@ -80,28 +87,28 @@ export function scenarioRoutes({ db }: AppDeps): Router {
   route('post', '/scenarios/:scenarioId/options', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const input = parseOrThrow(addOptionBodySchema, req.body);
-    res.json(await scenarios.addOption(db, actorOf(req), id, input.version, input.startingPoint, input.name));
+    sendJsonText(req, res, await scenarios.addOption(db, actorOf(req), id, input.version, input.startingPoint, input.name));
   });
   route('post', '/scenarios/:scenarioId/options/reorder', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const input = parseOrThrow(reorderOptionsBodySchema, req.body);
-    res.json(await scenarios.reorderOptions(db, actorOf(req), id, input.version, input.order));
+    sendJsonText(req, res, await scenarios.reorderOptions(db, actorOf(req), id, input.version, input.order));
   });
   route('post', '/scenarios/:scenarioId/options/:optionId/duplicate', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const input = parseOrThrow(duplicateOptionBodySchema, req.body);
-    res.json(await scenarios.duplicateOption(db, actorOf(req), id, input.version, optionIdOf(req), input.name));
+    sendJsonText(req, res, await scenarios.duplicateOption(db, actorOf(req), id, input.version, optionIdOf(req), input.name));
   });
   route('post', '/scenarios/:scenarioId/options/:optionId/current', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const input = parseOrThrow(optionChangeBodySchema, req.body);
-    res.json(await scenarios.markCurrent(db, actorOf(req), id, input.version, optionIdOf(req)));
+    sendJsonText(req, res, await scenarios.markCurrent(db, actorOf(req), id, input.version, optionIdOf(req)));
   });
   route('delete', '/scenarios/:scenarioId/options/:optionId', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     // DELETE carries no body: the version it is based on comes as ?version=.
     const input = parseOrThrow(versionQuerySchema, req.query);
-    res.json(await scenarios.deleteOption(db, actorOf(req), id, input.version, optionIdOf(req)));
+    sendJsonText(req, res, await scenarios.deleteOption(db, actorOf(req), id, input.version, optionIdOf(req)));
   });
 
   route('get', '/scenarios/:scenarioId/versions', 'scenario:read', async (req, res) => {
@@ -114,13 +121,13 @@ export function scenarioRoutes({ db }: AppDeps): Router {
     res.json(await scenarios.compareVersions(db, actorOf(req), id, query.from, query.to, query.units));
   });
   route('get', '/scenarios/:scenarioId/versions/:version', 'scenario:read', async (req, res) => {
-    res.json(await scenarios.readVersion(db, actorOf(req), scenarioIdOf(req), versionOf(req)));
+    sendJsonText(req, res, await scenarios.readVersion(db, actorOf(req), scenarioIdOf(req), versionOf(req)));
   });
   route('post', '/scenarios/:scenarioId/versions/:version/restore', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
     const version = versionOf(req);
     const input = parseOrThrow(restoreVersionBodySchema, req.body ?? {});
-    res.json(await scenarios.restoreVersion(db, actorOf(req), id, version, input.version, input.note));
+    sendJsonText(req, res, await scenarios.restoreVersion(db, actorOf(req), id, version, input.version, input.note));
   });
 
   return router;

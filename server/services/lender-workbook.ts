@@ -14,7 +14,7 @@ import { buildLenderWorkbook, workbookFileName } from '../workbook/build-workboo
 import { recordAudit } from './audit.js';
 import type { FarmActor } from './lender-shares.js';
 import { riskInputsHash } from './risk-inputs-hash.js';
-import { readScenario } from './scenarios.js';
+import { readScenarioWhole } from './scenarios.js';
 
 /** Seeded Monte Carlo runs take seconds; the same inputs give the same result, so recent ones are kept. */
 const MONTE_CARLO_CACHE_SIZE = 16;
@@ -38,7 +38,7 @@ export async function lenderWorkbook(
   scenarioId: number,
   now = new Date(),
 ): Promise<{ fileName: string; workbook: ExcelJS.Workbook }> {
-  const view = await readScenario(db, { farmId: actor.farmId, role: actor.role, userId: actor.user.id }, scenarioId);
+  const view = await readScenarioWhole(db, { farmId: actor.farmId, role: actor.role, userId: actor.user.id }, scenarioId);
   const farm = await findFarm(db, actor.farmId);
   if (!farm) throw notFound('Farm not found');
   const { scenario, results, version } = view;
@@ -47,7 +47,7 @@ export async function lenderWorkbook(
     results,
     farm: { name: farm.name, location: farm.location },
     version: `Version ${version}`,
-    preparedBy: view.meta.updatedBy ?? farm.name,
+    preparedBy: view.updatedBy ?? farm.name,
     created: now,
     risk: { sensitivity: sensitivity(scenario), monteCarlo: cachedMonteCarlo(scenario) },
   });

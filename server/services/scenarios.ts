@@ -4,9 +4,9 @@
  * comparison. Every save validates the whole document and writes a new immutable version in
  * the same transaction as the scenario row, locked with SELECT … FOR UPDATE.
  */
-import type { ScenarioListItem, ScenarioView, VersionComparison, VersionListItem, VersionView } from '../../shared/responses.js';
+import type { JsonText, ResultsDetailView, ScenarioListItem, ScenarioMeta, ScenarioView, VersionComparison, VersionListItem, VersionView } from '../../shared/responses.js';
 import type { z } from 'zod';
-import { evaluateCore, evaluateScenario, type CoreScenarioResults } from '../../shared/engine/index.js';
+import { evaluateScenario, type ScenarioResultsSummary, type ScenarioResults, resultsCacheKey } from '../../shared/engine/index.js';
 import { diffScenarios, type Json } from '../../shared/scenario-diff.js';
 import type { createScenarioBodySchema } from '../../shared/scenario-api.js';
 import { DEFAULT_FINANCE, herdSchema, scenarioSchema, type Option, type Scenario, type ScenarioInput, type StartingPoint } from '../../shared/schema/index.js';
@@ -17,7 +17,9 @@ import { findFarmBaseline } from '../db/repositories/farm-baseline.js';
 import {
   deleteScenario as deleteScenarioRow,
   findScenario,
+  findScenarioHead,
   findVersion,
+  findVersionHead,
   insertScenario,
   listScenarios,
   listVersions,
@@ -25,15 +27,18 @@ import {
   setScenarioStatus,
   updateScenarioVersion,
   type Executor,
+  type ScenarioHead,
   type ScenarioRecord,
   type ScenarioSummary,
   type VersionRecord,
 } from '../db/repositories/scenarios.js';
 import type { ScenarioStatus } from '../db/schema/index.js';
+import type { KeptResults } from '../db/repositories/scenario-results.js';
 import { AppError, fieldErrors, notFound } from '../errors.js';
 import { accessOf, canSeeScenario, canSeeVersion, visibleVersions, type Access, type Actor } from './access.js';
+import { evaluateForKeeping, keep, keptDocument, keptResults } from './scenario-results.js';
 
-export type { ScenarioListItem, ScenarioView, VersionListItem };
+export type { ResultsDetailView, ScenarioListItem, ScenarioView, VersionListItem };
 
 /** Who is asking, on which farm. */
 export type ScenarioActor = Actor;
@@ -59,33 +64,32 @@ function assertVersionVisible(access: Access, scenarioId: number, version: numbe
  * the current option itself counts 0, staying as today), for the list: never by an option's own
  * whole-herd flows, which rank barns by the herd's margin rather than by what building changes.
  */
-export function summarise(scenario: Scenario, results: CoreScenarioResults): ScenarioSummary {
+export function summarise(results: { options: readonly { id: string; name: string; incremental: { npv: number } | null }[] }): ScenarioSummary {
   let best: ScenarioSummary['best'] = null;
   for (const option of results.options) {
     const npv = option.incremental?.npv ?? 0;
     if (best === null || npv > best.npv) best = { optionId: option.id, name: option.name, npv };
   }
-  return { optionCount: scenario.options.length, best };
+  return { optionCount: results.options.length, best };
 }
 
-function view(record: ScenarioRecord): ScenarioView {
-  const scenario = record.document;
+/** The answer of GET S written around the kept texts, which are sent as they are. */
+function viewText(head: ScenarioHead, kept: Pick<KeptResults, 'name' | 'document' | 'summary'>): JsonText<ScenarioView> {
+  const meta: ScenarioMeta = {
+    id: head.id,
+    farmId: head.farmId,
+    name: kept.name,
+    status: head.status,
+    version: head.version,
+    createdAt: head.createdAt.toISOString(),
+    createdBy: head.createdBy?.name ?? null,
+    updatedAt: head.updatedAt.toISOString(),
+    updatedBy: head.updatedBy?.name ?? null,
+  };
+  const metaJson = JSON.stringify(meta);
   return {
-    id: record.id,
-    scenario,
-    version: record.version,
-    results: evaluateScenario(scenario),
-    meta: {
-      id: record.id,
-      farmId: record.farmId,
-      name: record.name,
-      status: record.status,
-      version: record.version,
-      createdAt: record.createdAt.toISOString(),
-      createdBy: record.createdBy?.name ?? null,
-      updatedAt: record.updatedAt.toISOString(),
-      updatedBy: record.updatedBy?.name ?? null,
-    },
+    key: `scenario:${head.id}:${head.version}:${resultsCacheKey()}:${metaJson}`,
+    text: `{"id":${head.id},"scenario":${kept.document},"version":${head.version},"results":${kept.summary},"meta":${metaJson}}`,
   };
 }
 
@@ -111,17 +115,30 @@ export async function visibleRecord(db: Executor, actor: ScenarioActor, scenario
   return asSeenBy(db, access, record);
 }
 
+/** Like visibleRecord without reading the document: for a lender the shared version's number, time and author. */
+async function visibleHead(db: Executor, actor: ScenarioActor, scenarioId: number, access?: Access): Promise<ScenarioHead> {
+  const seen = access ?? (await accessOf(db, actor));
+  const head = canSeeScenario(seen, scenarioId) ? await findScenarioHead(db, actor.farmId, scenarioId) : null;
+  if (!head) throw notFound('Scenario not found');
+  const versions = visibleVersions(seen, scenarioId);
+  if (versions === null) return head;
+  const version = versions[0];
+  const found = version === undefined ? null : await findVersionHead(db, scenarioId, version);
+  if (!found) throw notFound('Scenario not found');
+  return { ...head, version: found.version, updatedAt: found.createdAt, updatedBy: found.author };
+}
+
 /** The farm's scenarios the caller may see, most recently saved first. */
 export async function listFarmScenarios(db: Database, actor: ScenarioActor): Promise<ScenarioListItem[]> {
   const access = await accessOf(db, actor);
   const visible = (await listScenarios(db, actor.farmId)).filter((record) => canSeeScenario(access, record.id));
-  // A lender's list describes the shared version, so its summary is computed from that document.
+  // A lender's list describes the shared version, so its summary comes from that version's kept results.
   const records = access.grants
     ? await Promise.all(
         visible.map(async (record) => {
-          const seen = await asSeenBy(db, access, record);
-          const document = seen.document;
-          return { ...seen, summary: summarise(document, evaluateCore(document)) };
+          const seen = await visibleHead(db, actor, record.id, access);
+          const kept = await keptResults(db, record.id, seen.version);
+          return { ...seen, name: kept.name, summary: summarise(JSON.parse(kept.summary) as ScenarioResultsSummary) };
         }),
       )
     : visible;
@@ -138,24 +155,44 @@ export async function listFarmScenarios(db: Database, actor: ScenarioActor): Pro
     }));
 }
 
-/** The latest version of a scenario with results evaluated on the server. */
-export async function readScenario(db: Database, actor: ScenarioActor, scenarioId: number): Promise<ScenarioView> {
-  return view(await visibleRecord(db, actor, scenarioId));
+/** The version of a scenario the caller sees, with the summary of its results, as JSON text: nothing is parsed or evaluated once its results are kept. */
+export async function readScenario(db: Executor, actor: ScenarioActor, scenarioId: number): Promise<JsonText<ScenarioView>> {
+  const head = await visibleHead(db, actor, scenarioId);
+  return viewText(head, await keptResults(db, scenarioId, head.version));
 }
 
-async function createScenario(db: Database, actor: ScenarioActor, document: Scenario, note: string): Promise<ScenarioView> {
-  const results = evaluateCore(document);
-  const id = await db.transaction((tx) =>
-    insertScenario(tx, {
+/** The version the caller sees (or `version`, when they may see it): each option's yearly lines and loan payments. */
+export async function readResultsDetail(db: Database, actor: ScenarioActor, scenarioId: number, version?: number): Promise<JsonText<ResultsDetailView>> {
+  const access = await accessOf(db, actor);
+  const head = await visibleHead(db, actor, scenarioId, access);
+  const at = version ?? head.version;
+  assertVersionVisible(access, scenarioId, at);
+  if (at > head.version) throw notFound(`Version ${at} not found`);
+  const kept = await keptResults(db, scenarioId, at);
+  return { key: `detail:${scenarioId}:${at}:${resultsCacheKey()}`, text: `{"version":${at},"options":${kept.detail}}` };
+}
+
+/** The version the caller sees with its whole results (yearly lines and loan payments too), for the lender workbook. */
+export async function readScenarioWhole(db: Database, actor: ScenarioActor, scenarioId: number): Promise<{ scenario: Scenario; results: ScenarioResults; version: number; updatedBy: string | null }> {
+  const record = await visibleRecord(db, actor, scenarioId);
+  return { scenario: record.document, results: evaluateScenario(record.document), version: record.version, updatedBy: record.updatedBy?.name ?? null };
+}
+
+async function createScenario(db: Database, actor: ScenarioActor, document: Scenario, note: string): Promise<JsonText<ScenarioView>> {
+  const results = evaluateForKeeping(document);
+  const id = await db.transaction(async (tx) => {
+    const created = await insertScenario(tx, {
       farmId: actor.farmId,
       name: document.name,
       document,
-      summary: summarise(document, results),
+      summary: summarise(results),
       userId: actor.userId,
       note,
       now: new Date(),
-    }),
-  );
+    });
+    await keep(tx, created, 1, document, results);
+    return created;
+  });
   return readScenario(db, actor, id);
 }
 
@@ -164,7 +201,7 @@ export async function createFromBaseline(
   db: Database,
   actor: ScenarioActor,
   input: z.output<typeof createScenarioBodySchema>,
-): Promise<ScenarioView> {
+): Promise<JsonText<ScenarioView>> {
   const farm = await findFarmBaseline(db, actor.farmId);
   const herd = herdSchema.safeParse(farm?.herd);
   if (!farm || !herd.success) {
@@ -189,14 +226,18 @@ export async function createFromBaseline(
 }
 
 /** A new scenario from a whole (already validated) document: an import, or a copy kept after a conflict. */
-export async function importScenario(db: Database, actor: ScenarioActor, scenario: Scenario, name?: string): Promise<ScenarioView> {
+export async function importScenario(db: Database, actor: ScenarioActor, scenario: Scenario, name?: string): Promise<JsonText<ScenarioView>> {
   return createScenario(db, actor, name ? { ...scenario, name } : scenario, 'Imported');
 }
 
+/** What a save writes: a whole document already validated by the route, or a change to the latest document. */
+type Change = { whole: Scenario } | ((latest: Scenario) => unknown);
+
 /**
  * Applies `change` to the latest document and saves the result as the next version, in one
- * transaction with the row locked. With `basedOn`, a scenario saved since then gives 409
- * `version_conflict` with who saved the newer version and when; nothing is written.
+ * transaction with the row locked; the new version's results are evaluated once and kept with it.
+ * With `basedOn`, a scenario saved since then gives 409 `version_conflict` with who saved the
+ * newer version and when; nothing is written.
  */
 async function saveChange(
   db: Database,
@@ -204,12 +245,13 @@ async function saveChange(
   scenarioId: number,
   basedOn: number | undefined,
   note: string,
-  change: (latest: Scenario) => unknown,
-): Promise<ScenarioView> {
+  change: Change,
+): Promise<JsonText<ScenarioView>> {
   await db.transaction(async (tx) => {
-    const locked = canSeeScenario(await accessOf(tx, actor), scenarioId) ? await lockScenario(tx, actor.farmId, scenarioId) : null;
+    const access = await accessOf(tx, actor);
+    const locked = canSeeScenario(access, scenarioId) ? await lockScenario(tx, actor.farmId, scenarioId) : null;
     if (!locked) throw notFound('Scenario not found');
-    const latest = await visibleRecord(tx, actor, scenarioId);
+    const latest = await visibleHead(tx, actor, scenarioId, access);
     if (basedOn !== undefined && basedOn !== locked.version) {
       throw new AppError(
         409,
@@ -219,24 +261,27 @@ async function saveChange(
         { latest: { version: latest.version, updatedBy: latest.updatedBy?.name ?? null, updatedAt: latest.updatedAt.toISOString() } },
       );
     }
-    const document = validated(change(latest.document));
+    const document = typeof change === 'function' ? validated(change(await keptDocument(tx, scenarioId, latest.version))) : change.whole;
+    const results = evaluateForKeeping(document);
+    const version = locked.version + 1;
     await updateScenarioVersion(tx, {
       scenarioId,
-      version: locked.version + 1,
+      version,
       name: document.name,
       document,
-      summary: summarise(document, evaluateCore(document)),
+      summary: summarise(results),
       userId: actor.userId,
       note,
       now: new Date(),
     });
+    await keep(tx, scenarioId, version, document, results);
   });
   return readScenario(db, actor, scenarioId);
 }
 
 /** Saves a whole document (PUT) based on `version`. */
-export function saveScenario(db: Database, actor: ScenarioActor, scenarioId: number, version: number, scenario: Scenario, note?: string): Promise<ScenarioView> {
-  return saveChange(db, actor, scenarioId, version, note ?? '', () => scenario);
+export function saveScenario(db: Database, actor: ScenarioActor, scenarioId: number, version: number, scenario: Scenario, note?: string): Promise<JsonText<ScenarioView>> {
+  return saveChange(db, actor, scenarioId, version, note ?? '', { whole: scenario });
 }
 
 function optionIndex(scenario: Scenario, optionId: string): number {
@@ -255,7 +300,7 @@ export function freeOptionId(scenario: Scenario, base: string): string {
 }
 
 /** Adds a candidate option from a starting point, sized for the scenario's herd. */
-export function addOption(db: Database, actor: ScenarioActor, scenarioId: number, version: number, startingPoint: StartingPoint, name?: string): Promise<ScenarioView> {
+export function addOption(db: Database, actor: ScenarioActor, scenarioId: number, version: number, startingPoint: StartingPoint, name?: string): Promise<JsonText<ScenarioView>> {
   return saveChange(db, actor, scenarioId, version, `Added an option from the ${startingPoint} starting point`, (latest) => {
     const option = createOption(startingPoint, latest.herd, { id: freeOptionId(latest, startingPoint), ...(name ? { name } : {}) });
     return { ...latest, options: [...latest.options, option] };
@@ -263,7 +308,7 @@ export function addOption(db: Database, actor: ScenarioActor, scenarioId: number
 }
 
 /** Copies an option (not as current) right after the original. */
-export function duplicateOption(db: Database, actor: ScenarioActor, scenarioId: number, version: number, optionId: string, name?: string): Promise<ScenarioView> {
+export function duplicateOption(db: Database, actor: ScenarioActor, scenarioId: number, version: number, optionId: string, name?: string): Promise<JsonText<ScenarioView>> {
   return saveChange(db, actor, scenarioId, version, `Duplicated option "${optionId}"`, (latest) => {
     const index = optionIndex(latest, optionId);
     const original = latest.options[index] as Option;
@@ -276,7 +321,7 @@ export function duplicateOption(db: Database, actor: ScenarioActor, scenarioId: 
 }
 
 /** Removes a candidate option; the current option stays until another is marked current. */
-export function deleteOption(db: Database, actor: ScenarioActor, scenarioId: number, version: number, optionId: string): Promise<ScenarioView> {
+export function deleteOption(db: Database, actor: ScenarioActor, scenarioId: number, version: number, optionId: string): Promise<JsonText<ScenarioView>> {
   return saveChange(db, actor, scenarioId, version, `Deleted option "${optionId}"`, (latest) => {
     const option = latest.options[optionIndex(latest, optionId)] as Option;
     if (option.current) {
@@ -287,7 +332,7 @@ export function deleteOption(db: Database, actor: ScenarioActor, scenarioId: num
 }
 
 /** Puts the options in the given order; `order` must name every option once. */
-export function reorderOptions(db: Database, actor: ScenarioActor, scenarioId: number, version: number, order: string[]): Promise<ScenarioView> {
+export function reorderOptions(db: Database, actor: ScenarioActor, scenarioId: number, version: number, order: string[]): Promise<JsonText<ScenarioView>> {
   return saveChange(db, actor, scenarioId, version, 'Reordered the options', (latest) => {
     const byId = new Map(latest.options.map((option) => [option.id, option]));
     const unique = new Set(order);
@@ -299,7 +344,7 @@ export function reorderOptions(db: Database, actor: ScenarioActor, scenarioId: n
 }
 
 /** Makes one option the current option (the baseline the others are measured against). */
-export function markCurrent(db: Database, actor: ScenarioActor, scenarioId: number, version: number, optionId: string): Promise<ScenarioView> {
+export function markCurrent(db: Database, actor: ScenarioActor, scenarioId: number, version: number, optionId: string): Promise<JsonText<ScenarioView>> {
   return saveChange(db, actor, scenarioId, version, `Marked option "${optionId}" as current`, (latest) => {
     optionIndex(latest, optionId);
     return { ...latest, options: latest.options.map((option) => ({ ...option, current: option.id === optionId })) };
@@ -307,7 +352,7 @@ export function markCurrent(db: Database, actor: ScenarioActor, scenarioId: numb
 }
 
 /** A new scenario holding a copy of the latest document. */
-export async function duplicateScenario(db: Database, actor: ScenarioActor, scenarioId: number, name?: string): Promise<ScenarioView> {
+export async function duplicateScenario(db: Database, actor: ScenarioActor, scenarioId: number, name?: string): Promise<JsonText<ScenarioView>> {
   const record = await visibleRecord(db, actor, scenarioId);
   const document = validated({ ...(record.document), name: name ?? `${record.name} (copy)` });
   return createScenario(db, actor, document, `Copied from "${record.name}" version ${record.version}`);
@@ -315,20 +360,20 @@ export async function duplicateScenario(db: Database, actor: ScenarioActor, scen
 
 /** Sets the status to archived; the document and its versions stay. */
 export async function archiveScenario(db: Database, actor: ScenarioActor, scenarioId: number): Promise<{ id: number; status: ScenarioStatus }> {
-  await visibleRecord(db, actor, scenarioId);
+  await visibleHead(db, actor, scenarioId);
   await setScenarioStatus(db, actor.farmId, scenarioId, 'archived');
   return { id: scenarioId, status: 'archived' };
 }
 
 /** Deletes the scenario with all its versions. */
 export async function deleteScenario(db: Database, actor: ScenarioActor, scenarioId: number): Promise<void> {
-  await visibleRecord(db, actor, scenarioId);
+  await visibleHead(db, actor, scenarioId);
   await deleteScenarioRow(db, actor.farmId, scenarioId);
 }
 
 export async function scenarioVersions(db: Database, actor: ScenarioActor, scenarioId: number): Promise<VersionListItem[]> {
-  await visibleRecord(db, actor, scenarioId);
   const access = await accessOf(db, actor);
+  await visibleHead(db, actor, scenarioId, access);
   const versions = (await listVersions(db, scenarioId)).filter((v) => canSeeVersion(access, scenarioId, v.version));
   return versions.map((v) => ({ version: v.version, note: v.note, author: v.author?.name ?? null, createdAt: v.createdAt.toISOString() }));
 }
@@ -339,20 +384,16 @@ async function versionOf(db: Database, scenarioId: number, version: number): Pro
   return found;
 }
 
-/** One past version, read-only, with its results evaluated now. */
-export async function readVersion(db: Database, actor: ScenarioActor, scenarioId: number, version: number): Promise<VersionView> {
-  await visibleRecord(db, actor, scenarioId);
-  assertVersionVisible(await accessOf(db, actor), scenarioId, version);
-  const found = await versionOf(db, scenarioId, version);
-  const scenario = found.document;
-  return {
-    version: found.version,
-    scenario,
-    note: found.note,
-    author: found.author?.name ?? null,
-    createdAt: found.createdAt.toISOString(),
-    results: evaluateScenario(scenario),
-  };
+/** One past version, read-only, with the summary of its results (kept, so evaluated at most once), as JSON text. */
+export async function readVersion(db: Database, actor: ScenarioActor, scenarioId: number, version: number): Promise<JsonText<VersionView>> {
+  const access = await accessOf(db, actor);
+  await visibleHead(db, actor, scenarioId, access);
+  assertVersionVisible(access, scenarioId, version);
+  const found = await findVersionHead(db, scenarioId, version);
+  if (!found) throw notFound(`Version ${version} not found`);
+  const kept = await keptResults(db, scenarioId, version);
+  const about = JSON.stringify({ version: found.version, note: found.note, author: found.author?.name ?? null, createdAt: found.createdAt.toISOString() });
+  return { key: `version:${scenarioId}:${resultsCacheKey()}:${about}`, text: `${about.slice(0, -1)},"scenario":${kept.document},"results":${kept.summary}}` };
 }
 
 /** Changed fields between two versions, in `units` for display (the farm's units by default). */
@@ -364,8 +405,8 @@ export async function compareVersions(
   to: number,
   units?: UnitSystem,
 ): Promise<VersionComparison> {
-  await visibleRecord(db, actor, scenarioId);
   const access = await accessOf(db, actor);
+  await visibleHead(db, actor, scenarioId, access);
   assertVersionVisible(access, scenarioId, from);
   assertVersionVisible(access, scenarioId, to);
   const [older, newer] = await Promise.all([versionOf(db, scenarioId, from), versionOf(db, scenarioId, to)]);
@@ -381,10 +422,11 @@ export async function restoreVersion(
   version: number,
   basedOn?: number,
   note?: string,
-): Promise<ScenarioView> {
-  await visibleRecord(db, actor, scenarioId);
+): Promise<JsonText<ScenarioView>> {
+  await visibleHead(db, actor, scenarioId);
   const past = await versionOf(db, scenarioId, version);
-  return saveChange(db, actor, scenarioId, basedOn, note ?? `Restored version ${version}`, () => past.document);
+  // The past document was validated as it was read: it is saved whole, as a PUT is.
+  return saveChange(db, actor, scenarioId, basedOn, note ?? `Restored version ${version}`, { whole: past.document });
 }
 
 /** The latest document as the file `npm run evaluate` reads, and a file name for it. */

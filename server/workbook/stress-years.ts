@@ -4,8 +4,7 @@
  * shocked, and the whole-farm coverage of each year as a live ratio of the two. The Stress
  * sheet's NPV, lowest coverage and years below the threshold are formulas over these rows.
  */
-import { evaluateStressYears } from '../../shared/engine/index.js';
-import { STRESS_TESTS } from '../../shared/engine/index.js';
+import { evaluateStressYears, STRESS_TESTS } from '../../shared/engine/index.js';
 import { INPUT_NAMES as N, type OptionLayout, type WorkbookContext } from './context.js';
 import { address, BASE_FONT, COVERAGE_FORMAT, freeze, quoteSheet, setFormula, setupPrint, shadeBelowThreshold, styleHeaderRow, styleNote, styleSection, writeTitle } from './layout.js';
 

@@ -26,6 +26,10 @@ export type {
   YearLine,
 } from './results';
 
+// Results split for reading: the summary every read sends and the heavy yearly/loan detail; the kept results' key.
+export { joinOption, splitResults, type OptionDetail, type OptionSummary, type ScenarioResultsSummary } from './result-parts';
+export { ENGINE_VERSION, resultsCacheKey } from './version';
+
 // The lender's stress table: its shocks and results.
 export { STRESS_TESTS, type StressResult, type StressYears } from './stress';
 

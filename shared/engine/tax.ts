@@ -1,3 +1,5 @@
+import { straightLineFast, wholeCents } from './cents';
+
 /**
  * Taxable income of one year (currency): operating margin − depreciation − loan interest +
  * gain on disposal (salvage − tax book value, in the horizon year only).
@@ -53,6 +55,20 @@ export function taxDepreciation(purchases: readonly PurchaseForTax[], horizon: n
   let bookValueAtHorizon = 0;
   for (const purchase of purchases) {
     if (purchase.cost <= 0) continue;
+    if (!purchase.schedule && schedule === straightLineFast) {
+      // straightLineFast's amounts without building its array (this runs for every purchase of
+      // every option of every Monte Carlo draw): the same values, added in the same order.
+      const life = purchase.lifeYears;
+      const base = wholeCents(purchase.cost);
+      const yearly = Math.round(base / life);
+      const last = Math.min(life, horizon - purchase.year);
+      for (let i = 0; i < life; i++) {
+        const amount = (i === life - 1 ? base - yearly * (life - 1) : yearly) / 100;
+        if (i < last) byYear[purchase.year + i + 1] = (byYear[purchase.year + i + 1] ?? 0) + amount;
+        else bookValueAtHorizon += amount;
+      }
+      continue;
+    }
     const amounts = purchase.schedule ? purchase.schedule(purchase.cost) : schedule(purchase.cost, purchase.lifeYears);
     const last = Math.min(amounts.length, horizon - purchase.year);
     for (let i = 0; i < last; i++) {

@@ -3,6 +3,7 @@ import type { ScenarioInput } from '@shared/schema';
 import type { z } from 'zod';
 import type { createScenarioBodySchema } from '@shared/scenario-api';
 import type {
+  ResultsDetailView,
   ScenarioListItem,
   ScenarioMeta,
   ScenarioStatus,
@@ -14,7 +15,7 @@ import type {
 } from '@shared/responses';
 import { http } from './client';
 
-export type { ScenarioListItem, ScenarioMeta, ScenarioStatus, VersionComparison, VersionConflict, VersionListItem };
+export type { ResultsDetailView, ScenarioListItem, ScenarioMeta, ScenarioStatus, VersionComparison, VersionConflict, VersionListItem };
 /** A scenario with its version and results, as GET S and every save answer. */
 export type ScenarioDocument = ScenarioView;
 /** A past version, read-only, with its results. */
@@ -32,6 +33,9 @@ export const scenariosApi = {
   createFrom: (farmId: number, scenario: ScenarioInput, name?: string) =>
     http.post<ScenarioDocument & { id: number }>(base(farmId), name ? { scenario, name } : { scenario }),
   get: (farmId: number, id: number) => http.get<ScenarioDocument>(`${base(farmId)}/${id}`),
+  /** Each option's yearly lines and loan payments, which `get` leaves out; at `version`, or the one the caller sees. */
+  resultsDetail: (farmId: number, id: number, version?: number) =>
+    http.get<ResultsDetailView>(`${base(farmId)}/${id}/results/detail${version === undefined ? '' : `?version=${version}`}`),
   save: (farmId: number, id: number, body: { version: number; scenario: ScenarioInput; note?: string }) =>
     http.put<ScenarioDocument>(`${base(farmId)}/${id}`, body),
   duplicate: (farmId: number, id: number) => http.post<ScenarioDocument & { id: number }>(`${base(farmId)}/${id}/duplicate`),

@@ -11,9 +11,15 @@ import { promisify } from 'node:util';
 import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { evaluateScenario } from '../../shared/engine/evaluate.js';
+import { splitResults } from '../../shared/engine/result-parts.js';
+import type { ScenarioResults } from '../../shared/engine/results.js';
+
+const summaryOf = (scenario: Scenario) => splitResults(evaluateScenario(scenario)).summary;
 import { scenarioSchema, type Scenario } from '../../shared/schema/index.js';
 import { eq } from 'drizzle-orm';
-import { scenariosTable, scenarioVersionsTable } from '../../server/db/schema/index.js';
+import { scenarioResultsTable, scenariosTable, scenarioVersionsTable } from '../../server/db/schema/index.js';
+import { forgetEncodedTexts } from '../../server/http/json-text.js';
+import { forgetRememberedResults as forgetKept } from '../../server/services/scenario-results.js';
 import { createTestApp, type TestApp } from '../helpers/app.js';
 import { asJson, demoScenarioFile, farmIdByName, signedIn } from '../helpers/scenarios.js';
 
@@ -101,7 +107,7 @@ describe('scenario API', () => {
       const five = (list.body as { id: number; name: string }[]).find((s) => s.name === demoScenarioFile('cairnbrook-five-systems.json').name)!;
       const { stdout } = await run('npx', ['tsx', 'server/cli/evaluate.ts', 'scenarios/cairnbrook-five-systems.json', '--json']);
       const served = await owner.get(`${base}/scenarios/${five.id}`);
-      expect(served.body.results).toEqual(JSON.parse(stdout));
+      expect(served.body.results).toEqual(asJson(splitResults(JSON.parse(stdout) as ScenarioResults).summary));
     }, 60_000);
   });
 
@@ -167,7 +173,7 @@ describe('scenario API', () => {
       expect(v1.status).toBe(200);
       expect(v1.body).toMatchObject({ version: 1, author: 'Maren Holt', note: 'Created from the farm baseline' });
       expect(v1.body.scenario.herd.cows).toBe(190);
-      expect(v1.body.results).toEqual(asJson(evaluateScenario(created.scenario)));
+      expect(v1.body.results).toEqual(asJson(summaryOf(created.scenario)));
     });
 
     it('compares an added option and a reorder by option id, not position', async () => {
@@ -261,6 +267,10 @@ describe('scenario API', () => {
       }
       await t.database.db.update(scenarioVersionsTable).set({ document: old }).where(eq(scenarioVersionsTable.scenarioId, created.id));
       await t.database.db.update(scenariosTable).set({ document: old }).where(eq(scenariosTable.id, created.id));
+      // As before results were kept: nothing kept for this version yet.
+      await t.database.db.delete(scenarioResultsTable).where(eq(scenarioResultsTable.scenarioId, created.id));
+      forgetKept();
+    forgetEncodedTexts();
       const read = await owner.get(`${base}/scenarios/${created.id}`);
       expect(read.status).toBe(200);
       expect(read.body.scenario.herd.dryDaysPerCowYear).toBe(60);
@@ -329,14 +339,14 @@ describe('scenario API', () => {
       const fixture = demoScenarioFile('cairnbrook-mattress-or-sand.json');
       const imported = await owner.post(`${base}/scenarios`).send({ scenario: fixture });
       expect(imported.status).toBe(201);
-      expect(imported.body.results).toEqual(asJson(evaluateScenario(scenarioSchema.parse(imported.body.scenario))));
+      expect(imported.body.results).toEqual(asJson(summaryOf(scenarioSchema.parse(imported.body.scenario))));
 
       const edited = structuredClone(imported.body.scenario as Scenario);
       edited.options[1]!.bedding.pricePerTonne = 22;
       edited.finance.interestRate = 0.065;
       const saved = await owner.put(`${base}/scenarios/${imported.body.id}`).send({ version: 1, scenario: edited });
       expect(saved.status).toBe(200);
-      const local = evaluateScenario(scenarioSchema.parse(edited));
+      const local = summaryOf(scenarioSchema.parse(edited));
       expect(saved.body.results).toEqual(asJson(local));
       // Dearer sand and a dearer loan must move the sand option's NPV (otherwise the check proves nothing).
       expect(saved.body.results.options[1].npv).not.toBe(imported.body.results.options[1].npv);
@@ -366,7 +376,7 @@ describe('scenario API', () => {
         const file = join(dir, 'export.json');
         writeFileSync(file, res.body as string);
         const { stdout } = await run('npx', ['tsx', 'server/cli/evaluate.ts', file, '--json']);
-        expect(JSON.parse(stdout)).toEqual(served.body.results);
+        expect(asJson(splitResults(JSON.parse(stdout) as ScenarioResults).summary)).toEqual(served.body.results);
       } finally {
         rmSync(dir, { recursive: true, force: true });
       }

@@ -1,10 +1,16 @@
-import { availableParallelism } from 'node:os';
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { startLocalMariadb } from '../../server/db/local-server.js';
 import { scenarioSchema, type Scenario, type ScenarioInput } from '../../shared/schema';
 import { createOption, STARTING_POINT_ORDER } from '../../shared/starting-points';
 import { evaluateCore, evaluateScenario } from '../../shared/engine/evaluate';
 import { runMonteCarlo } from '../../shared/engine/risk/monte-carlo';
 import { bench, formatTable, type TableRow } from './harness';
 import { reportBundleSizes } from './bundle-size';
+import { browserBench } from './browser';
+import { httpBench } from './http';
 import { milkImportBench } from './milk-import';
 
 // Project targets: a live preview must feel instant, and a 10 000-draw risk run must finish
@@ -82,6 +88,24 @@ for (const horizon of [20, 40]) {
 
 rows.push(...milkImportBench());
 
-process.stdout.write(`Node ${process.version}, ${availableParallelism()} cores available, benchmarks run on one\n\n`);
-process.stdout.write(`${formatTable(rows)}\n`);
-reportBundleSizes(process.env.BYRECAST_DIST);
+// The API and the screens: the built client and a real server on a throwaway MariaDB.
+const workDir = mkdtempSync(join(tmpdir(), 'byrecast-bench-'));
+try {
+  const distDir = process.env.BYRECAST_DIST ?? join(workDir, 'dist');
+  if (!process.env.BYRECAST_DIST) {
+    const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'error', '--outDir', distDir], { stdio: 'inherit' });
+    if (build.status !== 0) throw new Error('vite build failed');
+  }
+  const database = await startLocalMariadb({ dataDir: join(workDir, 'mariadb'), quiet: true });
+  try {
+    rows.push(...(await httpBench(database.serverUrl)));
+    rows.push(...(await browserBench(distDir, database.serverUrl)));
+  } finally {
+    await database.stop();
+  }
+  process.stdout.write(`Node ${process.version}, ${availableParallelism()} cores available (load average ${loadavg().map((l) => l.toFixed(1)).join(' ')}), benchmarks run on one\n\n`);
+  process.stdout.write(`${formatTable(rows)}\n`);
+  reportBundleSizes(distDir);
+} finally {
+  rmSync(workDir, { recursive: true, force: true });
+}

@@ -178,6 +178,8 @@ describe('results and comparison in Chromium', () => {
     // The demo enters no cost per cow besides feed: the screen says the added cows' part is overstated.
     await page.getByTestId('split-no-herd-costs').waitFor();
     expect(await page.locator('[data-metric="coverage"] .reading').innerText()).toMatch(/coverage lowest in year \d+ at \d\.\d\d — (below|at or above) the lender's 1\.25|no debt service/);
+    // The yearly and loan tables are drawn when they come near the screen, as the reader scrolls to them.
+    await page.locator('.results-view .tables').scrollIntoViewIfNeeded();
     await page.getByRole('row', { name: /Milk income/ }).first().waitFor();
     await expectNoBrokenNumbers(page);
     await harness.screenshot(page, 'results-desktop');

@@ -34,9 +34,10 @@ type Answer<F extends (...args: never[]) => unknown> = Awaited<ReturnType<F>>;
 describe('API response types', () => {
   it('are what the services return', () => {
     expectTypeOf<Answer<typeof scenarios.listFarmScenarios>>().toEqualTypeOf<R.ScenarioListItem[]>();
-    expectTypeOf<Answer<typeof scenarios.readScenario>>().toEqualTypeOf<R.ScenarioView>();
+    expectTypeOf<Answer<typeof scenarios.readScenario>>().toEqualTypeOf<R.JsonText<R.ScenarioView>>();
+    expectTypeOf<Answer<typeof scenarios.readResultsDetail>>().toEqualTypeOf<R.JsonText<R.ResultsDetailView>>();
     expectTypeOf<Answer<typeof scenarios.scenarioVersions>>().toEqualTypeOf<R.VersionListItem[]>();
-    expectTypeOf<Answer<typeof scenarios.readVersion>>().toEqualTypeOf<R.VersionView>();
+    expectTypeOf<Answer<typeof scenarios.readVersion>>().toEqualTypeOf<R.JsonText<R.VersionView>>();
     expectTypeOf<Answer<typeof scenarios.compareVersions>>().toEqualTypeOf<R.VersionComparison>();
     expectTypeOf<Answer<typeof preferences.readPreferences>>().toEqualTypeOf<R.PreferencesView>();
     expectTypeOf<Answer<typeof preferences.readRiskResult>>().toEqualTypeOf<R.RiskResultView | null>();

@@ -91,6 +91,50 @@ export async function findScenario(db: Executor, farmId: number, scenarioId: num
   return row ? toRecord(row) : null;
 }
 
+/** A scenario record without its document and summary: what a read needs when the results are kept. */
+export type ScenarioHead = Omit<ScenarioRecord, 'document' | 'summary'>;
+
+/** One scenario of this farm without reading its document; null for an id of another farm. */
+export async function findScenarioHead(db: Executor, farmId: number, scenarioId: number): Promise<ScenarioHead | null> {
+  const [found] = await db
+    .select({
+      id: scenariosTable.id,
+      farmId: scenariosTable.farmId,
+      name: scenariosTable.name,
+      status: scenariosTable.status,
+      version: scenariosTable.version,
+      createdById: scenariosTable.createdBy,
+      updatedById: scenariosTable.updatedBy,
+      createdAt: scenariosTable.createdAt,
+      updatedAt: scenariosTable.updatedAt,
+      creatorName: creator.name,
+      updaterName: updater.name,
+    })
+    .from(scenariosTable)
+    .leftJoin(creator, eq(creator.id, scenariosTable.createdBy))
+    .leftJoin(updater, eq(updater.id, scenariosTable.updatedBy))
+    .where(and(eq(scenariosTable.farmId, farmId), eq(scenariosTable.id, scenarioId)));
+  if (!found) return null;
+  const { createdById, updatedById, creatorName, updaterName, ...row } = found;
+  return { ...row, createdBy: person(createdById, creatorName), updatedBy: person(updatedById, updaterName) };
+}
+
+/** One version without its document; null when there is none. */
+export async function findVersionHead(db: Executor, scenarioId: number, version: number): Promise<Omit<VersionRecord, 'document'> | null> {
+  const [row] = await db
+    .select({
+      version: scenarioVersionsTable.version,
+      note: scenarioVersionsTable.note,
+      createdAt: scenarioVersionsTable.createdAt,
+      authorId: scenarioVersionsTable.authorId,
+      authorName: usersTable.name,
+    })
+    .from(scenarioVersionsTable)
+    .leftJoin(usersTable, eq(usersTable.id, scenarioVersionsTable.authorId))
+    .where(and(eq(scenarioVersionsTable.scenarioId, scenarioId), eq(scenarioVersionsTable.version, version)));
+  return row ? { version: row.version, note: row.note, createdAt: row.createdAt, author: person(row.authorId, row.authorName) } : null;
+}
+
 /** Locks the scenario row until the transaction ends (SELECT … FOR UPDATE) and returns its version, or null. */
 export async function lockScenario(tx: Executor, farmId: number, scenarioId: number): Promise<{ version: number } | null> {
   const [row] = await tx
@@ -111,7 +155,7 @@ export interface NewScenario {
   now: Date;
 }
 
-/** Inserts a scenario at version 1 and its first version row; call inside a transaction. */
+/** Inserts a scenario at version 1 and its first version row; call inside a transaction. Returns the new id. */
 export async function insertScenario(tx: Executor, input: NewScenario): Promise<number> {
   const [result] = await tx.insert(scenariosTable).values({
     farmId: input.farmId,

@@ -4,7 +4,7 @@
  * read, saved and versioned whole; options and lines keep stable string ids inside it, which
  * other tables use together with the scenario id. See DEVELOPERS.md, "Scenarios".
  */
-import { index, int, json, mysqlEnum, mysqlTable, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { index, int, json, longtext, mysqlEnum, mysqlTable, primaryKey, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
 import { farmsTable, usersTable } from './accounts.js';
 import { createdAt, id, ref, timestamp } from './columns.js';
 import { scenarioStatuses, type ScenarioStatus } from '../../../shared/responses.js';
@@ -49,6 +49,33 @@ export const scenarioVersionsTable = mysqlTable(
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex('scenario_versions_scenario_version_unique').on(t.scenarioId, t.version)],
+);
+
+/**
+ * Results of one scenario version, kept as JSON text: they are a pure function of the version's
+ * document and the engine, so they are computed once (at save, or at the first read of an older
+ * version) and a read sends them without parsing or evaluating. `engine_key` is
+ * shared/engine/version.ts `resultsCacheKey()`: rows under another key are stale and ignored.
+ */
+export const scenarioResultsTable = mysqlTable(
+  'scenario_results',
+  {
+    scenarioId: ref('scenario_id')
+      .notNull()
+      .references(() => scenariosTable.id, { onDelete: 'cascade' }),
+    version: int('version', { unsigned: true }).notNull(),
+    engineKey: varchar('engine_key', { length: 40 }).notNull(),
+    /** The version's document.name, for its meta without reading the document. */
+    name: varchar('name', { length: 120 }).notNull(),
+    /** The version's document as read today (migrated and validated), as JSON text. */
+    document: longtext('document').notNull(),
+    /** shared/engine/result-parts.ts ScenarioResultsSummary, as JSON text. */
+    summary: longtext('summary').notNull(),
+    /** OptionDetail[] (yearly lines and loan payments), as JSON text. */
+    detail: longtext('detail').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ name: 'scenario_results_pk', columns: [t.scenarioId, t.version, t.engineKey] })],
 );
 
 export type ScenarioRow = typeof scenariosTable.$inferSelect;

@@ -1,5 +1,5 @@
 /** How each comparison measure is written in a table cell, and why a missing value is missing. Pure. */
-import type { OptionResult } from '@shared/engine';
+import type { OptionSummary } from '@shared/engine/index.js';
 import { formatMoney, formatNumber, formatPercent, type MoneyFormat } from '@/composables/useMoney';
 import { irrUndefinedReading } from '@/components/results/readings';
 import type { Measure } from './ranking';
@@ -23,7 +23,7 @@ export function measureText(measure: Measure, value: number, format: MoneyFormat
 }
 
 /** Short text and the full reason for a measure an option lacks. */
-export function missingText(measure: Measure, option: OptionResult, horizon: number): { short: string; reason: string } {
+export function missingText(measure: Measure, option: OptionSummary, horizon: number): { short: string; reason: string } {
   const change = option.incremental;
   const ofTheChange = ['irr', 'mirr', 'paybackYears', 'paybackFromOperationsYears', 'discountedPaybackYears', 'profitabilityIndex', 'lowestProjectCoverage'].includes(measure.key);
   if (ofTheChange && (option.current || !change)) {

@@ -1,9 +1,9 @@
 /**
  * The comparison's measures and the ranking of options by one of them. Pure: takes the engine's
- * OptionResult values as they are; a measure an option lacks (null) ranks after every option
+ * OptionSummary values as they are; a measure an option lacks (null) ranks after every option
  * that has it, ties keep the scenario's option order.
  */
-import type { OptionResult } from '@shared/engine';
+import type { OptionSummary } from '@shared/engine/index.js';
 
 export type MeasureKind = 'money' | 'percent' | 'years' | 'ratio' | 'hours' | 'tonnes';
 
@@ -14,7 +14,7 @@ export interface Measure {
   /** True when a larger value is better for the farm. */
   higherIsBetter: boolean;
   /** The option's value, straight from the engine's result (year-1 figures for yearly quantities). */
-  value(option: OptionResult): number | null;
+  value(option: OptionSummary): number | null;
 }
 
 export type MeasureKey =
@@ -42,16 +42,16 @@ const year1 = (values: readonly number[]): number | null => values[1] ?? null;
  * about the decision: the rate-of-return measures are taken on the change against the current
  * option, which itself has none.
  */
-const change = (o: OptionResult) => (o.current ? undefined : o.incremental);
+const change = (o: OptionSummary) => (o.current ? undefined : o.incremental);
 
 /** An IRR of flows that start with a saving is a borrowing rate, not a return: not ranked. */
-const investmentIrr = (o: OptionResult): number | null => {
+const investmentIrr = (o: OptionSummary): number | null => {
   const inc = change(o);
   return inc && inc.irrKind !== 'borrowing' ? inc.irr : null;
 };
 
 /** Lowest whole-farm coverage under the bank's combined shock: milk −10 % with interest +2 points. */
-const stressedCoverage = (o: OptionResult): number | null => o.stress.find((s) => s.id === 'milk-10-rate+2')?.lowestCoverage ?? null;
+const stressedCoverage = (o: OptionSummary): number | null => o.stress.find((s) => s.id === 'milk-10-rate+2')?.lowestCoverage ?? null;
 
 /**
  * Every measure the comparison shows, in table order: the change against the current option
@@ -83,7 +83,7 @@ export function measureByKey(key: string): Measure {
 }
 
 export interface RankedOption {
-  option: OptionResult;
+  option: OptionSummary;
   /** 1 = best; options with the same value share a rank; null when the option lacks the measure. */
   rank: number | null;
   value: number | null;
@@ -93,7 +93,7 @@ export interface RankedOption {
  * Options ordered best first by `measure` (direction from the measure), options without a
  * value last; equal values share a rank (competition ranking, 1-2-2-4), ties in scenario order.
  */
-export function rankOptions(options: readonly OptionResult[], measure: Measure): RankedOption[] {
+export function rankOptions(options: readonly OptionSummary[], measure: Measure): RankedOption[] {
   const entries = options.map((option, index) => ({ option, index, value: measure.value(option) }));
   const sign = measure.higherIsBetter ? -1 : 1;
   entries.sort((a, b) => {

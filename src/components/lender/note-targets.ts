@@ -1,6 +1,5 @@
 /** What a lender's note can point at in a shared scenario: each option and its lines, by name. Pure. */
 import type { Scenario } from '@shared/schema';
-import type { OptionResult } from '@shared/engine';
 import { projectionRows } from '@/components/results/projection-rows';
 
 export interface NoteTarget {
@@ -10,11 +9,13 @@ export interface NoteTarget {
   lines: string[];
 }
 
+/** The yearly projection's line names: the same for every option, so no yearly figures are needed to list them. */
+const PROJECTION_LINES = projectionRows([]).filter((row) => row.kind === 'line').map((row) => `Yearly: ${row.label}`);
+
 /** The options of `scenario` with the names of their capital, running-cost and energy lines and projection rows. */
-export function noteTargets(scenario: Scenario, results: readonly OptionResult[]): NoteTarget[] {
+export function noteTargets(scenario: Scenario): NoteTarget[] {
   return scenario.options.map((option) => {
-    const result = results.find((r) => r.id === option.id);
-    const projection = result ? projectionRows(result.years).filter((row) => row.kind === 'line').map((row) => `Yearly: ${row.label}`) : [];
+    const projection = PROJECTION_LINES;
     const lines = [
       ...option.capitalLines.map((l) => `Capital: ${l.description}`),
       ...option.runningCosts.map((l) => `Running cost: ${l.description}`),

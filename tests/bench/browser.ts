@@ -1,0 +1,106 @@
+/**
+ * The screens in Chromium against the built client and a real server on a throwaway MariaDB:
+ * how long the owner's Results tab and the lender's view take to show their figures, and the
+ * main thread's long tasks (PerformanceObserver 'longtask', every task over 50 ms) while a
+ * 10 000-draw Monte Carlo runs in its worker and while its finished result is drawn.
+ */
+import type { Page } from 'playwright-core';
+import { signInThroughForm, startBrowserHarness } from '../helpers/browser.js';
+import type { TableRow } from './harness';
+
+// Targets: a screen usable within a second on desktop; the page never blocked past one long task (50 ms).
+const SCREEN_TARGET_MS = 1000;
+const LONG_TASK_TARGET_MS = 50;
+const DRAWS = 10_000;
+
+/** Installed before any page script: records long tasks and the moment the run's bar reaches 100 %. */
+function observePage(): void {
+  const w = window as unknown as { __longTasks: { start: number; duration: number }[]; __mcDoneAt: number[] };
+  w.__longTasks = [];
+  w.__mcDoneAt = [];
+  new PerformanceObserver((list) => {
+    for (const entry of list.getEntries()) w.__longTasks.push({ start: entry.startTime, duration: entry.duration });
+  }).observe({ type: 'longtask', buffered: true });
+  new MutationObserver((mutations) => {
+    for (const m of mutations) {
+      const el = m.target as Element;
+      if (el.getAttribute('data-testid') === 'mc-progress' && el.getAttribute('aria-valuenow') === '100') w.__mcDoneAt.push(performance.now());
+    }
+  }).observe(document, { subtree: true, attributes: true, attributeFilter: ['aria-valuenow'] });
+}
+
+type Tasks = { start: number; duration: number }[];
+const longTasks = (page: Page): Promise<Tasks> => page.evaluate(() => (window as unknown as { __longTasks: Tasks }).__longTasks);
+const worst = (tasks: Tasks): number => tasks.reduce((m, t) => Math.max(m, t.duration), 0);
+
+/** Opens `path` fresh and returns ms from navigation start until `selector` is visible, and the worst long task meanwhile. */
+async function timeToShow(page: Page, path: string, selector: string): Promise<{ ms: number; worstTask: number }> {
+  await page.goto('about:blank');
+  await page.goto(path);
+  await page.locator(selector).first().waitFor({ timeout: 30_000 });
+  const ms = await page.evaluate(() => performance.now());
+  return { ms, worstTask: worst(await longTasks(page)) };
+}
+
+async function scenarioPaths(page: Page): Promise<{ farmId: number; scenarioId: number }> {
+  const farms = (await (await page.request.get('/api/farms')).json()) as { id: number }[];
+  const farmId = farms[0]!.id;
+  const list = (await (await page.request.get(`/api/farms/${farmId}/scenarios`)).json()) as { id: number; name: string }[];
+  return { farmId, scenarioId: list.find((s) => s.name.includes('five'))!.id };
+}
+
+/** Median of three loads, after one warm-up load (the server's kept results and the browser's cache of the client). */
+async function medianOf(page: Page, path: string, selector: string): Promise<{ ms: number; worstTask: number }> {
+  await timeToShow(page, path, selector);
+  const runs = [];
+  for (let i = 0; i < 3; i += 1) runs.push(await timeToShow(page, path, selector));
+  runs.sort((a, b) => a.ms - b.ms);
+  return runs[1]!;
+}
+
+/** Runs the screen benchmarks; `distDir` is the built client, `databaseServerUrl` a MariaDB to create the database on. */
+export async function browserBench(distDir: string, databaseServerUrl: string): Promise<TableRow[]> {
+  process.env.BYRECAST_DIST = distDir;
+  process.env.TEST_DATABASE_URL = databaseServerUrl;
+  const harness = await startBrowserHarness();
+  try {
+    const owner = await harness.newContext({ width: 1366, height: 900 });
+    await owner.addInitScript(observePage);
+    const page = await owner.newPage();
+    await signInThroughForm(page, 'owner@byrecast.test');
+    const { farmId, scenarioId } = await scenarioPaths(page);
+    const base = `/farms/${farmId}/scenarios/${scenarioId}`;
+    const results = await medianOf(page, `${base}/results`, '[data-testid="metrics-list"]');
+
+    const lenderContext = await harness.newContext({ width: 1366, height: 900 });
+    await lenderContext.addInitScript(observePage);
+    const lenderPage = await lenderContext.newPage();
+    await signInThroughForm(lenderPage, 'lender@byrecast.test');
+    const lender = await medianOf(lenderPage, `/farms/${farmId}/shared/${scenarioId}`, '[data-testid="comparison-table"]');
+
+    await page.goto(`${base}/risk`);
+    await page.getByTestId('mc-run').waitFor();
+    await page.locator('#mc-draws').fill(String(DRAWS));
+    await page.locator('#mc-draws').blur();
+    await page.waitForTimeout(1000);
+    const runAt = await page.evaluate(() => performance.now());
+    await page.getByTestId('mc-run').click();
+    await page.waitForFunction(() => (window as unknown as { __mcDoneAt: number[] }).__mcDoneAt.length > 0, undefined, { timeout: 240_000 });
+    await page.getByTestId('mc-summary').waitFor();
+    await page.locator('.monte-carlo .apexcharts-canvas').waitFor({ timeout: 30_000 });
+    await page.waitForTimeout(500);
+    const doneAt = await page.evaluate(() => (window as unknown as { __mcDoneAt: number[] }).__mcDoneAt[0] ?? 0);
+    const tasks = await longTasks(page);
+    const during = worst(tasks.filter((t) => t.start >= runAt && t.start < doneAt));
+    const drawing = worst(tasks.filter((t) => t.start >= doneAt));
+    const fmt = (ms: number): string => (ms === 0 ? 'none over 50 ms' : `${ms.toFixed(0)} ms`);
+    return [
+      { name: 'Results tab (owner), desktop: metrics shown', value: `${results.ms.toFixed(0)} ms`, cpu: `worst long task ${fmt(results.worstTask)}`, target: `< ${SCREEN_TARGET_MS} ms`, pass: results.ms < SCREEN_TARGET_MS },
+      { name: 'lender view, desktop: comparison shown', value: `${lender.ms.toFixed(0)} ms`, cpu: `worst long task ${fmt(lender.worstTask)}`, target: `< ${SCREEN_TARGET_MS} ms`, pass: lender.ms < SCREEN_TARGET_MS },
+      { name: `Monte Carlo ${DRAWS} draws in the browser: main thread while running`, value: fmt(during), cpu: '(longest task)', target: `no task over ${LONG_TASK_TARGET_MS} ms`, pass: during === 0 },
+      { name: 'Monte Carlo result drawn (table, histogram)', value: fmt(drawing), cpu: '(longest task)', target: `no task over ${LONG_TASK_TARGET_MS} ms`, pass: drawing === 0 },
+    ];
+  } finally {
+    await harness.close();
+  }
+}
