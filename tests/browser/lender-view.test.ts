@@ -12,6 +12,7 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runMonteCarlo, type MonteCarloResult } from '../../shared/engine/risk/monte-carlo.js';
 import { scenarioSchema, type Scenario } from '../../shared/schema/index.js';
+import { utcDatePlusDays } from '../../shared/schema/lender.js';
 import type { OptionResult } from '../../shared/engine/results.js';
 import { signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser.js';
 import { pdfBytes } from '../helpers/uploads.js';
@@ -208,6 +209,36 @@ describe('the lender sees what the share promises', () => {
     await page.waitForURL(new RegExp(`/farms/${farmId}$`));
     await context.close();
   });
+  it('lands the lender on the newest of their shares, and names the scenario in the version history breadcrumb', async () => {
+    // The owner shares a second scenario with the demo lender, who accepts it while signed in.
+    const ownerContext = await harness.newContext(DESKTOP);
+    const owner = await ownerContext.newPage();
+    await signInThroughForm(owner, 'owner@byrecast.test');
+    const list = (await (await owner.request.get(`/api/farms/${farmId}/scenarios`)).json()) as { id: number; name: string }[];
+    const second = list.find((s) => s.id !== scenarioId)!;
+    const shared = await owner.request.post(`/api/farms/${farmId}/scenarios/${second.id}/lender-shares`, { data: { email: 'lender@byrecast.test', expiresOn: utcDatePlusDays(new Date(), 30) } });
+    expect(shared.status()).toBe(201);
+    // The version history names the scenario in the one breadcrumb style.
+    await owner.goto(`/farms/${farmId}/scenarios/${second.id}/versions`);
+    await poll(() => owner.getByRole('navigation', { name: 'Breadcrumb' }).innerText()).toContain(second.name);
+    await harness.screenshot(owner, 'version-history-breadcrumb-desktop');
+    await ownerContext.close();
+
+    const outbox = (await (await harness.newContext(DESKTOP)).request.get(`${harness.url}/api/dev/outbox`)).json() as Promise<{ messages: { to: string; links: string[] }[] }>;
+    const link = (await outbox).messages.find((m) => m.to === 'lender@byrecast.test')?.links.find((l) => l.includes('/lender-shares/'));
+    expect(link).toBeDefined();
+    const token = decodeURIComponent(link!.split('/lender-shares/')[1]!);
+    const lenderContext = await harness.newContext(DESKTOP);
+    const lender = await lenderContext.newPage();
+    await signInThroughForm(lender, 'lender@byrecast.test');
+    expect((await lender.request.post(`/api/lender-shares/${encodeURIComponent(token)}/accept`, { data: {} })).status()).toBe(200);
+    await lenderContext.close();
+
+    const again = await (await harness.newContext(DESKTOP)).newPage();
+    await signInThroughForm(again, 'lender@byrecast.test');
+    await again.waitForURL(new RegExp(`/farms/${farmId}/shared/${second.id}$`));
+    await poll(() => again.getByRole('navigation', { name: 'Breadcrumb' }).innerText()).toContain(second.name);
+  }, 120_000);
 });
 
 const FIVE_SYSTEMS = 'scenarios/cairnbrook-five-systems.json';
