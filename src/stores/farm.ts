@@ -3,7 +3,6 @@ import { defineStore } from 'pinia';
 import { computed, readonly, ref } from 'vue';
 import { baselineApi, type FarmBaseline } from '@/api/baseline';
 import { farmsApi, type FarmDetail } from '@/api/farms';
-import { ApiError } from '@/api/client';
 import { messageFor } from '@/api/messages';
 import { scenariosApi, type CreateScenarioBody, type ScenarioListItem } from '@/api/scenarios';
 import type { DisplaySettings } from '@/composables/useFormat';
