@@ -5,6 +5,7 @@
  * Formatters are cached: tables format thousands of cells.
  */
 import { computed, inject, provide, toValue, type ComputedRef, type InjectionKey, type MaybeRefOrGetter } from 'vue';
+import { currencyName, numberStyleName } from '@shared/display-names';
 import type { UnitSystem } from '@shared/units';
 
 /** How a farm shows figures: unit system for quantities, locale and currency for numbers and money. */
@@ -191,32 +192,12 @@ export function formatInputNumber(value: number, locale: string, digits: number)
   return formatter(locale, { maximumFractionDigits: digits, useGrouping: true }).format(value === 0 ? 0 : value).replace(/[\u2212]/g, '-');
 }
 
-/** Where each number style is used, by the country a farmer knows it from. */
-const LOCALE_COUNTRIES: Readonly<Record<string, string>> = {
-  'en-IE': 'Ireland',
-  'en-GB': 'United Kingdom',
-  'en-US': 'United States',
-  'en-CA': 'Canada',
-  'en-AU': 'Australia',
-  'en-NZ': 'New Zealand',
-  'de-DE': 'Germany',
-  'fr-FR': 'France',
-  'nl-NL': 'Netherlands',
-  'da-DK': 'Denmark',
-  'pl-PL': 'Poland',
-};
-
 /** Number styles to choose from by name with a sample: "Ireland — 1,234.5", "Germany — 1.234,5". */
 export function numberStyleChoices(locales: readonly string[]): { value: string; label: string }[] {
-  return locales.map((locale) => ({ value: locale, label: `${LOCALE_COUNTRIES[locale] ?? locale} — ${formatNumber(1234.5, locale, 1)}` }));
+  return locales.map((locale) => ({ value: locale, label: numberStyleName(locale) }));
 }
 
 /** Currencies to choose from by name with their symbol: "Euro (€)". */
 export function currencyChoices(currencies: readonly string[], locale: string): { value: string; label: string }[] {
-  const names = new Intl.DisplayNames([locale, 'en'], { type: 'currency' });
-  return currencies.map((currency) => {
-    const symbol = formatter(locale, { style: 'currency', currency }).formatToParts(0).find((part) => part.type === 'currency')?.value ?? currency;
-    const name = names.of(currency) ?? currency;
-    return { value: currency, label: symbol === currency ? `${name} (${currency})` : `${name} (${symbol})` };
-  });
+  return currencies.map((currency) => ({ value: currency, label: currencyName(currency, locale) }));
 }
