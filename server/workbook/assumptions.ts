@@ -17,7 +17,6 @@ import {
   sheetRef,
   styleHeaderRow,
   styleInput,
-  styleNote,
   styleSection,
   writeTitle,
 } from './layout.js';

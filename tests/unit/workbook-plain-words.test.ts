@@ -13,7 +13,7 @@ import { wholeWordSheetName } from '../../server/workbook/layout';
 import { plainLabel } from '../../server/workbook/plain-words';
 
 const scenario = scenarioSchema.parse(JSON.parse(readFileSync('scenarios/cairnbrook-mattress-or-sand.json', 'utf8')));
-const sand = scenario.options.find((option) => option.bed === 'sand') ?? scenario.options[1];
+const sand = scenario.options.find((option) => option.bed === 'deep-sand') ?? scenario.options[1];
 const shell = sand?.capitalLines.find((line) => line.kind === 'item');
 
 async function assumptionRows(): Promise<{ names: string[]; rows: string[][] }> {
