@@ -68,7 +68,7 @@ describe('words and formats on the screens a family and a bank read', () => {
     expect(text).toContain('add no cows and no milk');
     expect(text).toContain('Sand-bedded freestall');
     // The NPV beside the name is the live results strip's own figure.
-    const stripNpv = await page.locator('.results-strip .strip-option').nth(1).locator('[data-figure="npv"] dd.num').textContent();
+    const stripNpv = await page.locator('.results-strip .strip-option').nth(1).locator('[data-figure="change"] dd.num').textContent();
     expect(text).toContain((stripNpv ?? 'missing').trim());
     await harness.screenshot(page, 'words-first-scenario-hint-desktop');
 
@@ -166,7 +166,9 @@ describe('words and formats on the screens a family and a bank read', () => {
     await harness.screenshot(page, 'words-source-tags-desktop');
 
     const workbook = new ExcelJS.Workbook();
-    await workbook.xlsx.load(await (await page.request.get(`/api/farms/${farmId}/scenarios/${scenario?.id}/workbook.xlsx`)).body());
+    const bytes = await (await page.request.get(`/api/farms/${farmId}/scenarios/${scenario?.id}/workbook.xlsx`)).body();
+    // ExcelJS types its load() argument as its own Buffer; the bytes are a Node Buffer.
+    await workbook.xlsx.load(bytes as unknown as ExcelJS.Buffer);
     const rows: string[][] = [];
     workbook.getWorksheet('Assumptions')?.eachRow((row) => rows.push((row.values as unknown[]).slice(1).map((v) => String(v ?? ''))));
     const section = rows.findIndex((row) => row[0]?.startsWith(`Option: ${option?.name}`));
