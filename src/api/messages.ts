@@ -69,6 +69,13 @@ export function fieldSentence(path: string, message: string, scenario?: Pick<Sce
   return `${fieldLabel(path, scenario)}: ${rest}`;
 }
 
+/** A message beside its field, named by the label the reader sees there: "Cows must be a whole number". */
+export function inlineMessage(label: string, message: string | undefined): string | undefined {
+  if (!message) return message;
+  const must = /\bmust\b.*$/s.exec(message);
+  return must ? `${label} ${must[0]}` : message;
+}
+
 /** Every field message of an error as sentences, first field first. */
 export function fieldSentences(error: unknown, scenario?: Pick<Scenario, 'options'> | null): string[] {
   if (!(error instanceof ApiError)) return [];

@@ -107,6 +107,9 @@ describe('words and formats on the screens a family and a bank read', () => {
     // The schema's int rule on herd.cows (shared/schema/herd.ts), worded with HerdForm's label.
     expect(text).toContain('Cows in the herd: must be a whole number');
     expect(text).not.toMatch(/scenario\.|herd\.cows/);
+    // Beside the input: its own label, and the figure as typed rather than rounded to a whole cow.
+    expect(await page.locator('#field-herd-cows-error').textContent()).toBe('Cows must be a whole number');
+    expect(await cows.inputValue()).toBe('190.5');
     await harness.screenshot(page, 'words-plain-error-desktop');
   });
 

@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { ApiError } from '@/api/client';
 import { fieldLabel, HERD_LABELS, OPTION_LABELS, SCENARIO_LABELS } from '@/api/field-labels';
-import { messageFor } from '@/api/messages';
+import { inlineMessage, messageFor } from '@/api/messages';
 import { errorCodes } from '@shared/responses';
 
 const invalid = (fields: Record<string, string>) => {
@@ -48,6 +48,12 @@ describe('messageFor', () => {
       expect(text, code).not.toBe('FALLBACK');
       expect(text, code).not.toMatch(/some\.field\.path/);
     }
+  });
+
+  it('names the field beside its input by the label shown there', () => {
+    expect(inlineMessage('Cows', 'Herd size must be a whole number')).toBe('Cows must be a whole number');
+    expect(inlineMessage('Troughs', 'No trough fits')).toBe('No trough fits');
+    expect(inlineMessage('Cows', undefined)).toBeUndefined();
   });
 
   it('keeps the server sentence when it is written for people', () => {
