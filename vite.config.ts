@@ -35,7 +35,9 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+        // Property tests run thousands of cases: a roomy timeout so a loaded machine does not fail them;
+        // speed is measured by `npm run bench`, not here.
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node', testTimeout: 30_000 },
       },
       {
         extends: true,

@@ -1,6 +1,7 @@
 /**
  * Where the app's database lives: DATABASE_URL when set (a managed or replicated MariaDB; we
- * start nothing), else a private MariaDB under .data/ started for this process.
+ * start nothing), else a private MariaDB under .data/ started for this process and restarted
+ * when it dies.
  */
 import { join } from 'node:path';
 import { startLocalMariadb } from './db/local-server.js';
@@ -13,7 +14,9 @@ export interface DatabaseLocation {
 export async function resolveDatabase(dataDir: string): Promise<DatabaseLocation> {
   if (process.env.DATABASE_URL) return { url: process.env.DATABASE_URL, stop: async () => {} };
   const port = process.env.DB_PORT ? Number(process.env.DB_PORT) : undefined;
-  const local = await startLocalMariadb({ dataDir: join(dataDir, 'mariadb'), port, database: 'byrecast' });
+  // Supervised: if the private server dies, it comes back on the same port and data; the app's
+  // pool answers 503 meanwhile and reconnects by itself.
+  const local = await startLocalMariadb({ dataDir: join(dataDir, 'mariadb'), port, database: 'byrecast', supervise: true });
   return { url: `${local.serverUrl}/byrecast`, stop: local.stop };
 }
 

@@ -9,6 +9,9 @@ import { seedDemoData, type SeedResult } from './db/seed.js';
 import { createLogger } from './logger.js';
 import { createMailer } from './mail/index.js';
 
+/** No query of a request takes near this long on a healthy database; a frozen one answers 503 after it. */
+export const QUERY_DEADLINE_MS = 10_000;
+
 export interface RunningServer {
   url: string;
   server: Server;
@@ -23,9 +26,10 @@ export async function startServer(options: {
 }): Promise<RunningServer> {
   const config = options.config ?? loadConfig();
   const logger = createLogger(config.logLevel);
-  const { db, pool, close: closeDb } = openDatabase(options.databaseUrl);
+  const { db, pool, limitQueryTime, close: closeDb } = openDatabase(options.databaseUrl);
   await migrateDatabase(db);
   const seed = options.seedDemo ? await seedDemoData(db, { bcryptCost: config.bcryptCost }) : null;
+  limitQueryTime(QUERY_DEADLINE_MS);
   const mailer = await createMailer(config, logger);
   const app = createApp({ db, pool, config, logger, mailer });
   const server = await new Promise<Server>((resolve, reject) => {

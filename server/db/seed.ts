@@ -6,7 +6,7 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import bcrypt from 'bcryptjs';
 import { count } from 'drizzle-orm';
-import { evaluateScenario } from '../../shared/engine/evaluate.js';
+import { evaluateCore } from '../../shared/engine/evaluate.js';
 import { herdSchema, scenarioSchema } from '../../shared/schema/index.js';
 import { summarise } from '../services/scenarios.js';
 import type { Database } from './client.js';
@@ -101,7 +101,7 @@ export async function seedDemoData(db: Database, options: { bcryptCost?: number 
           farmId: farm.insertId,
           name: document.name,
           document,
-          summary: summarise(document, evaluateScenario(document)),
+          summary: summarise(document, evaluateCore(document)),
           userId: ownerId as number,
           note: 'Demo scenario',
           now,

@@ -53,3 +53,26 @@ export function reviewStatusMail(input: {
     html: html(lines, { href: input.link, label: 'Read the notes and answer them' }),
   };
 }
+
+/** A new note from the lender, to each member: who wrote it, on what, the note itself and the way to answer. */
+export function reviewNoteMail(input: {
+  to: string;
+  farmName: string;
+  scenarioName: string;
+  version: number;
+  lenderName: string;
+  about?: string;
+  note: string;
+  link: string;
+}): MailMessage {
+  const lines = [
+    `${input.lenderName} wrote a note on version ${input.version} of "${input.scenarioName}" (${input.farmName})${input.about ? `, about ${input.about}` : ''}.`,
+    `Note: ${input.note}`,
+  ];
+  return {
+    to: input.to,
+    subject: `New lender note on "${input.scenarioName}"`,
+    text: `${lines.join('\n\n')}\n\nRead the note and answer it: ${input.link}\n`,
+    html: html(lines, { href: input.link, label: 'Read the note and answer it' }),
+  };
+}

@@ -22,7 +22,7 @@ export function reviewNoteRoutes({ db, mailer, config }: AppDeps): Router {
   route('post', '/lender-shares/:shareId/notes', 'review:write', async (req, res) => {
     const shareId = idParam(req, 'shareId', 'Share id');
     const input = parseOrThrow(createNoteSchema, req.body);
-    res.status(201).json(await addLenderNote(db, reviewActor(req), shareId, input));
+    res.status(201).json(await addLenderNote(ctx, reviewActor(req), shareId, input));
   });
   route('post', '/lender-shares/:shareId/notes/:noteId/replies', 'review:reply', async (req, res) => {
     const shareId = idParam(req, 'shareId', 'Share id');

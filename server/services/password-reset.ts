@@ -57,7 +57,10 @@ export async function completePasswordReset(
   if (!user || user.disabled) throw invalidResetLink();
   assertPasswordNotEmail(input.password, user.email);
   const passwordHash = await bcrypt.hash(input.password, cost);
-  if (!(await claimPasswordReset(db, reset.id, now))) throw invalidResetLink();
-  await setPasswordHash(db, user.id, passwordHash);
-  await closeOpenPasswordResets(db, user.id, now);
+  // One transaction: a crash between the steps must not leave the link used and the password unchanged.
+  await db.transaction(async (tx) => {
+    if (!(await claimPasswordReset(tx, reset.id, now))) throw invalidResetLink();
+    await setPasswordHash(tx, user.id, passwordHash);
+    await closeOpenPasswordResets(tx, user.id, now);
+  });
 }

@@ -19,6 +19,7 @@ import { findScenario, setScenarioStatus, type ScenarioRecord } from '../db/repo
 import { AppError, conflict, notFound } from '../errors.js';
 import { riskInputsHash } from './risk-inputs-hash.js';
 import { accessOf, canSeeScenario, type Actor as ScenarioActor } from './access.js';
+import { visibleRecord } from './scenarios.js';
 
 async function visibleScenario(db: Database, actor: ScenarioActor, scenarioId: number): Promise<ScenarioRecord> {
   const record = canSeeScenario(await accessOf(db, actor), scenarioId) ? await findScenario(db, actor.farmId, scenarioId) : null;
@@ -72,17 +73,23 @@ export async function decide(db: Database, actor: ScenarioActor, scenarioId: num
   return readPreferences(db, actor, scenarioId);
 }
 
-/** The cached Monte Carlo result, with whether it still matches the saved scenario; null when none was kept. */
+/**
+ * The cached Monte Carlo result, with whether it still matches the scenario as the caller sees it;
+ * null when none was kept. A lender reads the shared version, so a run on inputs they were not
+ * shared (a later save) is withheld from them rather than shown as stale.
+ */
 export async function readRiskResult(db: Database, actor: ScenarioActor, scenarioId: number): Promise<RiskResultView | null> {
-  const record = await visibleScenario(db, actor, scenarioId);
+  const record = await visibleRecord(db, actor, scenarioId);
   const saved = await findRiskResult(db, scenarioId);
   if (!saved) return null;
+  const fresh = saved.inputsHash === riskInputsHash(record.document);
+  if (!fresh && actor.role === 'lender') return null;
   return {
     // Checked for shape when it was kept (the route's riskResultBodySchema) and stored whole.
     result: saved.result as MonteCarloResult,
     scenarioVersion: saved.scenarioVersion,
     inputsHash: saved.inputsHash,
-    fresh: saved.inputsHash === riskInputsHash(record.document),
+    fresh,
     savedBy: saved.savedBy?.name ?? null,
     savedAt: saved.savedAt.toISOString(),
   };

@@ -14,7 +14,7 @@ import { findNote, findShare, insertNote, listNotes, listShares, setReviewStatus
 import { findVersion } from '../db/repositories/scenarios.js';
 import type { FarmRole } from '../db/schema/index.js';
 import { AppError, notFound } from '../errors.js';
-import { reviewStatusMail } from '../mail/lender-templates.js';
+import { reviewNoteMail, reviewStatusMail } from '../mail/lender-templates.js';
 import { recordAudit } from './audit.js';
 import { liveSharesOf, shareState } from './lender-access.js';
 import { shareSubject, toShareView, type FarmActor, type LenderContext, type ShareView } from './lender-shares.js';
@@ -98,11 +98,23 @@ async function threadRoot(db: Database, farmId: number, shareId: number, parentI
   return parent.parentId ?? parent.id;
 }
 
+/** The farm's members a lender's action is e-mailed to (everyone but lenders) and the link to the scenario's Lender tab. */
+async function farmRecipients(db: Database, actor: ReviewActor, share: ShareRecord, appOrigin: string) {
+  const [farm, members] = await Promise.all([findFarm(db, actor.farmId), listMembers(db, actor.farmId)]);
+  return {
+    farmName: farm?.name ?? 'your farm',
+    members: members.filter((m) => m.role !== 'lender'),
+    link: `${appOrigin}/farms/${actor.farmId}/scenarios/${share.scenarioId}/lender`,
+  };
+}
+
 /**
  * The lender's note on their live share. `optionId`, when given, must be an option of the shared
  * version; `lineRef` names a line (and needs an option); `parentId` answers a note in a thread.
+ * Like a status change, the note is e-mailed to the farm's members so a question does not wait unread.
  */
-export async function addLenderNote(db: Database, actor: ReviewActor, shareId: number, input: z.output<typeof createNoteSchema>, now = new Date()): Promise<ReviewNote> {
+export async function addLenderNote(ctx: LenderContext, actor: ReviewActor, shareId: number, input: z.output<typeof createNoteSchema>, now = new Date()): Promise<ReviewNote> {
+  const { db } = ctx;
   const share = await lendersLiveShare(db, actor, shareId, now);
   const options = await optionNamesOf(db, share);
   if (input.optionId !== undefined && !options.has(input.optionId)) {
@@ -134,7 +146,24 @@ export async function addLenderNote(db: Database, actor: ReviewActor, shareId: n
     });
     return noteId;
   });
-  return noteView(db, actor, share, id);
+  const view = await noteView(db, actor, share, id);
+  const { farmName, members, link } = await farmRecipients(db, actor, share, ctx.appOrigin);
+  const about = [view.optionName, view.lineRef].filter((part): part is string => Boolean(part)).join(' › ');
+  for (const member of members) {
+    await ctx.mailer.send(
+      reviewNoteMail({
+        to: member.email,
+        farmName,
+        scenarioName: share.scenarioName,
+        version: share.version,
+        lenderName: actor.user.name,
+        ...(about ? { about } : {}),
+        note: view.body.slice(0, 500),
+        link,
+      }),
+    );
+  }
+  return view;
 }
 
 /** A member's answer in the thread of a note on one of the farm's shares (any state: answering a closed review is still a record). */
@@ -163,14 +192,13 @@ export async function setShareStatus(ctx: LenderContext, actor: ReviewActor, sha
     await setReviewStatus(tx, shareId, status, actor.user.id, now);
     await recordAudit(tx, auditActor(actor), 'review.status', shareSubject(share), { shareId, scenarioId: share.scenarioId, version: share.version, from: share.reviewStatus, to: status });
   });
-  const [farm, members, notes] = await Promise.all([findFarm(ctx.db, actor.farmId), listMembers(ctx.db, actor.farmId), listNotes(ctx.db, [shareId])]);
+  const [{ farmName, members, link }, notes] = await Promise.all([farmRecipients(ctx.db, actor, share, ctx.appOrigin), listNotes(ctx.db, [shareId])]);
   const latestNote = notes.filter((n) => n.authorRole === 'lender').at(-1);
-  const link = `${ctx.appOrigin}/farms/${actor.farmId}/scenarios/${share.scenarioId}/lender`;
-  for (const member of members.filter((m) => m.role !== 'lender')) {
+  for (const member of members) {
     await ctx.mailer.send(
       reviewStatusMail({
         to: member.email,
-        farmName: farm?.name ?? 'your farm',
+        farmName,
         scenarioName: share.scenarioName,
         version: share.version,
         lenderName: actor.user.name,

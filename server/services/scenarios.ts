@@ -6,8 +6,8 @@
  */
 import type { ScenarioListItem, ScenarioView, VersionComparison, VersionListItem, VersionView } from '../../shared/responses.js';
 import type { z } from 'zod';
-import { evaluateScenario } from '../../shared/engine/evaluate.js';
-import type { ScenarioResults } from '../../shared/engine/results.js';
+import { evaluateCore, evaluateScenario } from '../../shared/engine/evaluate.js';
+import type { CoreScenarioResults } from '../../shared/engine/results.js';
 import { diffScenarios, type Json } from '../../shared/scenario-diff.js';
 import type { createScenarioBodySchema } from '../../shared/scenario-api.js';
 import { DEFAULT_FINANCE, herdSchema, scenarioSchema, type Option, type Scenario, type ScenarioInput, type StartingPoint } from '../../shared/schema/index.js';
@@ -60,7 +60,7 @@ function assertVersionVisible(access: Access, scenarioId: number, version: numbe
  * the current option itself counts 0, staying as today), for the list: never by an option's own
  * whole-herd flows, which rank barns by the herd's margin rather than by what building changes.
  */
-export function summarise(scenario: Scenario, results: ScenarioResults): ScenarioSummary {
+export function summarise(scenario: Scenario, results: CoreScenarioResults): ScenarioSummary {
   let best: ScenarioSummary['best'] = null;
   for (const option of results.options) {
     const npv = option.incremental?.npv ?? 0;
@@ -104,7 +104,8 @@ function validated(document: unknown): Scenario {
   throw new AppError(400, 'invalid_input', first ? `${first[0]}: ${first[1]}` : 'Invalid scenario', fields);
 }
 
-async function visibleRecord(db: Executor, actor: ScenarioActor, scenarioId: number): Promise<ScenarioRecord> {
+/** The scenario as the caller may see it (a lender: the shared version); 404 otherwise. */
+export async function visibleRecord(db: Executor, actor: ScenarioActor, scenarioId: number): Promise<ScenarioRecord> {
   const access = await accessOf(db, actor);
   const record = canSeeScenario(access, scenarioId) ? await findScenario(db, actor.farmId, scenarioId) : null;
   if (!record) throw notFound('Scenario not found');
@@ -121,7 +122,7 @@ export async function listFarmScenarios(db: Database, actor: ScenarioActor): Pro
         visible.map(async (record) => {
           const seen = await asSeenBy(db, access, record);
           const document = seen.document;
-          return { ...seen, summary: summarise(document, evaluateScenario(document)) };
+          return { ...seen, summary: summarise(document, evaluateCore(document)) };
         }),
       )
     : visible;
@@ -144,7 +145,7 @@ export async function readScenario(db: Database, actor: ScenarioActor, scenarioI
 }
 
 async function createScenario(db: Database, actor: ScenarioActor, document: Scenario, note: string): Promise<ScenarioView> {
-  const results = evaluateScenario(document);
+  const results = evaluateCore(document);
   const id = await db.transaction((tx) =>
     insertScenario(tx, {
       farmId: actor.farmId,
@@ -225,7 +226,7 @@ async function saveChange(
       version: locked.version + 1,
       name: document.name,
       document,
-      summary: summarise(document, evaluateScenario(document)),
+      summary: summarise(document, evaluateCore(document)),
       userId: actor.userId,
       note,
       now: new Date(),

@@ -17,7 +17,8 @@ import { addCoverageSheet, COVERAGE_SHEET } from './coverage.js';
 import { currencyFormat } from './layout.js';
 import { addLoanSheets, LOAN_BY_YEAR_SHEET, LOAN_PAYMENTS_SHEET } from './loan.js';
 import { addRiskSheet, RISK_SHEET, type WorkbookRisk } from './risk.js';
-import { addStressSheet, STRESS_SHEET } from './stress.js';
+import { fillStressSheet, STRESS_SHEET } from './stress.js';
+import { addStressYearsSheet, STRESS_YEARS_SHEET } from './stress-years.js';
 
 export type { WorkbookRisk } from './risk.js';
 
@@ -87,7 +88,9 @@ export async function buildLenderWorkbook(input: LenderWorkbookInput): Promise<E
   for (const layout of options) addCashFlowSheet(context, layout);
   const loans = addLoanSheets(context);
   addCoverageSheet(context, loans);
-  addStressSheet(context);
+  // The stress table comes first in the file; its formulas read the yearly rows built after it.
+  const stress = workbook.addWorksheet(STRESS_SHEET);
+  fillStressSheet(stress, context, addStressYearsSheet(context));
   addRiskSheet(context, input.risk);
   fillCoverSheet(cover, context, {
     farm: input.farm,
@@ -102,6 +105,7 @@ export async function buildLenderWorkbook(input: LenderWorkbookInput): Promise<E
       { name: LOAN_PAYMENTS_SHEET, what: 'The same loan payment by payment (level payment via PMT()).' },
       { name: COVERAGE_SHEET, what: 'Project and whole-farm debt-service coverage per year, against the lender threshold.' },
       { name: STRESS_SHEET, what: "The lender's stress test per option (milk −10 % and −20 %, interest +2 points, feed +10 %, capital +15 %, milk −10 % with interest +2) and the sources and uses of funds." },
+      { name: STRESS_YEARS_SHEET, what: 'Each shock year by year: the change in project cash flow and the whole-farm cash and debt service (engine values), and whole-farm coverage per year as a live ratio.' },
       { name: RISK_SHEET, what: 'Sensitivity of the NPV of the change to each key input; the Monte Carlo chance that the change loses money and its percentiles.' },
     ],
   });

@@ -5,12 +5,13 @@ import { INPUT_NAMES as N, optionName, type OptionLayout, type WorkbookContext }
 import {
   BASE_FONT,
   COUNT_FORMAT,
+  COVERAGE_FORMAT,
   freeze,
   PERCENT_FORMAT,
   quoteSheet,
-  RATIO_FORMAT,
   setFormula,
   setupPrint,
+  shadeBelowThreshold,
   styleHeaderRow,
   styleNote,
   styleSection,
@@ -26,7 +27,7 @@ type Cached = number | string | null;
 
 interface ComparisonRow {
   label: string;
-  format: 'money' | 'moneyWhole' | 'percent' | 'ratio' | 'years' | 'count' | 'text';
+  format: 'money' | 'moneyWhole' | 'percent' | 'coverage' | 'years' | 'count' | 'text';
   /** A formula for this option, or null to write `value` as a plain engine value. */
   formula?: (layout: OptionLayout) => string | null;
   value: (layout: OptionLayout) => Cached;
@@ -65,9 +66,9 @@ export function addComparisonSheet(context: WorkbookContext): ExcelJS.Worksheet 
     { label: 'Break-even milk price (per kg)', format: 'text', value: (o) => (o.result.current ? 'n/a' : (o.result.incremental?.breakEvenMilkPrice ?? 'none in range')) },
     { label: 'Break-even lying-time response (kg/cow/day per h)', format: 'text', value: (o) => (o.result.current ? 'n/a' : (o.result.incremental?.breakEvenLyingResponse ?? (o.result.incremental?.breakEvenLyingResponseReason === 'same-lying-time' ? 'same lying time' : 'none in range'))) },
     'Coverage',
-    { label: 'Lowest whole-farm coverage', format: 'ratio', formula: (o) => optionName(o, 'LowestCoverage'), value: (o) => o.result.lowestCoverage?.value ?? '' },
+    { label: 'Lowest whole-farm coverage', format: 'coverage', formula: (o) => optionName(o, 'LowestCoverage'), value: (o) => o.result.lowestCoverage?.value ?? '' },
     { label: 'Year of lowest coverage', format: 'count', formula: (o) => optionName(o, 'LowestCoverageYear'), value: (o) => o.result.lowestCoverage?.year ?? '' },
-    { label: 'Lowest project coverage (the change)', format: 'ratio', value: (o) => o.result.lowestProjectCoverage?.value ?? 'n/a' },
+    { label: 'Lowest project coverage (the change)', format: 'coverage', value: (o) => o.result.lowestProjectCoverage?.value ?? 'n/a' },
     { label: 'Years below the coverage threshold', format: 'count', formula: (o) => optionName(o, 'YearsBelowThreshold'), value: (o) => o.result.yearsBelowCoverageThreshold.length },
     { label: 'Milk price for whole-farm coverage 1.00 (per kg)', format: 'text', value: (o) => o.result.breakEvenMilkPriceForCoverage.atOne ?? 'none in range' },
     { label: 'Milk price for whole-farm coverage at the threshold (per kg)', format: 'text', value: (o) => o.result.breakEvenMilkPriceForCoverage.atThreshold ?? 'none in range' },
@@ -117,11 +118,13 @@ export function addComparisonSheet(context: WorkbookContext): ExcelJS.Worksheet 
       }
     });
     if (spec.emphasis) styleTotal(ws, r, 1, options.length + 1);
+    // A coverage below the farm's threshold is shaded, live: a new threshold on Assumptions moves it.
+    if (spec.format === 'coverage') shadeBelowThreshold(ws, `${address(r, 2)}:${address(r, options.length + 1)}`, N.coverageThreshold);
     r++;
   }
   r++;
   const note = ws.getCell(r, 1);
-  note.value = `Discount rate, interest rate and coverage threshold are the named cells ${N.discountRate}, ${N.interestRate} and ${N.coverageThreshold} on Assumptions. Break-even figures, the paybacks of the change and project coverage here are Byrecast engine values (root searches and the change's own series); the stress figures are on the Stress sheet. n/a = not defined or not within the horizon; see the option's sheet for the reason.`;
+  note.value = `Discount rate, interest rate and coverage threshold are the named cells ${N.discountRate}, ${N.interestRate} and ${N.coverageThreshold} on Assumptions; coverage below the threshold is shaded. Break-even figures, the paybacks of the change and project coverage here are Byrecast engine values (root searches and the change's own series); the stress figures are on the Stress sheet. n/a = not defined or not within the horizon; see the option's sheet for the reason.`;
   styleNote(note);
 
   ws.getColumn(1).width = 44;
@@ -140,8 +143,8 @@ function formatOf(format: ComparisonRow['format'], context: WorkbookContext): st
       return context.formats.moneyWhole;
     case 'percent':
       return PERCENT_FORMAT;
-    case 'ratio':
-      return RATIO_FORMAT;
+    case 'coverage':
+      return COVERAGE_FORMAT;
     case 'years':
       return YEARS_FORMAT;
     case 'count':

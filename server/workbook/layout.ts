@@ -77,6 +77,8 @@ export function currencyFormat(currency: string, locale: string, decimals: 0 | 2
 
 export const PERCENT_FORMAT = '0.00%';
 export const RATIO_FORMAT = '0.00';
+/** Debt-service coverage: a ratio read as "times" (1.25×). */
+export const COVERAGE_FORMAT = '0.00"×"';
 export const YEARS_FORMAT = '0.00';
 export const COUNT_FORMAT = '#,##0';
 export const QUANTITY_FORMAT = '#,##0.00';
@@ -208,4 +210,25 @@ export function fitWrappedRow(ws: ExcelJS.Worksheet, row: number, columns: reado
     lines = Math.max(lines, Math.ceil(text.length / perLine));
   }
   if (lines > 1) ws.getRow(row).height = lines * 11.5 + 2;
+}
+
+/**
+ * Shades the cells of `ref` (e.g. "B7:F7") whose number is below the named threshold cell; the
+ * rule is a formula on the first cell of the range, so it follows the threshold when a lender
+ * types a new one.
+ */
+export function shadeBelowThreshold(ws: ExcelJS.Worksheet, ref: string, thresholdName: string): void {
+  const first = ref.split(':')[0] ?? ref;
+  ws.addConditionalFormatting({
+    ref,
+    rules: [
+      {
+        type: 'expression',
+        priority: 1,
+        formulae: [`AND(ISNUMBER(${first}),${first}<${thresholdName})`],
+        // A pale clay fill with clay bold text (docs/design.md: clay for warnings).
+        style: { fill: { type: 'pattern', pattern: 'solid', bgColor: { argb: 'FFF4D9CC' } }, font: { color: { argb: COLOURS.clay }, bold: true } },
+      },
+    ],
+  });
 }

@@ -1,24 +1,26 @@
 /**
- * The lender's stress table and each option's sources and uses of funds. Stress figures are
- * Byrecast engine values, not formulas: each shock re-runs the whole model (yearly lines, tax,
- * loan) with the inputs changed, which the sheet's flows cannot do. Coverage below the named
- * threshold is shaded by a live rule.
+ * The lender's stress table and each option's sources and uses of funds. Each shock re-runs the
+ * whole model (yearly lines, tax, loan) with the inputs changed, which the sheet's own flows
+ * cannot do: the shocked years are engine values on the "Stress by year" sheet, and the table's
+ * NPV of the change, lowest whole-farm coverage and years below the threshold are live formulas
+ * over them (the base case links to the option's own cells). Lowest project coverage stays an
+ * engine value. Coverage below the named threshold is shaded by a live rule.
  */
 import type ExcelJS from 'exceljs';
-import { INPUT_NAMES as N, type WorkbookContext } from './context.js';
-import { BASE_FONT, columnLetter, COLOURS, COUNT_FORMAT, freeze, RATIO_FORMAT, setupPrint, styleHeaderRow, styleNote, styleSection, styleTotal, writeTitle } from './layout.js';
+import { defineName, INPUT_NAMES as N, optionName, type WorkbookContext } from './context.js';
+import { BASE_FONT, columnLetter, COLOURS, COUNT_FORMAT, COVERAGE_FORMAT, freeze, setFormula, setupPrint, shadeBelowThreshold, sheetRef, styleHeaderRow, styleNote, styleSection, styleTotal, writeTitle } from './layout.js';
+import type { ShockCells } from './stress-years.js';
 
 export const STRESS_SHEET = 'Stress';
 
-/** Builds the stress sheet: per option, each shock's lowest coverage, NPV of the change and years below threshold; then sources and uses. */
-export function addStressSheet(context: WorkbookContext): ExcelJS.Worksheet {
-  const ws = context.workbook.addWorksheet(STRESS_SHEET);
+/** Fills the stress sheet (added before "Stress by year", which it reads): per option, each shock's lowest coverage, NPV of the change and years below threshold; then sources and uses. */
+export function fillStressSheet(ws: ExcelJS.Worksheet, context: WorkbookContext, shocks: readonly ShockCells[][]): ExcelJS.Worksheet {
   const money = context.formats.moneyWhole;
   const threshold = context.scenario.finance.coverageThreshold;
   writeTitle(
     ws,
     "The lender's stress test and the sources and uses of funds",
-    `${context.results.currency}. Each shock re-runs the whole model (engine values). The existing farm takes the same prices: its cash moves with the current option's margin. Coverage below ${N.coverageThreshold} (${threshold.toFixed(2)}) is shaded.`,
+    `${context.results.currency}. Each shock re-runs the whole model; its years are on "Stress by year", and the NPV of the change, lowest whole-farm coverage and years below the threshold here are formulas over them (${N.discountRate}, ${N.coverageThreshold}). Lowest project coverage is an engine value. The existing farm takes the same prices: its cash moves with the current option's margin. Coverage below ${N.coverageThreshold} (${threshold.toFixed(2)}) is shaded.`,
   );
   let r = 4;
   const header = ['Shock', 'Lowest whole-farm coverage', 'Lowest project coverage', 'NPV of the change', 'Years below threshold'];
@@ -32,36 +34,41 @@ export function addStressSheet(context: WorkbookContext): ExcelJS.Worksheet {
     ws.getRow(r).height = 28;
     r++;
     const firstRow = r;
-    const base: [string, number | string, number | string, number | string, number][] = [
-      ['Base case', result.lowestCoverage?.value ?? 'no debt', result.lowestProjectCoverage?.value ?? 'n/a', result.incremental?.npv ?? 'n/a', result.yearsBelowCoverageThreshold.length],
-      ...result.stress.map((row): [string, number | string, number | string, number | string, number] => [
-        row.label,
-        row.lowestCoverage ?? 'no debt',
-        row.lowestProjectCoverage ?? 'n/a',
-        row.npvAgainstCurrent ?? 'n/a',
-        row.yearsBelowThreshold,
-      ]),
-    ];
-    for (const cells of base) {
-      cells.forEach((value, i) => {
-        const cell = ws.getCell(r, i + 1);
-        cell.value = value;
-        if (i > 0) cell.alignment = { horizontal: 'right' };
-        if (typeof value === 'number') cell.numFmt = i === 3 ? money : i === 4 ? COUNT_FORMAT : RATIO_FORMAT;
-      });
+    const n = layout.number;
+    const right = (cell: ExcelJS.Cell, format: string): void => {
+      cell.alignment = { horizontal: 'right' };
+      cell.numFmt = format;
+    };
+    // Base case: the option's own live cells.
+    ws.getCell(r, 1).value = 'Base case';
+    setFormula(ws.getCell(r, 2), `IF(ISNUMBER(${optionName(n, 'LowestCoverage')}),${optionName(n, 'LowestCoverage')},"no debt")`, result.lowestCoverage?.value ?? 'no debt');
+    ws.getCell(r, 3).value = result.lowestProjectCoverage?.value ?? 'n/a';
+    if (result.incremental) setFormula(ws.getCell(r, 4), optionName(n, 'IncrementalNPV'), result.incremental.npv);
+    else ws.getCell(r, 4).value = 'n/a';
+    setFormula(ws.getCell(r, 5), optionName(n, 'YearsBelowThreshold'), result.yearsBelowCoverageThreshold.length);
+    r++;
+    result.stress.forEach((row, k) => {
+      const cells = shocks[n - 1]?.[k];
+      if (!cells) throw new RangeError(`stress: no yearly rows for ${row.id} of option ${result.id}`);
+      ws.getCell(r, 1).value = row.label;
+      setFormula(ws.getCell(r, 2), `IF(COUNT(${cells.coverageYears})=0,"no debt",MIN(${cells.coverageYears}))`, row.lowestCoverage ?? 'no debt');
+      ws.getCell(r, 3).value = row.lowestProjectCoverage ?? 'n/a';
+      if (cells.changeYearZero && cells.changeYears) setFormula(ws.getCell(r, 4), `${cells.changeYearZero}+NPV(${N.discountRate},${cells.changeYears})`, row.npvAgainstCurrent);
+      else ws.getCell(r, 4).value = 'n/a';
+      setFormula(ws.getCell(r, 5), `COUNTIF(${cells.coverageYears},"<"&${N.coverageThreshold})`, row.yearsBelowThreshold);
       r++;
-    }
-    ws.addConditionalFormatting({
-      ref: `B${firstRow}:C${r - 1}`,
-      rules: [
-        {
-          type: 'expression',
-          priority: 1,
-          formulae: [`AND(ISNUMBER(B${firstRow}),B${firstRow}<${N.coverageThreshold})`],
-          style: { fill: { type: 'pattern', pattern: 'solid', bgColor: { argb: 'FFF4D9CC' } }, font: { color: { argb: COLOURS.clay }, bold: true } },
-        },
-      ],
     });
+    for (let row = firstRow; row < r; row++) {
+      right(ws.getCell(row, 2), COVERAGE_FORMAT);
+      right(ws.getCell(row, 3), COVERAGE_FORMAT);
+      right(ws.getCell(row, 4), money);
+      right(ws.getCell(row, 5), COUNT_FORMAT);
+    }
+    shadeBelowThreshold(ws, `B${firstRow}:C${r - 1}`, N.coverageThreshold);
+    // Base case first, then the shocks in the engine's order (shared/engine/stress.ts STRESS_TESTS).
+    defineName(context.workbook, optionName(n, 'StressLowestCoverage'), sheetRef(STRESS_SHEET, firstRow, 2, r - 1, 2));
+    defineName(context.workbook, optionName(n, 'StressNPV'), sheetRef(STRESS_SHEET, firstRow, 4, r - 1, 4));
+    defineName(context.workbook, optionName(n, 'StressYearsBelowThreshold'), sheetRef(STRESS_SHEET, firstRow, 5, r - 1, 5));
     const cover = result.breakEvenMilkPriceForCoverage;
     const price = (value: number | null) => (value === null ? 'none in range' : `${value.toFixed(3)} per kg`);
     ws.getCell(r, 1).value = `Milk price for lowest whole-farm coverage 1.00: ${price(cover.atOne)}; at the threshold ${threshold.toFixed(2)}: ${price(cover.atThreshold)} (today ${context.scenario.herd.milkPricePerKg.toFixed(3)}).`;

@@ -37,24 +37,32 @@ export function breakEvenMilkPriceForCoverage(
 ): CoverageBreakEven {
   const cash = new Array<number>(plan.horizon + 1).fill(0);
   const response = scenario.herd.lyingResponseKgPerHour;
+  // Each price is evaluated once: both searches start from the ends of the range, and the second
+  // may start at the first one's root.
+  const seen = new Map<number, number | null>();
   const lowestAt = (price: number): number | null => {
+    const known = seen.get(price);
+    if (known !== undefined) return known;
     cashAtMilk(model, plan, scenario.finance, 0, price, response, cash);
     let lowest: number | null = null;
     for (let t = 1; t <= plan.horizon; t++) {
       const ratio = coverageRatio(farm.cashBesideHerd + (cash[t] ?? 0), (farm.debtByYear[t] ?? 0) + loanDueIn(plan, t));
       if (ratio !== null && (lowest === null || ratio < lowest)) lowest = ratio;
     }
+    seen.set(price, lowest);
     return lowest;
   };
   if (lowestAt(scenario.herd.milkPricePerKg) === null) {
     return { atOne: null, atOneReason: 'no-debt-service', atThreshold: null, atThresholdReason: 'no-debt-service' };
   }
-  const solve = (target: number): { value: number | null; reason?: CoverageBreakEvenReason } => {
-    const root = findRoot((price) => (lowestAt(price) ?? 0) - target, 0, priceHi, { tolerance: priceHi * COVERAGE_PRICE_TOLERANCE });
+  const solve = (target: number, from = 0): { value: number | null; reason?: CoverageBreakEvenReason } => {
+    const root = findRoot((price) => (lowestAt(price) ?? 0) - target, from, priceHi, { tolerance: priceHi * COVERAGE_PRICE_TOLERANCE });
     return root.value === null ? { value: null, reason: 'none-in-range' } : { value: root.value };
   };
   const one = solve(1);
-  const threshold = solve(scenario.finance.coverageThreshold);
+  const target = scenario.finance.coverageThreshold;
+  // The lowest ratio rises with the price: a threshold above 1 is reached above the price for 1.
+  const threshold = solve(target, target > 1 && one.value !== null && one.value < priceHi ? one.value : 0);
   return {
     atOne: one.value,
     ...(one.reason ? { atOneReason: one.reason } : {}),

@@ -5,10 +5,10 @@ import { breakEvenMilkPriceForCoverage } from './coverage-break-even';
 import { coverageInYear, coverageSummary, existingFarmOf, withExistingCashAnchored, type CoverageSides, type ExistingFarm } from './farm-coverage';
 import { operationsPayback } from './operations-payback';
 import { sourcesAndUses } from './sources-and-uses';
-import { stressTables } from './stress';
+import { stressTables, stressYears, type StressYears } from './stress';
 import { capitalRecoveryFactor, discount, mirr, paybackYears } from './finance';
 import { milkingLyingHours, npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
-import type { CoverageYear, FastOptionResult, IncrementalResult, Metrics, OptionResult, ScenarioResults } from './results';
+import type { CoreOptionResult, CoreScenarioResults, CoverageYear, DecisionFigures, FastOptionResult, IncrementalResult, Metrics, ScenarioResults } from './results';
 import { irrFast } from './irr-fast';
 import { findRoot } from './root';
 import { checkStallDimensions, checkWater } from './sizing';
@@ -132,13 +132,20 @@ function breakEvens(scenario: Scenario, option: SearchInput, current: SearchInpu
   };
 }
 
+/** What the decision figures re-use from an evaluation: the anchored farm, each option's plan and milk model. */
+interface Evaluated {
+  results: CoreScenarioResults;
+  farm: ExistingFarm;
+  baseCash: number[];
+  entries: { option: Option; plan: OptionPlan; search: SearchInput }[];
+  currentIndex: number;
+}
+
 /**
- * Evaluates every option of a valid scenario (currency of the scenario, nominal, money in cents):
- * yearly lines, loan schedule, metrics on the project cash flow (year 0 = grants − capital −
- * cows bought for year 1), coverage, and for each option but the current one the incremental
- * flows against the current option with break-even milk price and lying-time response.
+ * Every option's figures but the decision figures (see evaluateScenario): yearly lines, loan
+ * schedule, metrics, coverage and, for each option but the current one, the incremental block.
  */
-export function evaluateScenario(scenario: Scenario): ScenarioResults {
+function evaluateParts(scenario: Scenario): Evaluated {
   const current = currentOptionOf(scenario);
   const { discountRate, interestRate, coverageThreshold } = scenario.finance;
   const currentLying = milkingLyingHours(scenario.herd, current);
@@ -152,22 +159,15 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
   const base = evaluated.find((entry) => entry.option === current) ?? evaluated[0];
   if (!base) throw new RangeError('options must hold at least one option');
   const farm = existingFarmOf(scenario, base.projection.cashForDebtService);
-  const stress = stressTables(
-    withExistingCashAnchored(scenario, base.projection.cashForDebtService),
-    farm,
-    evaluated.map(({ option, plan, search }) => ({ option, plan, model: search.model, yearZero: search.yearZero })),
-    evaluated.indexOf(base),
-  );
   const baseLines = base.projection.lines ?? [];
   const baseFeedYear1 = baseLines[1]?.feed ?? 0;
-  const priceHi = milkPriceSearchMax(scenario);
 
-  const options = evaluated.map(({ option, plan, loan, projection, search }, index): OptionResult => {
+  const options = evaluated.map(({ option, plan, loan, projection, search }): CoreOptionResult => {
     const isCurrent = option === current;
     const lines = projection.lines ?? [];
     const sides: CoverageSides = { ownCash: projection.cashForDebtService, ownPlan: plan, currentCash: base.projection.cashForDebtService, currentPlan: base.plan, isCurrent };
     const coverage = coverageOf(farm, sides, plan.horizon);
-    const result: OptionResult = {
+    const result: CoreOptionResult = {
       id: option.id,
       name: option.name,
       current: isCurrent,
@@ -185,8 +185,6 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
       lowestCoverage: lowestByYear(coverage.map((c) => ({ year: c.year, value: c.wholeFarm }))),
       lowestProjectCoverage: lowestByYear(coverage.map((c) => ({ year: c.year, value: c.project }))),
       yearsBelowCoverageThreshold: coverage.filter((c) => c.wholeFarm !== null && c.wholeFarm < coverageThreshold).map((c) => c.year),
-      stress: stress[index] ?? [],
-      breakEvenMilkPriceForCoverage: breakEvenMilkPriceForCoverage(scenario, farm, search.model, plan, priceHi),
       sourcesAndUses: sourcesAndUses(option, plan, scenario.finance, isCurrent ? 0 : (lines[1]?.feed ?? 0) - baseFeedYear1),
       labourHoursPerYear: lines.map((line) => line.labourHours.total),
       beddingTonnesPerYear: lines.map((line) => line.beddingTonnes),
@@ -210,7 +208,7 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
     }
     return result;
   });
-  return {
+  const results: CoreScenarioResults = {
     horizonYears: scenario.horizonYears,
     currency: scenario.currency,
     currentOptionId: current.id,
@@ -223,6 +221,65 @@ export function evaluateScenario(scenario: Scenario): ScenarioResults {
     options,
     warnings: scenarioWarnings(scenario),
   };
+  return { results, farm, baseCash: base.projection.cashForDebtService, entries: evaluated, currentIndex: evaluated.indexOf(base) };
+}
+
+/**
+ * The figures that answer "what does building change", for every screen that does not show the
+ * lender's stress: every option's yearly lines, loan, metrics, coverage and the incremental block
+ * against the current option with its break-even milk price and lying-time response. Leaves out
+ * the stress table and the coverage break-evens (`evaluateScenario` adds them), so summaries and
+ * other repeated evaluations do not pay for six shocked re-evaluations and two root searches per option.
+ */
+export function evaluateCore(scenario: Scenario): CoreScenarioResults {
+  return evaluateParts(scenario).results;
+}
+
+/** The stress tables' inputs from an evaluation: the scenario anchored at its prices and each option's plan and milk model. */
+function stressInputs(scenario: Scenario, parts: Evaluated): Parameters<typeof stressTables> {
+  return [
+    withExistingCashAnchored(scenario, parts.baseCash),
+    parts.farm,
+    parts.entries.map(({ option, plan, search }) => ({ option, plan, model: search.model, yearZero: search.yearZero })),
+    parts.currentIndex,
+  ];
+}
+
+/** The stress table and the coverage break-evens of each option (index = option), from an evaluation's plans and milk models. */
+function decisionFiguresOf(scenario: Scenario, parts: Evaluated): DecisionFigures[] {
+  const { farm, entries } = parts;
+  const stress = stressTables(...stressInputs(scenario, parts));
+  const priceHi = milkPriceSearchMax(scenario);
+  return entries.map(({ plan, search }, index) => ({
+    stress: stress[index] ?? [],
+    breakEvenMilkPriceForCoverage: breakEvenMilkPriceForCoverage(scenario, farm, search.model, plan, priceHi),
+  }));
+}
+
+/**
+ * Evaluates every option of a valid scenario (currency of the scenario, nominal, money in cents):
+ * `evaluateCore`'s figures (yearly lines, loan schedule, metrics on the project cash flow with
+ * year 0 = grants − capital − cows bought for year 1, coverage, the incremental block) plus the
+ * decision figures a lender reads: the stress table and the milk prices at which whole-farm
+ * coverage is 1.0 and the threshold. The CLI, the server's scenario views, the workbook and the
+ * live preview use this.
+ */
+export function evaluateScenario(scenario: Scenario): ScenarioResults {
+  const parts = evaluateParts(scenario);
+  const figures = decisionFiguresOf(scenario, parts);
+  return {
+    ...parts.results,
+    options: parts.results.options.map((option, index) => ({ ...option, ...(figures[index] as DecisionFigures) })),
+  };
+}
+
+/**
+ * The stress table's shocks year by year for each option (index = option; STRESS_TESTS order):
+ * the change's flows and the whole-farm cash and debt service that the workbook's live stress
+ * formulas discount and divide. Their NPV and lowest ratio are `evaluateScenario`'s stress rows.
+ */
+export function evaluateStressYears(scenario: Scenario): StressYears[][] {
+  return stressYears(...stressInputs(scenario, evaluateParts(scenario)));
 }
 
 export interface FastEvaluationOptions {

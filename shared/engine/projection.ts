@@ -117,32 +117,10 @@ export function loanAmountFor(capital: number, grants: number, equity: number, o
   return Math.max(0, needed - equity);
 }
 
-/** Builds an option's plan; with mode 'ledger' it also returns the loan schedule in exact cents. */
-export function planOption(scenario: Scenario, option: Option, mode: PlanMode): { plan: OptionPlan; loan: LoanSchedule | null } {
-  const { herd, finance } = scenario;
-  const horizon = scenario.horizonYears;
-  const inflation = herd.growth.general;
-  const cows = cowsPerYear(herd.cows, option.herdChange, horizon);
-  let designCows = 0;
-  for (let year = 1; year <= horizon; year++) designCows = Math.max(designCows, cows[year] ?? 0);
-  const stalls = optionStalls(option, designCows);
-  const storageM3 = optionStorageM3(scenario, option, designCows, stalls);
-  const assets = capitalAssets(option.capitalLines, { stalls, storageM3, troughs: option.water.troughs });
-  const capital = capitalTotal(assets);
-  const purchases = purchaseSchedule(assets, horizon, inflation);
-  const grants = Math.min(finance.grants, capital);
-  // With grants reducing the depreciable base, each year-0 purchase carries its share of them.
-  const year0Base = finance.grantsReduceDepreciableBase && capital > 0 ? 1 - grants / capital : 1;
-  const depreciation = taxDepreciation(
-    purchases.map((p) => {
-      const asset = assets[p.asset];
-      return { year: p.year, cost: p.year === 0 ? p.cost * year0Base : p.cost, lifeYears: asset?.lifeYears ?? 1, ...taxClassSchedule(asset) };
-    }),
-    horizon,
-    depreciationSchedule(scenario),
-  );
-  const capitalLoan = loanAmountFor(capital, grants, finance.equity, finance.loanAmount);
-  const equity = Math.max(0, capital - grants - capitalLoan);
+type LoanLines = Pick<OptionPlan, 'loanAmount' | 'interestDuringConstruction' | 'interestByYear' | 'principalByYear' | 'loanBalanceAtHorizon'>;
+
+/** The loan of a plan at the scenario's finance terms: amount, interest and principal per year (index = year), balance at H. */
+function loanPlan(capitalLoan: number, finance: Scenario['finance'], horizon: number, mode: PlanMode): LoanLines & { loan: LoanSchedule | null } {
   // Interest during construction is owed at year 0: added to the loan, or paid from farm cash.
   const constructionInterest = roundCentsFast(interestDuringConstruction(capitalLoan, finance));
   const loanAmount = finance.interestDuringConstruction === 'capitalised' ? capitalLoan + constructionInterest : capitalLoan;
@@ -174,6 +152,47 @@ export function planOption(scenario: Scenario, option: Option, mode: PlanMode): 
     principalByYear[year] = loanYears.principal[year - 1] ?? 0;
   }
   if (loanAmount > 0 && finance.termYears > horizon) loanBalanceAtHorizon = loanYears.closingBalance[horizon - 1] ?? 0;
+  return { loanAmount, interestDuringConstruction: constructionInterest, interestByYear, principalByYear, loanBalanceAtHorizon, loan };
+}
+
+/**
+ * The plan with its loan at other finance terms (e.g. a shocked interest rate): capital, tax
+ * depreciation, herd and salvage do not depend on the loan, so only the loan lines are rebuilt
+ * (yearly totals, as mode 'fast').
+ */
+export function withFinanceTerms(plan: OptionPlan, finance: Scenario['finance']): OptionPlan {
+  const capitalLoan = loanAmountFor(plan.capitalTotal, plan.grants, finance.equity, finance.loanAmount);
+  const { loan: _schedule, ...loanLines } = loanPlan(capitalLoan, finance, plan.horizon, 'fast');
+  return { ...plan, ...loanLines };
+}
+
+/** Builds an option's plan; with mode 'ledger' it also returns the loan schedule in exact cents. */
+export function planOption(scenario: Scenario, option: Option, mode: PlanMode): { plan: OptionPlan; loan: LoanSchedule | null } {
+  const { herd, finance } = scenario;
+  const horizon = scenario.horizonYears;
+  const inflation = herd.growth.general;
+  const cows = cowsPerYear(herd.cows, option.herdChange, horizon);
+  let designCows = 0;
+  for (let year = 1; year <= horizon; year++) designCows = Math.max(designCows, cows[year] ?? 0);
+  const stalls = optionStalls(option, designCows);
+  const storageM3 = optionStorageM3(scenario, option, designCows, stalls);
+  const assets = capitalAssets(option.capitalLines, { stalls, storageM3, troughs: option.water.troughs });
+  const capital = capitalTotal(assets);
+  const purchases = purchaseSchedule(assets, horizon, inflation);
+  const grants = Math.min(finance.grants, capital);
+  // With grants reducing the depreciable base, each year-0 purchase carries its share of them.
+  const year0Base = finance.grantsReduceDepreciableBase && capital > 0 ? 1 - grants / capital : 1;
+  const depreciation = taxDepreciation(
+    purchases.map((p) => {
+      const asset = assets[p.asset];
+      return { year: p.year, cost: p.year === 0 ? p.cost * year0Base : p.cost, lifeYears: asset?.lifeYears ?? 1, ...taxClassSchedule(asset) };
+    }),
+    horizon,
+    depreciationSchedule(scenario),
+  );
+  const capitalLoan = loanAmountFor(capital, grants, finance.equity, finance.loanAmount);
+  const equity = Math.max(0, capital - grants - capitalLoan);
+  const { loan, ...loanLines } = loanPlan(capitalLoan, finance, horizon, mode);
 
   const addedCowCost = option.herdChange.addedCowCost ?? herd.replacementHeiferCost;
   const housedDays = effectiveHousedDays(option.housedDaysPerYear);
@@ -194,11 +213,7 @@ export function planOption(scenario: Scenario, option: Option, mode: PlanMode): 
       taxBookValueAtHorizon: depreciation.bookValueAtHorizon,
       grants,
       equity,
-      loanAmount,
-      interestDuringConstruction: constructionInterest,
-      interestByYear,
-      principalByYear,
-      loanBalanceAtHorizon,
+      ...loanLines,
       herdPurchasesByYear: herdPurchasesByYear(cows, addedCowCost, herd.cullCowValue, inflation),
       herdValueAtHorizon: herdValueAtHorizon(cows, herd.cullCowValue, inflation),
     },
@@ -616,20 +631,32 @@ const scratch = emptySettlement();
 /**
  * Cash available for debt service per year (currency, index = year, [0] = 0; written into `into`)
  * of an option at another milk price and lying-time response, from its milk model, and the NPV
- * of its project flows (returned; flows[0] = yearZero at t = 0): the same sums as projectOption
- * without rounding (the stress table and the coverage break-evens), one pass over the years.
+ * of its project flows (returned; flows[0] = yearZero at t = 0; each year's flow into `netInto`
+ * when given): the same sums as projectOption without rounding (the stress table and the
+ * coverage break-evens), one pass over the years.
  */
-export function cashAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario['finance'], yearZero: number, milkPrice: number, response: number, into: number[]): number {
+export function cashAtMilk(
+  model: MilkModel,
+  plan: OptionPlan,
+  finance: Scenario['finance'],
+  yearZero: number,
+  milkPrice: number,
+  response: number,
+  into: number[],
+  netInto?: number[],
+): number {
   const factor = 1 / (1 + finance.discountRate);
   const out = scratch;
   let discount = factor;
   let total = yearZero;
   let lossCarried = 0;
   into[0] = 0;
+  if (netInto) netInto[0] = yearZero;
   for (let t = 1; t <= plan.horizon; t++) {
     settleYear(out, plan, finance, t, marginAtMilk(model, t, milkPrice, response), lossCarried, identity, identity);
     lossCarried = out.lossCarried;
     into[t] = out.cashForDebtService;
+    if (netInto) netInto[t] = out.net;
     total += out.net * discount;
     discount *= factor;
   }

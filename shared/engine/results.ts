@@ -124,7 +124,21 @@ export interface SizingResult {
   manureStorageM3: number;
 }
 
-export interface OptionResult extends Metrics {
+/** The decision figures `evaluateScenario` adds to `evaluateCore`'s: the lender's stress and the coverage break-evens. */
+export interface DecisionFigures {
+  /** The lender's stress table: this option re-evaluated under each shock (stress.ts STRESS_TESTS order). */
+  stress: StressResult[];
+  /** Milk prices at which the lowest whole-farm coverage is exactly 1.0 and the threshold. */
+  breakEvenMilkPriceForCoverage: CoverageBreakEven;
+}
+
+/** One option's figures from `evaluateCore`: everything but the decision figures. */
+export type CoreOptionResult = Omit<OptionResult, keyof DecisionFigures>;
+
+/** `evaluateCore`'s results: `ScenarioResults` without the decision figures. */
+export type CoreScenarioResults = Omit<ScenarioResults, 'options'> & { options: CoreOptionResult[] };
+
+export interface OptionResult extends Metrics, DecisionFigures {
   id: string;
   name: string;
   current: boolean;
@@ -143,10 +157,6 @@ export interface OptionResult extends Metrics {
   lowestProjectCoverage: { year: number; value: number } | null;
   /** Years whose whole-farm coverage is below the lender's threshold. */
   yearsBelowCoverageThreshold: number[];
-  /** The lender's stress table: this option re-evaluated under each shock (stress.ts STRESS_TESTS order). */
-  stress: StressResult[];
-  /** Milk prices at which the lowest whole-farm coverage is exactly 1.0 and the threshold. */
-  breakEvenMilkPriceForCoverage: CoverageBreakEven;
   sourcesAndUses: SourcesAndUses;
   /** Per-year arrays: index = year, [0] = year 0. */
   labourHoursPerYear: number[];

@@ -1,6 +1,6 @@
 import type { Option, Scenario } from '../schema';
-import { coverageSummary, type ExistingFarm } from './farm-coverage';
-import { cashAtMilk, milkingLyingHours, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
+import { coverageSummary, loanDueIn, type ExistingFarm } from './farm-coverage';
+import { cashAtMilk, milkingLyingHours, planOption, projectOption, withFinanceTerms, type MilkModel, type OptionPlan } from './projection';
 import { scaleCapitalCost, scaleGrazingFeedCost, scaleHousedFeedCost, scaleMarginalFeedCost, scaleMilkPrice } from './risk/perturb';
 
 /** The lender's shocks, each applied to the inputs as entered. */
@@ -29,6 +29,20 @@ export interface StressResult {
   yearsBelowThreshold: number;
 }
 
+/**
+ * One option under one shock, year by year (currency, index = year): what the workbook's live
+ * stress formulas are built on. The change's flows are null for the current option.
+ */
+export interface StressYears {
+  id: StressId;
+  /** The project flows of the change against the current option, [0] = year 0. */
+  changeFlows: number[] | null;
+  /** Whole-farm cash for debt service: the existing farm beside the herd + this option's cash ([0] = 0). */
+  wholeFarmCash: number[];
+  /** Whole-farm debt service: existing debt + this option's loan P + I ([0] = 0). */
+  wholeFarmDebt: number[];
+}
+
 /** Feed cost × m: feed per cow-day (housed and grazing, herd and every option) and per extra kg of milk. */
 function scaleFeedCost(scenario: Scenario, m: number): Scenario {
   return scaleMarginalFeedCost(scaleGrazingFeedCost(scaleHousedFeedCost(scenario, m), m), m);
@@ -53,12 +67,25 @@ export interface StressOption {
 }
 
 /** Cash for debt service per year and NPV (currency) of one option under a shocked scenario. */
-function underShock(shocked: Scenario, test: StressTest, entry: StressOption, index: number, currentLyingHours: number): { cash: number[]; plan: OptionPlan; npv: number } {
+function underShock(
+  shocked: Scenario,
+  test: StressTest,
+  entry: StressOption,
+  index: number,
+  currentLyingHours: number,
+  plans: Map<string, OptionPlan>,
+): { cash: number[]; net: number[]; plan: OptionPlan; npv: number } {
   let { plan, model, yearZero } = entry;
   const option = shocked.options[index] ?? entry.option;
   // Interest and capital change the plan (loan, depreciation); capital also the maintenance inside the margin.
   const buysCapital = entry.plan.capitalTotal > 0;
-  if (buysCapital && (test.ratePoints !== 0 || test.capital !== 1)) plan = planOption(shocked, option, 'fast').plan;
+  if (buysCapital && (test.ratePoints !== 0 || test.capital !== 1)) {
+    // The plan does not depend on the milk price: shocks with the same rate and capital share it;
+    // a rate alone moves only the loan.
+    const key = `${index}|${test.ratePoints}|${test.capital}`;
+    plan = plans.get(key) ?? (test.capital === 1 ? withFinanceTerms(plan, shocked.finance) : planOption(shocked, option, 'fast').plan);
+    plans.set(key, plan);
+  }
   if (buysCapital && test.capital !== 1) {
     const projection = projectOption(shocked, option, plan, currentLyingHours, false, true);
     model = projection.milk ?? model;
@@ -68,8 +95,9 @@ function underShock(shocked: Scenario, test: StressTest, entry: StressOption, in
   if (test.feed !== 1) model = { ...model, feedPerCow: model.feedPerCow * test.feed, marginalFeedCostPerKg: model.marginalFeedCostPerKg * test.feed };
   const { finance, herd } = shocked;
   const cash = new Array<number>(plan.horizon + 1);
-  const npv = cashAtMilk(model, plan, finance, yearZero, herd.milkPricePerKg, herd.lyingResponseKgPerHour, cash);
-  return { cash, plan, npv };
+  const net = new Array<number>(plan.horizon + 1);
+  const npv = cashAtMilk(model, plan, finance, yearZero, herd.milkPricePerKg, herd.lyingResponseKgPerHour, cash, net);
+  return { cash, net, plan, npv };
 }
 
 /**
@@ -81,14 +109,31 @@ function underShock(shocked: Scenario, test: StressTest, entry: StressOption, in
  * within the cents of rounding.
  */
 export function stressTables(anchored: Scenario, farm: ExistingFarm, entries: readonly StressOption[], currentIndex: number): StressResult[][] {
+  return stressRuns(anchored, farm, entries, currentIndex).tables;
+}
+
+/** The stress table's shocks year by year, per option (index = option) and shock (STRESS_TESTS order); see stressTables. */
+export function stressYears(anchored: Scenario, farm: ExistingFarm, entries: readonly StressOption[], currentIndex: number): StressYears[][] {
+  return stressRuns(anchored, farm, entries, currentIndex, true).years;
+}
+
+function stressRuns(
+  anchored: Scenario,
+  farm: ExistingFarm,
+  entries: readonly StressOption[],
+  currentIndex: number,
+  withYears = false,
+): { tables: StressResult[][]; years: StressYears[][] } {
   // The same lying hours the full evaluation measures against: stocking and the cap applied.
   const currentEntry = entries[currentIndex];
   const currentLyingHours = currentEntry ? milkingLyingHours(anchored.herd, currentEntry.option) : 0;
   const threshold = anchored.finance.coverageThreshold;
   const tables = entries.map((): StressResult[] => []);
+  const years = entries.map((): StressYears[] => []);
+  const plans = new Map<string, OptionPlan>();
   for (const test of STRESS_TESTS) {
     const shocked = shockScenario(anchored, test);
-    const runs = entries.map((entry, index) => underShock(shocked, test, entry, index, currentLyingHours));
+    const runs = entries.map((entry, index) => underShock(shocked, test, entry, index, currentLyingHours, plans));
     const current = runs[currentIndex];
     if (!current) continue;
     runs.forEach((run, index) => {
@@ -103,7 +148,14 @@ export function stressTables(anchored: Scenario, farm: ExistingFarm, entries: re
         npvAgainstCurrent: isCurrent ? null : run.npv - current.npv,
         yearsBelowThreshold: summary.yearsBelowThreshold,
       });
+      if (withYears) {
+        const horizon = run.plan.horizon;
+        const wholeFarmCash = run.cash.map((cash, t) => (t === 0 ? 0 : farm.cashBesideHerd + cash));
+        const wholeFarmDebt = run.cash.map((_, t) => (t === 0 ? 0 : (farm.debtByYear[t] ?? 0) + loanDueIn(run.plan, t)));
+        const changeFlows = isCurrent ? null : run.net.slice(0, horizon + 1).map((flow, t) => flow - (current.net[t] ?? 0));
+        years[index]?.push({ id: test.id, changeFlows, wholeFarmCash, wholeFarmDebt });
+      }
     });
   }
-  return tables;
+  return { tables, years };
 }

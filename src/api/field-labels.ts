@@ -29,6 +29,8 @@ export const HERD_LABELS: Readonly<Record<string, string>> = {
   'growth.fertiliser': 'Fertiliser growth',
   existingCashForDebtServicePerYear: 'Cash for debt service',
   existingDebtPaymentsPerYear: 'Existing debt payments',
+  // On the finance form, beside the debt-service figures.
+  existingCashHerdMarginPerYear: 'Herd margin inside the existing cash',
   lyingResponseKgPerHour: 'Milk per extra hour lying',
   lyingResponseYear1Fraction: 'Reached in year 1',
   dryDaysPerCowYear: 'Dry days per cow',

@@ -169,3 +169,50 @@ describe('preferences, decisions and the saved risk result', () => {
     expect((await lender.get(`${base}/preferences`)).status).toBe(403);
   });
 });
+
+describe('the saved risk result as a lender reads it', () => {
+  let t: TestApp;
+  let base: string;
+
+  beforeAll(async () => {
+    t = await createTestApp({ seedDemo: true });
+    const lender = await signedIn(t, 'lender@byrecast.test');
+    const farms = await lender.get('/api/farms');
+    const farmId = farms.body[0].id as number;
+    const mine = (await lender.get(`/api/farms/${farmId}/lender-shares/mine`)).body as { scenarioId: number }[];
+    base = `/api/farms/${farmId}/scenarios/${mine[0]!.scenarioId}`;
+  });
+  afterAll(async () => {
+    await t?.close();
+  });
+
+  it('shows the lender the run kept on the shared version, and withholds a run on a later save they were not shared', async () => {
+    // docs/product.md (Lender package): the lender sees only what is shared — one version of one scenario.
+    const owner = await signedIn(t, 'owner@byrecast.test');
+    const lender = await signedIn(t, 'lender@byrecast.test');
+    const shared = await lender.get(base);
+    const current = await owner.get(base);
+    expect(current.body.version).toBe(shared.body.version);
+    const ids = (current.body.scenario.options as { id: string }[]).map((o) => o.id);
+    expect((await owner.put(`${base}/risk-result`).send({ scenarioVersion: current.body.version, result: riskResult(ids) })).status).toBe(200);
+
+    const seen = await lender.get(`${base}/risk-result`);
+    expect(seen.status).toBe(200);
+    expect(seen.body.fresh).toBe(true);
+    expect(seen.body.scenarioVersion).toBe(shared.body.version);
+
+    // The farm saves a change and keeps a run on it: that run belongs to a version the lender was not shared.
+    const changed = structuredClone(current.body.scenario);
+    changed.herd.milkPricePerKg = changed.herd.milkPricePerKg - 0.02;
+    const saved = await owner.put(base).send({ version: current.body.version, scenario: changed });
+    expect(saved.status).toBe(200);
+    expect((await owner.put(`${base}/risk-result`).send({ scenarioVersion: saved.body.version, result: { ...riskResult(ids), seed: 99 } })).status).toBe(200);
+
+    expect((await owner.get(`${base}/risk-result`)).body.fresh).toBe(true);
+    const after = await lender.get(`${base}/risk-result`);
+    expect(after.status).toBe(200);
+    expect(after.body).toBeNull();
+    // The lender still reads the version shared with them.
+    expect((await lender.get(base)).body.version).toBe(shared.body.version);
+  });
+});

@@ -170,3 +170,42 @@ describe('review notes and status', () => {
     expect((await reviews(owner))[0]!.notes).toHaveLength(1);
   });
 });
+
+describe('a new lender note', () => {
+  let t: TestApp;
+  let lender: request.Agent;
+  let farmId: number;
+  let scenarioId: number;
+  let shareId: number;
+  let optionId: string;
+
+  beforeAll(async () => {
+    t = await createTestApp({ seedDemo: true });
+    lender = await signedIn(t, 'lender@byrecast.test');
+    farmId = await farmIdByName(lender, 'Cairnbrook Farm');
+    const mine = (await lender.get(`/api/farms/${farmId}/lender-shares/mine`)).body as { id: number; scenarioId: number }[];
+    shareId = mine[0]!.id;
+    scenarioId = mine[0]!.scenarioId;
+    const seen = (await lender.get(`/api/farms/${farmId}/scenarios/${scenarioId}`)).body as { scenario: Scenario };
+    optionId = seen.scenario.options.find((o) => !o.current)!.id;
+  });
+  afterAll(async () => {
+    await t.close();
+  });
+
+  it('e-mails the members, not the lender, a new lender note with what it is about and a link to answer it', async () => {
+    t.mailer.outbox!.clear();
+    const body = 'Is the sand contractor rate fixed for the first five years?';
+    const res = await lender.post(`/api/farms/${farmId}/lender-shares/${shareId}/notes`).send({ body, optionId, lineRef: 'Running cost: sand haulage' });
+    expect(res.status).toBe(201);
+    // docs/product.md (Lender package): members answer in a thread, so they must hear of a note as of a status change.
+    const mails = t.mailer.outbox!.list();
+    expect(mails.map((m) => m.to).sort()).toEqual(['consultant@byrecast.test', 'owner@byrecast.test', 'partner@byrecast.test']);
+    for (const mail of mails) {
+      expect(mail.subject).toContain('New lender note');
+      expect(mail.text).toContain(body);
+      expect(mail.text).toContain(`${res.body.optionName as string} › Running cost: sand haulage`);
+      expect(mail.links).toContain(`${t.config.appOrigin}/farms/${farmId}/scenarios/${scenarioId}/lender`);
+    }
+  });
+});

@@ -147,6 +147,38 @@ function checkAllOptions(workbook: ExcelJS.Workbook, results: ScenarioResults): 
   results.options.forEach((option, index) => checkOption(workbook, index + 1, option, results.horizonYears));
 }
 
+/**
+ * The Stress sheet's live cells (base case, then each shock in the engine's order) against the
+ * engine's stress rows: NPV of the change, lowest whole-farm coverage, years below the threshold.
+ */
+function checkStress(workbook: ExcelJS.Workbook, results: ScenarioResults, parts: { npv: boolean; coverage: boolean } = { npv: true, coverage: true }): number {
+  let checked = 0;
+  results.options.forEach((option, index) => {
+    const n = index + 1;
+    const lowest = named(workbook, `Opt${n}_StressLowestCoverage`);
+    const npv = named(workbook, `Opt${n}_StressNPV`);
+    const below = named(workbook, `Opt${n}_StressYearsBelowThreshold`);
+    const rows = [
+      { label: 'base case', lowestCoverage: option.lowestCoverage?.value ?? null, npvAgainstCurrent: option.incremental?.npv ?? null, yearsBelowThreshold: option.yearsBelowCoverageThreshold.length },
+      ...option.stress,
+    ];
+    expect(lowest).toHaveLength(rows.length);
+    rows.forEach((row, k) => {
+      const label = `${option.name} stress ${row.label}`;
+      if (parts.coverage) {
+        expectRate(lowest[k] ?? null, row.lowestCoverage, `${label} lowest coverage`);
+        expectRate(below[k] ?? null, row.yearsBelowThreshold, `${label} years below threshold`);
+      }
+      if (parts.npv) {
+        if (row.npvAgainstCurrent === null) expect(npv[k], `${label} NPV`).toBe('n/a');
+        else expectMoney(npv[k] ?? null, row.npvAgainstCurrent, `${label} NPV of the change`);
+      }
+      checked += 1;
+    });
+  });
+  return checked;
+}
+
 async function setNamedInput(workbook: ExcelJS.Workbook, name: string, value: number): Promise<void> {
   const [range] = workbook.definedNames.getRanges(name).ranges;
   const match = range ? /^'?(.+?)'?!\$?([A-Z]+)\$?(\d+)$/.exec(range) : null;
@@ -217,6 +249,62 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
 
   it('reproduces every key result of the engine from the formulas: cash flows, NPV, IRR, payback, loan, DSCR', () => {
     checkAllOptions(recalculated, results);
+  });
+
+  it('reproduces the stress table from live formulas over the shocked years: NPV of the change, lowest coverage, years below', () => {
+    // Six shocks and the base case for each of the five options (shared/engine/stress.ts STRESS_TESTS).
+    expect(checkStress(recalculated, results)).toBe(5 * 7);
+    expect(checkStress(recalculatedLevel, levelResults)).toBe(2 * 7);
+  });
+
+  it('moves the stressed NPVs of the change with a new discount rate, as the engine does', () => {
+    // Pre-tax demo: the shocked project flows do not depend on the interest rate, only their discounting moves.
+    expect(scenario.finance.taxRate).toBe(0);
+    const sand = results.options.findIndex((o) => o.id === 'sand-freestall');
+    const milk10 = (r: ScenarioResults) => r.options[sand]?.stress.find((row) => row.id === 'milk-10')?.npvAgainstCurrent ?? NaN;
+    expect(Math.abs(milk10(changedResults) - milk10(results))).toBeGreaterThan(1000);
+    checkStress(recalculatedWithNewRates, changedResults, { npv: true, coverage: false });
+  });
+
+  it('shades coverage below the threshold on the Comparison sheet with a live rule and shows it as ×', () => {
+    const sheet = recalculated.getWorksheet('Comparison');
+    expect(sheet).toBeDefined();
+    const threshold = scenario.finance.coverageThreshold;
+    const labelRow = (label: string): number => {
+      let found = 0;
+      sheet?.eachRow((row, r) => {
+        if (row.getCell(1).value === label) found = r;
+      });
+      expect(found, label).toBeGreaterThan(0);
+      return found;
+    };
+    const rules = (sheet as unknown as { conditionalFormattings: { ref: string; rules: { formulae?: string[] }[] }[] }).conditionalFormattings ?? [];
+    const engineValue = {
+      'Lowest whole-farm coverage': (o: OptionResult) => o.lowestCoverage?.value ?? null,
+      'Lowest project coverage (the change)': (o: OptionResult) => o.lowestProjectCoverage?.value ?? null,
+    };
+    const shaded: boolean[] = [];
+    for (const [label, valueOf] of Object.entries(engineValue)) {
+      const r = labelRow(label);
+      // The rule LibreOffice wrote back after reading it: on this row, against the named threshold cell.
+      const rule = rules.find((cf) => cf.ref.replace(/\$/g, '') === `B${r}:${String.fromCharCode(65 + results.options.length)}${r}`);
+      expect(rule, `${label}: conditional format on row ${r}`).toBeDefined();
+      expect(rule?.rules[0]?.formulae?.[0]).toMatch(new RegExp(`^AND\\(ISNUMBER\\(B${r}\\),B${r}<${INPUT_NAMES.coverageThreshold}\\)$`));
+      results.options.forEach((option, i) => {
+        const cell = sheet?.getCell(r, i + 2);
+        const expected = valueOf(option);
+        if (expected === null) return;
+        expect(cell?.numFmt, `${label} ${option.name} format`).toContain('×');
+        const value = shown(cell as ExcelJS.Cell);
+        expectRate(value, expected, `${label} ${option.name}`);
+        // The rule's condition on LibreOffice's value shades exactly where the app marks coverage below the threshold.
+        shaded.push(typeof value === 'number' && value < threshold);
+        expect(typeof value === 'number' && value < threshold, `${label} ${option.name}`).toBe(expected < threshold);
+      });
+    }
+    // The demo has both: whole-farm coverage above 1.25 for every option, project coverage below it.
+    expect(shaded).toContain(true);
+    expect(shaded).toContain(false);
   });
 
   it('finds the same year of lowest coverage as the app on the second demo too', () => {

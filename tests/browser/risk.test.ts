@@ -70,6 +70,8 @@ describe('risk screen in Chromium', () => {
     const inputs = scenario.risk.monteCarlo.inputs;
     expect(inputs.length).toBeGreaterThan(0);
     await expect.poll(() => page.getByTestId('mc-input').count()).toBe(inputs.length);
+    // The seed and the distributions sit under the "advanced" fold.
+    await page.getByTestId('mc-settings-advanced').locator('summary').click();
     await page.locator('#mc-draws').fill(String(DRAWS));
     await page.locator('#mc-seed').fill(String(SEED));
     await page.locator('#mc-seed').blur();

@@ -61,7 +61,7 @@ export async function listMemberships(db: Database, userId: number): Promise<{ f
 }
 
 /** Replaces the password hash and raises the token version, so every earlier session ends. */
-export async function setPasswordHash(db: Database, userId: number, passwordHash: string): Promise<void> {
+export async function setPasswordHash(db: Executor, userId: number, passwordHash: string): Promise<void> {
   await db
     .update(usersTable)
     .set({ passwordHash, tokenVersion: sql`${usersTable.tokenVersion} + 1` })
@@ -119,7 +119,7 @@ export async function findPasswordResetByHash(
  * Marks a reset used, only if it was still unused: true for the one caller that wins, so two
  * requests racing with the same link cannot both set a password.
  */
-export async function claimPasswordReset(db: Database, resetId: number, now: Date): Promise<boolean> {
+export async function claimPasswordReset(db: Executor, resetId: number, now: Date): Promise<boolean> {
   const [result] = await db
     .update(passwordResetsTable)
     .set({ usedAt: now })
@@ -128,7 +128,7 @@ export async function claimPasswordReset(db: Database, resetId: number, now: Dat
 }
 
 /** Ends every other open reset link of the user (after one is used). */
-export async function closeOpenPasswordResets(db: Database, userId: number, now: Date): Promise<void> {
+export async function closeOpenPasswordResets(db: Executor, userId: number, now: Date): Promise<void> {
   await db
     .update(passwordResetsTable)
     .set({ usedAt: now })

@@ -1,7 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { scenarioSchema } from '../../../shared/schema';
-import { anchoredForShocks, evaluateScenario } from '../../../shared/engine/evaluate';
+import { anchoredForShocks, evaluateCore, evaluateScenario, evaluateStressYears } from '../../../shared/engine/evaluate';
+import { planOption, withFinanceTerms } from '../../../shared/engine/projection';
 import { shockScenario, STRESS_TESTS } from '../../../shared/engine/stress';
 import { handScenario } from './hand-scenario';
 
@@ -192,5 +193,72 @@ describe('Monte Carlo with the existing farm taking the same prices', () => {
     // The change's NPV distribution is reported beside it: the candidate loses money in every draw.
     expect(result.options[1]?.incrementalNpv?.probabilityNegative).toBe(1);
     expect(result.options[1]?.incrementalNpv?.p50).toBeLessThan(0);
+  });
+});
+
+describe('the core evaluation without the decision figures', () => {
+  // The split is the engine's own (docs/model.md, "Decision figures"): the core is the full
+  // evaluation less the stress table and the coverage break-evens, figure for figure.
+  it.each(['cairnbrook-five-systems.json', 'cairnbrook-mattress-or-sand.json'])('equals the full evaluation less stress and coverage break-evens on %s', (name) => {
+    const scenario = scenarioSchema.parse(JSON.parse(readFileSync(new URL(`../../../scenarios/${name}`, import.meta.url), 'utf8')));
+    const full = evaluateScenario(scenario);
+    const core = evaluateCore(scenario);
+    expect(core.options.map((o) => Object.keys(o).filter((key) => key === 'stress' || key === 'breakEvenMilkPriceForCoverage'))).toEqual(core.options.map(() => []));
+    const stripped = full.options.map((option) => {
+      const copy: Record<string, unknown> = { ...option };
+      delete copy.stress;
+      delete copy.breakEvenMilkPriceForCoverage;
+      return copy;
+    });
+    expect(core).toEqual({ ...full, options: stripped });
+    for (const option of full.options) {
+      expect(option.stress.map((s) => s.id)).toEqual(STRESS_TESTS.map((t) => t.id));
+      expect(option.breakEvenMilkPriceForCoverage).toBeDefined();
+    }
+  });
+});
+
+describe('the stress shocks year by year (what the workbook discounts and divides)', () => {
+  it('give back every stress row: NPV of the change, lowest whole-farm coverage and years below the threshold', () => {
+    const scenario = scenarioSchema.parse(JSON.parse(readFileSync(new URL('../../../scenarios/cairnbrook-five-systems.json', import.meta.url), 'utf8')));
+    const results = evaluateScenario(scenario);
+    const years = evaluateStressYears(scenario);
+    const { discountRate, coverageThreshold } = scenario.finance;
+    let checked = 0;
+    results.options.forEach((option, i) => {
+      option.stress.forEach((row, k) => {
+        const detail = years[i]?.[k];
+        expect(detail?.id).toBe(row.id);
+        // NPV convention of numpy-financial / `financial` npv: flows[0] at t = 0.
+        const npv = detail?.changeFlows?.reduce((sum, flow, t) => sum + flow / (1 + discountRate) ** t, 0) ?? null;
+        if (row.npvAgainstCurrent === null) expect(npv).toBeNull();
+        else expect(Math.abs((npv ?? NaN) - row.npvAgainstCurrent)).toBeLessThan(1e-6);
+        // Farm Financial Standards Council coverage: cash available for debt service ÷ P + I, per year.
+        const ratios = (detail?.wholeFarmCash ?? []).slice(1).map((cash, t) => cash / (detail?.wholeFarmDebt[t + 1] ?? NaN));
+        expect(Math.min(...ratios)).toBeCloseTo(row.lowestCoverage ?? NaN, 12);
+        expect(ratios.filter((r) => r < coverageThreshold)).toHaveLength(row.yearsBelowThreshold);
+        checked += 1;
+      });
+    });
+    expect(checked).toBe(5 * STRESS_TESTS.length);
+  });
+});
+
+describe('a plan at other finance terms', () => {
+  it('equals the plan built again with the interest rate 2 points higher, loan line by loan line', () => {
+    const scenario = scenarioSchema.parse(JSON.parse(readFileSync(new URL('../../../scenarios/cairnbrook-five-systems.json', import.meta.url), 'utf8')));
+    const test = STRESS_TESTS.find((t) => t.id === 'rate+2');
+    if (!test) throw new Error('no rate+2 shock');
+    const shocked = shockScenario(scenario, test);
+    for (const option of scenario.options) {
+      const moved = withFinanceTerms(planOption(scenario, option, 'ledger').plan, shocked.finance);
+      const again = planOption(shocked, option, 'fast').plan;
+      // The whole plan, not only the loan: nothing else may depend on the rate (construction interest included).
+      expect(moved, option.id).toEqual(again);
+    }
+    // The rate moved something: the demo's barns borrow.
+    const sand = scenario.options.find((o) => o.id === 'sand-freestall');
+    if (!sand) throw new Error('no sand option');
+    expect(withFinanceTerms(planOption(scenario, sand, 'fast').plan, shocked.finance).interestByYear[1]).toBeGreaterThan(planOption(scenario, sand, 'fast').plan.interestByYear[1] ?? Infinity);
   });
 });
