@@ -114,8 +114,8 @@ describe('option cards and the existing farm on the finance form', () => {
     await row.getByLabel('Loan', { exact: true }).fill('');
     const payment = page.locator('#field-herd-existingLoans-0-paymentPerYear');
     await payment.fill('-5');
-    // The shared schema's messages, beside the fields they name.
-    await until(() => row.innerText()).toContain('Existing loan payment must be at least 0');
+    // The shared schema's rule, beside the field and named by the label shown there (src/api/messages.ts inlineMessage).
+    await until(() => row.innerText()).toContain('Payment per year must be at least 0');
     await until(() => row.innerText()).toContain('Existing loan description must not be empty');
     await row.getByLabel('Loan', { exact: true }).fill('Tractor loan');
     await payment.fill('30000');
