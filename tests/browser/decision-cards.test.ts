@@ -140,7 +140,8 @@ describe('option cards and the existing farm on the finance form', () => {
 
     await page.reload();
     await page.getByRole('heading', { name: 'Existing loans that end within the horizon' }).waitFor();
-    await until(() => page.locator('#field-herd-existingLoans-0-paymentPerYear').inputValue()).toBe('30000');
+    // Inputs group thousands as the farm's locale writes them (en-IE "30,000", CLDR via Intl, from memory).
+    await until(() => page.locator('#field-herd-existingLoans-0-paymentPerYear').inputValue()).toBe('30,000');
     expect(await page.locator('#field-herd-existingLoans-0-lastYear').inputValue()).toBe('8');
     expect(await page.getByTestId('existing-loan').first().getByLabel('Loan', { exact: true }).inputValue()).toBe('Tractor loan');
 
