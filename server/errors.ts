@@ -2,13 +2,14 @@
 import type { ErrorRequestHandler } from 'express';
 import type { Logger } from 'pino';
 import { z } from 'zod';
+import type { ErrorCode } from '../shared/responses.js';
 
 export type FieldErrors = Record<string, string>;
 
 export class AppError extends Error {
   constructor(
     readonly status: number,
-    readonly code: string,
+    readonly code: ErrorCode,
     message: string,
     readonly fields?: FieldErrors,
     readonly details?: Record<string, unknown>,

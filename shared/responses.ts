@@ -10,6 +10,39 @@ import type { ReviewStatusValue } from './schema/lender';
 import type { FieldChange } from './scenario-diff';
 import type { UnitSystem } from './units';
 
+/** Every `error.code` the API answers with; the client words each one (src/api/messages.ts). */
+export const errorCodes = [
+  'invalid_input',
+  'invalid_json',
+  'bad_request',
+  'payload_too_large',
+  'unsupported_type',
+  'unauthorized',
+  'invalid_credentials',
+  'invalid_token',
+  'wrong_account',
+  'sign_in_required',
+  'rate_limited',
+  'cross_site',
+  'forbidden',
+  'not_found',
+  'file_missing',
+  'conflict',
+  'version_conflict',
+  'email_taken',
+  'already_member',
+  'already_shared',
+  'already_revoked',
+  'last_owner',
+  'quota_exceeded',
+  'not_on_capital_line',
+  'out_of_range',
+  'baseline_missing',
+  'database_unavailable',
+  'internal',
+] as const;
+export type ErrorCode = (typeof errorCodes)[number];
+
 export const scenarioStatuses = ['draft', 'decided', 'archived'] as const;
 export type ScenarioStatus = (typeof scenarioStatuses)[number];
 

@@ -5,7 +5,7 @@
  * the share is revoked or its expiry date comes. Sharing a newer version is a new share; the old
  * one keeps pointing at the version it was given.
  */
-import type { ShareView } from '../../shared/responses.js';
+import type { ErrorCode, ShareView } from '../../shared/responses.js';
 import type { AcceptInvitationInput } from '../../shared/schema/accounts.js';
 import { MAX_SHARE_DAYS, utcDate, utcDatePlusDays, type SharePreview } from '../../shared/schema/lender.js';
 import type { z } from 'zod';
@@ -62,7 +62,7 @@ function shareLink(appOrigin: string, token: string): string {
   return `${appOrigin}/lender-shares/${encodeURIComponent(token)}`;
 }
 
-const badField = (field: string, message: string, status = 400, code = 'invalid_input') => new AppError(status, code, `${field}: ${message}`, { [field]: message });
+const badField = (field: string, message: string, status = 400, code: ErrorCode = 'invalid_input') => new AppError(status, code, `${field}: ${message}`, { [field]: message });
 
 /** The short words the audit log uses for a share's subject. */
 export function shareSubject(share: Pick<ShareRecord, 'scenarioName' | 'version' | 'lenderEmail'>): string {

@@ -14,6 +14,7 @@ import { buildLenderWorkbook, workbookFileName } from '../workbook/build-workboo
 import { recordAudit } from './audit.js';
 import type { FarmActor } from './lender-shares.js';
 import { riskInputsHash } from './risk-inputs-hash.js';
+import { scenarioQuotes } from './documents.js';
 import { readScenarioWhole } from './scenarios.js';
 
 /** Seeded Monte Carlo runs take seconds; the same inputs give the same result, so recent ones are kept. */
@@ -50,6 +51,7 @@ export async function lenderWorkbook(
     preparedBy: view.updatedBy ?? farm.name,
     created: now,
     risk: { sensitivity: sensitivity(scenario), monteCarlo: cachedMonteCarlo(scenario) },
+    quotes: await scenarioQuotes(db, { farmId: actor.farmId, role: actor.role, userId: actor.user.id }, scenarioId),
   });
   if (actor.role === 'lender') {
     await recordAudit(db, { farmId: actor.farmId, userId: actor.user.id, name: actor.user.name }, 'workbook.downloaded', `"${scenario.name}" version ${version}`, { scenarioId, version });

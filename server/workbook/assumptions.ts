@@ -4,7 +4,9 @@
  */
 import type ExcelJS from 'exceljs';
 import { scenarioSchema, type Option, type Source } from '../../shared/schema/index.js';
+import { quoteSource } from '../../shared/source-edits.js';
 import { INPUT_NAMES, MILK_QUALITY_PRICE, defineName, optionName, type WorkbookContext } from './context.js';
+import { codeToWords, currencySymbol, isInternal, plainLabel, plainUnit, plainValue } from './plain-words.js';
 import {
   BASE_FONT,
   COUNT_FORMAT,
@@ -15,7 +17,6 @@ import {
   sheetRef,
   styleHeaderRow,
   styleInput,
-  styleNote,
   styleSection,
   writeTitle,
 } from './layout.js';
@@ -52,6 +53,10 @@ export interface InputRow {
   /** Path inside the option, for the option's source tags (bedding.pricePerTonne). */
   optionPath?: string;
   label: string;
+  /** The label without the item it belongs to ("Tax class" of "Building shell: Tax class"). */
+  ownLabel?: string;
+  /** The item it belongs to, e.g. "Building shell: ". */
+  prefix?: string;
   unit: string;
   value: number | string | boolean | null;
 }
@@ -96,8 +101,9 @@ function itemKey(item: unknown, index: number): string {
 
 function itemLabel(item: unknown): string {
   if (!isObject(item)) return '';
-  const text = item.description ?? item.name ?? item.key;
-  return typeof text === 'string' ? `${text}: ` : '';
+  const text = item.description ?? item.name ?? (typeof item.key === 'string' ? codeToWords(item.key) : undefined);
+  if (typeof text !== 'string') return '';
+  return `${text.charAt(0).toUpperCase()}${text.slice(1)}: `;
 }
 
 function unionMember(node: SchemaNode, value: unknown): SchemaNode | undefined {
@@ -134,25 +140,27 @@ export function flattenInputs(schema: SchemaNode, value: unknown, path: string, 
       return value.flatMap((item, index) => flattenInputs(element, item, `${path}.${itemKey(item, index)}`, currency, `${prefix}${itemLabel(item)}`));
     }
     const { label, unit } = splitDescription(description, currency);
-    return [{ path, label: prefix + label, unit, value: value.length === 0 ? '(none)' : value.join(', ') }];
+    return [{ path, label: prefix + label, ownLabel: label, prefix, unit, value: value.length === 0 ? '(none)' : value.join(', ') }];
   }
   if (type === 'record') return [];
   const { label, unit } = splitDescription(description, currency);
   const scalar = value === undefined ? null : (value as InputRow['value']);
-  return [{ path, label: prefix + label, unit, value: scalar }];
+  return [{ path, label: prefix + label, ownLabel: label, prefix, unit, value: scalar }];
 }
+
+const SOURCE_WORDS: Record<Source['kind'], string> = { reference: 'Reference', 'common-practice': 'Common practice', assumption: 'Assumption', user: 'Farm figure', quote: 'Quote' };
 
 function sourceText(source: Source | undefined, fallback: string): string {
   if (!source) return fallback;
-  const kind = { reference: 'Reference', 'common-practice': 'Common practice', assumption: 'Assumption', user: 'Farm figure' }[source.kind];
+  const kind = SOURCE_WORDS[source.kind];
   return source.note ? `${kind}: ${source.note}` : kind;
 }
 
-function formatFor(row: InputRow, context: WorkbookContext): string | undefined {
+function formatFor(row: InputRow, context: WorkbookContext, symbol: string): string | undefined {
   if (typeof row.value !== 'number') return undefined;
   const unit = row.unit.toLowerCase();
   if (unit.includes('fraction')) return PERCENT_FORMAT;
-  if (unit.startsWith(context.results.currency.toLowerCase())) return Number.isInteger(row.value) && Math.abs(row.value) >= 100 ? context.formats.moneyWhole : '#,##0.00##';
+  if (unit.startsWith(symbol.toLowerCase())) return Number.isInteger(row.value) && Math.abs(row.value) >= 100 ? context.formats.moneyWhole : '#,##0.00##';
   return Number.isInteger(row.value) ? COUNT_FORMAT : '#,##0.0###';
 }
 
@@ -160,7 +168,7 @@ function displayUnit(unit: string): string {
   return unit.replace(/^fraction( per year)?.*$/i, (_m, perYear: string | undefined) => (perYear ? '% per year' : '%'));
 }
 
-const COLUMNS = ['Input', 'Value', 'Unit', 'Source', 'Field'] as const;
+const COLUMNS = ['Input', 'Value', 'Unit', 'Source'] as const;
 
 /** Builds the Assumptions sheet: farm and herd, finance, risk settings, then each option. */
 export function addAssumptionsSheet(context: WorkbookContext): ExcelJS.Worksheet {
@@ -173,13 +181,14 @@ export function addAssumptionsSheet(context: WorkbookContext): ExcelJS.Worksheet
       'Other rows document what the engine used for the yearly lines (change them in Byrecast and export again).',
   );
   const headerRow = 4;
-  [50, 14, 22, 60, 40].forEach((width, i) => (ws.getColumn(i + 1).width = width));
+  [56, 22, 22, 64].forEach((width, i) => (ws.getColumn(i + 1).width = width));
   COLUMNS.forEach((h, i) => (ws.getCell(headerRow, i + 1).value = h));
   styleHeaderRow(ws, headerRow, 1, COLUMNS.length);
   for (let c = 2; c <= COLUMNS.length; c++) ws.getCell(headerRow, c).alignment = { horizontal: c === 2 ? 'right' : 'left' };
 
   const shape = (scenarioSchema as unknown as SchemaNode).shape ?? {};
-  const currency = context.results.currency;
+  // Units name the currency by its symbol (€ per kg), not its ISO code.
+  const currency = currencySymbol(context.results.currency, scenario.locale);
   let r = headerRow + 1;
   const section = (title: string) => {
     r++;
@@ -192,15 +201,16 @@ export function addAssumptionsSheet(context: WorkbookContext): ExcelJS.Worksheet
   for (const layout of context.options) named[`options.${layout.result.id}.milkQualityPricePerKg`] = optionName(layout, MILK_QUALITY_PRICE);
   const write = (rows: InputRow[], sourceOf: (row: InputRow) => string) => {
     for (const input of rows) {
-      ws.getCell(r, 1).value = input.label || input.path;
+      if (isInternal(input.path)) continue;
+      const own = input.ownLabel ?? input.label;
+      ws.getCell(r, 1).value = `${input.prefix ?? ''}${plainLabel(input.path, own || codeToWords(input.path.split('.').at(-1) ?? ''))}`;
       const cell = ws.getCell(r, 2);
-      cell.value = typeof input.value === 'boolean' ? (input.value ? 'yes' : 'no') : (input.value ?? '(not set)');
-      const fmt = formatFor(input, context);
+      const value = plainValue(input.path, input.value, scenario.locale);
+      cell.value = typeof value === 'boolean' ? (value ? 'yes' : 'no') : (value ?? '(not set)');
+      const fmt = formatFor(input, context, currency);
       if (fmt) cell.numFmt = fmt;
-      ws.getCell(r, 3).value = displayUnit(input.unit);
+      ws.getCell(r, 3).value = plainUnit(input.path, displayUnit(input.unit));
       ws.getCell(r, 4).value = sourceOf(input);
-      ws.getCell(r, 5).value = input.path;
-      styleNote(ws.getCell(r, 5));
       const name = named[input.path];
       if (name) {
         defineName(workbook, name, sheetRef(ASSUMPTIONS_SHEET, r, 2));
@@ -209,7 +219,6 @@ export function addAssumptionsSheet(context: WorkbookContext): ExcelJS.Worksheet
       }
       for (const c of [1, 4]) ws.getCell(r, c).alignment = { wrapText: true, vertical: 'top' };
       ws.getCell(r, 3).alignment = { vertical: 'top', indent: 1 };
-      ws.getCell(r, 5).alignment = { vertical: 'top' };
       cell.alignment = { horizontal: 'right', vertical: 'top' };
       fitWrappedRow(ws, r, [1, 4]);
       r++;
@@ -260,12 +269,12 @@ export function addAssumptionsSheet(context: WorkbookContext): ExcelJS.Worksheet
       ...row,
       optionPath: row.path.slice(`options.${option.id}.`.length),
     }));
-    write(rows, (row) => sourceText(optionSource(option, row.optionPath ?? ''), farmFigure()));
+    write(rows, (row) => sourceText(quotedSource(context, option, row.optionPath ?? '') ?? optionSource(option, row.optionPath ?? ''), farmFigure()));
   }
 
-  // Column widths are set before the rows so fitWrappedRow can measure them; the field path is left out of the print area.
+  // Column widths are set before the rows so fitWrappedRow can measure them.
   freeze(ws, headerRow);
-  setupPrint(ws, { lastRow: r - 1, lastColumn: COLUMNS.length - 1, titleRows: `${headerRow}:${headerRow}` });
+  setupPrint(ws, { lastRow: r - 1, lastColumn: COLUMNS.length, titleRows: `${headerRow}:${headerRow}` });
   ws.eachRow((row) => row.eachCell((cell) => (cell.font ??= BASE_FONT)));
   return ws;
 }
@@ -286,6 +295,15 @@ export function assumptionShare(scenario: WorkbookContext['scenario']): { assume
     }
   }
   return { assumed, total };
+}
+
+/** A capital line's unit cost backed by a quote with an amount: the quote, whatever the stored tag says. */
+function quotedSource(context: WorkbookContext, option: Option, optionPath: string): Source | undefined {
+  const match = /^capitalLines\.(.+)\.unitCost$/.exec(optionPath);
+  const quote = match ? context.quotes?.get(match[1] ?? '') : undefined;
+  if (!quote) return undefined;
+  const total = new Intl.NumberFormat(context.scenario.locale, { style: 'currency', currency: context.results.currency, maximumFractionDigits: 0 }).format(quote.total);
+  return quoteSource(quote.files, total);
 }
 
 /** Source tag of an option field: exact path, else the nearest parent path that has one. */

@@ -6,6 +6,7 @@ import type { Writable } from 'node:stream';
 import ExcelJS from 'exceljs';
 import { resolvedGrowth, type ScenarioResults } from '../../shared/engine/index.js';
 import type { Scenario } from '../../shared/schema/index.js';
+import type { CapitalLineQuotes } from '../../shared/schema/documents.js';
 import { addAssumptionsSheet, ASSUMPTIONS_SHEET } from './assumptions.js';
 import { addCashFlowSheet } from './cash-flows.js';
 import { addComparisonSheet, COMPARISON_SHEET } from './comparison.js';
@@ -31,6 +32,8 @@ export interface LenderWorkbookInput {
   /** Export time; the document's created date and the cover's date (the engine has no clock). */
   created: Date;
   risk?: WorkbookRisk;
+  /** Quotes on the scenario's capital lines (documents with an amount); their lines' costs are tagged "Quote". */
+  quotes?: readonly CapitalLineQuotes[];
 }
 
 /**
@@ -71,6 +74,11 @@ export async function buildLenderWorkbook(input: LenderWorkbookInput): Promise<E
     },
     options,
     current,
+    quotes: new Map(
+      (input.quotes ?? [])
+        .filter((q) => q.quoted && q.quoteTotal !== null)
+        .map((q) => [q.capitalLineId, { total: q.quoteTotal ?? 0, files: q.documents.filter((d) => d.quoteAmount !== null).map((d) => d.fileName) }]),
+    ),
   };
 
   const cover = workbook.addWorksheet(COVER_SHEET);

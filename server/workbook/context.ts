@@ -2,7 +2,7 @@
 import type ExcelJS from 'exceljs';
 import type { OptionResult, ScenarioResults } from '../../shared/engine/index.js';
 import type { Scenario } from '../../shared/schema/index.js';
-import { safeSheetName, type Formats } from './layout.js';
+import { safeSheetName, wholeWordSheetName, type Formats } from './layout.js';
 
 /** One option as the workbook lays it out: its engine result and the names of its sheets and cells. */
 export interface OptionLayout {
@@ -21,6 +21,8 @@ export interface WorkbookContext {
   horizon: number;
   options: OptionLayout[];
   current: OptionLayout;
+  /** Capital lines backed by quotes with an amount, by line id: the Assumptions sheet tags their cost "Quote". */
+  quotes?: ReadonlyMap<string, { total: number; files: string[] }>;
 }
 
 /** Named input cells on the Assumptions sheet that formulas use (workbook-level defined names). */
@@ -57,8 +59,8 @@ export function layoutOptions(results: ScenarioResults): OptionLayout[] {
   const used = new Set<string>();
   return results.options.map((result, index) => {
     const number = index + 1;
-    let sheet = safeSheetName(`CF${number} ${result.name}`);
-    while (used.has(sheet.toLowerCase())) sheet = safeSheetName(`CF${number}`);
+    let sheet = wholeWordSheetName(`${number}. ${result.name}`);
+    while (used.has(sheet.toLowerCase())) sheet = safeSheetName(`Option ${number}`);
     used.add(sheet.toLowerCase());
     return { number, result, cashFlowSheet: sheet };
   });

@@ -39,6 +39,19 @@ export function safeSheetName(name: string): string {
   return name.replace(/[[\]:*?/\\']/g, ' ').replace(/\s+/g, ' ').trim().slice(0, 31).trim();
 }
 
+/** Excel's 31-character limit on sheet names, met by whole words ("2. New barn, deep sand"), never cut mid-word. */
+export function wholeWordSheetName(name: string, max = 31): string {
+  const words = name.replace(/[[\]:*?/\\']/g, ' ').replace(/\s+/g, ' ').trim().split(' ');
+  let out = '';
+  for (const word of words) {
+    const next = out ? `${out} ${word}` : word;
+    if (next.length > max) break;
+    out = next;
+  }
+  // Only a first word longer than the limit is cut.
+  return (out || (words[0] ?? '').slice(0, max)).replace(/[\s,;:–—-]+$/, '');
+}
+
 /** A cached formula result: the engine's number, or '' where the engine has none (null). */
 export type CachedResult = number | string;
 

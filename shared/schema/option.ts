@@ -37,7 +37,7 @@ export const LINE_ID_MAX_LENGTH = 60;
 
 export const sourceSchema = z
   .object({
-    kind: choice('Source kind', ['reference', 'common-practice', 'assumption', 'user'], 'Where a default comes from'),
+    kind: choice('Source kind', ['reference', 'common-practice', 'assumption', 'user', 'quote'], "Where a figure comes from: 'user' = typed in by the farm, 'quote' = a supplier's quote on the line"),
     note: z.string({ error: 'Source note must be text' }).max(500, 'Source note must be at most 500 characters').describe('Which reference, or why the value was chosen'),
   })
   .describe('Provenance of one figure');

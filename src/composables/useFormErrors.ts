@@ -1,6 +1,7 @@
 import { ref } from 'vue';
 import type { z } from 'zod';
 import { ApiError } from '@/api/client';
+import { messageFor } from '@/api/messages';
 
 /**
  * Field messages for one form: from the shared zod schema before sending, and from the
@@ -29,12 +30,8 @@ export function useFormErrors() {
 
   function fromError(error: unknown): void {
     clear();
-    if (error instanceof ApiError) {
-      fields.value = { ...error.fields };
-      if (Object.keys(error.fields).length === 0) general.value = error.message;
-    } else {
-      general.value = 'Something went wrong. Please try again.';
-    }
+    if (error instanceof ApiError) fields.value = { ...error.fields };
+    if (Object.keys(fields.value).length === 0) general.value = messageFor(error);
   }
 
   return { fields, general, clear, validate, fromError };

@@ -1,6 +1,6 @@
 import { computed, onMounted, ref, type ComputedRef, type Ref } from 'vue';
 import { useRoute } from 'vue-router';
-import { ApiError } from '@/api/client';
+import { messageFor } from '@/api/messages';
 
 /**
  * What an e-mailed link (invitation, lender share) opens, loaded once the screen mounts from the
@@ -21,7 +21,7 @@ export function useLinkPreview<T>(
     try {
       preview.value = await load(token.value);
     } catch (error) {
-      loadError.value = error instanceof ApiError ? error.message : fallback;
+      loadError.value = messageFor(error, fallback);
     }
   });
 

@@ -3,9 +3,9 @@ import { defineStore } from 'pinia';
 import { computed, readonly, ref } from 'vue';
 import { baselineApi, type FarmBaseline } from '@/api/baseline';
 import { farmsApi, type FarmDetail } from '@/api/farms';
-import { ApiError } from '@/api/client';
+import { messageFor } from '@/api/messages';
 import { scenariosApi, type CreateScenarioBody, type ScenarioListItem } from '@/api/scenarios';
-import type { DisplaySettings } from '@/composables/useDisplay';
+import type { DisplaySettings } from '@/composables/useFormat';
 import type { Herd } from '@shared/schema';
 
 export const useFarmStore = defineStore('farm', () => {
@@ -47,7 +47,7 @@ export const useFarmStore = defineStore('farm', () => {
         loaded.value = true;
       })
       .catch((error: unknown) => {
-        loadError.value = error instanceof ApiError ? error.message : 'Could not load this farm';
+        loadError.value = messageFor(error, 'Could not load this farm');
       })
       .finally(() => {
         pending = null;

@@ -4,7 +4,7 @@
  */
 import { defineStore } from 'pinia';
 import { readonly, ref } from 'vue';
-import { ApiError } from '@/api/client';
+import { messageFor } from '@/api/messages';
 import type { MonteCarloResult } from '@shared/engine';
 import { preferencesApi, type PreferencesView, type SavedRiskResult } from '@/api/preferences';
 
@@ -33,7 +33,7 @@ export const usePreferencesStore = defineStore('preferences', () => {
         view.value = loaded;
       })
       .catch((e: unknown) => {
-        error.value = e instanceof ApiError ? e.message : 'Could not load the preferences';
+        error.value = messageFor(e, 'Could not load the preferences');
       })
       .finally(() => {
         pending = null;
@@ -49,7 +49,7 @@ export const usePreferencesStore = defineStore('preferences', () => {
       view.value = await action(ids.farmId, ids.scenarioId);
       return true;
     } catch (e) {
-      error.value = e instanceof ApiError ? e.message : 'That did not work. Try again.';
+      error.value = messageFor(e, 'That did not work. Try again.');
       return false;
     } finally {
       busy.value = false;
@@ -64,7 +64,7 @@ export const usePreferencesStore = defineStore('preferences', () => {
     try {
       savedRisk.value = await preferencesApi.riskResult(farmId, scenarioId);
     } catch (e) {
-      error.value = e instanceof ApiError ? e.message : 'Could not load the saved risk result';
+      error.value = messageFor(e, 'Could not load the saved risk result');
       savedRisk.value = null;
     }
   }
@@ -76,7 +76,7 @@ export const usePreferencesStore = defineStore('preferences', () => {
       riskKey.value = `${farmId}/${scenarioId}`;
       return true;
     } catch (e) {
-      error.value = e instanceof ApiError ? e.message : 'Could not keep the risk result';
+      error.value = messageFor(e, 'Could not keep the risk result');
       return false;
     }
   }

@@ -5,7 +5,7 @@
  */
 import { defineStore } from 'pinia';
 import { shallowRef } from 'vue';
-import type { OptionDetail } from '@shared/engine/index.js';
+import type { OptionDetail } from '@shared/engine';
 import { ApiError } from '@/api/client';
 import { scenariosApi } from '@/api/scenarios';
 

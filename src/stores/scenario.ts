@@ -9,6 +9,7 @@ import { scenarioSchema, type Option, type Scenario, type StartingPoint } from '
 import { evaluateScenario, type ScenarioResults } from '@shared/engine';
 import { createOption, STARTING_POINT_NAMES, withOptionId } from '@shared/starting-points';
 import { ApiError } from '@/api/client';
+import { messageFor } from '@/api/messages';
 import { scenariosApi, type ScenarioMeta, type VersionConflict } from '@/api/scenarios';
 import { documentsApi } from '@/api/documents';
 import type { CapitalLineQuotes } from '@shared/schema/documents';
@@ -106,7 +107,7 @@ export const useScenarioStore = defineStore('scenario', () => {
       adopt(document.scenario, document.version, document.meta);
       void loadQuotes(nextFarmId, nextScenarioId);
     } catch (error) {
-      loadError.value = error instanceof ApiError ? error.message : 'Could not load this scenario';
+      loadError.value = messageFor(error, 'Could not load this scenario');
     } finally {
       loading.value = false;
     }
@@ -203,10 +204,10 @@ export const useScenarioStore = defineStore('scenario', () => {
       } else if (error instanceof ApiError && error.status === 400 && Object.keys(error.fields).length > 0) {
         serverErrors.value = documentPaths(error.fields);
         saveState.value = 'invalid';
-        saveMessage.value = error.message;
+        saveMessage.value = messageFor(error, 'Some figures are not right.', working.value);
       } else {
         saveState.value = 'failed';
-        saveMessage.value = error instanceof ApiError ? error.message : 'Saving failed. Try again.';
+        saveMessage.value = messageFor(error, 'Saving failed. Try again.');
       }
       return false;
     }
@@ -232,7 +233,7 @@ export const useScenarioStore = defineStore('scenario', () => {
       return created.id;
     } catch (error) {
       saveState.value = 'failed';
-      saveMessage.value = error instanceof ApiError ? error.message : 'Could not keep your copy. Try again.';
+      saveMessage.value = messageFor(error, 'Could not keep your copy. Try again.');
       return null;
     }
   }

@@ -10,8 +10,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { evaluateScenario } from '../../shared/engine/evaluate.js';
 import { runMonteCarlo } from '../../shared/engine/risk/monte-carlo.js';
 import { scenarioSchema, type Scenario } from '../../shared/schema/index.js';
-import { formatNumber, formatPercent } from '../../src/composables/useMoney.js';
-import { signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser.js';
+import { formatNumber, formatPercent } from '../../src/composables/useFormat.js';
+import { SCREENSHOT_DIR, signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser.js';
 
 const SCENARIO_FILE = 'scenarios/cairnbrook-five-systems.json';
 const DESKTOP = { width: 1366, height: 900 };
@@ -117,8 +117,8 @@ describe('option cards and the existing farm on the finance form', () => {
     await row.getByLabel('Loan', { exact: true }).fill('');
     const payment = page.locator('#field-herd-existingLoans-0-paymentPerYear');
     await payment.fill('-5');
-    // The shared schema's messages, beside the fields they name.
-    await until(() => row.innerText()).toContain('Existing loan payment must be at least 0');
+    // The shared schema's rule, beside the field and named by the label shown there (src/api/messages.ts inlineMessage).
+    await until(() => row.innerText()).toContain('Payment per year must be at least 0');
     await until(() => row.innerText()).toContain('Existing loan description must not be empty');
     await row.getByLabel('Loan', { exact: true }).fill('Tractor loan');
     await payment.fill('30000');
@@ -143,7 +143,8 @@ describe('option cards and the existing farm on the finance form', () => {
 
     await page.reload();
     await page.getByRole('heading', { name: 'Existing loans that end within the horizon' }).waitFor();
-    await until(() => page.locator('#field-herd-existingLoans-0-paymentPerYear').inputValue()).toBe('30000');
+    // Inputs group thousands as the farm's locale writes them (en-IE "30,000", CLDR via Intl, from memory).
+    await until(() => page.locator('#field-herd-existingLoans-0-paymentPerYear').inputValue()).toBe('30,000');
     expect(await page.locator('#field-herd-existingLoans-0-lastYear').inputValue()).toBe('8');
     expect(await page.getByTestId('existing-loan').first().getByLabel('Loan', { exact: true }).inputValue()).toBe('Tractor loan');
 

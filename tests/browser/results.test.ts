@@ -9,7 +9,7 @@ import type { Page, Request } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { OptionResult, ScenarioResults } from '../../shared/engine/results.js';
 import { measureByKey, MEASURES } from '../../src/components/compare/ranking.js';
-import { parseFormatted } from '../../src/composables/useMoney.js';
+import { parseFormatted } from '../../src/composables/useFormat.js';
 import { signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser.js';
 
 const SCENARIO_FILE = 'scenarios/cairnbrook-five-systems.json';

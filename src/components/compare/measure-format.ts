@@ -1,6 +1,6 @@
 /** How each comparison measure is written in a table cell, and why a missing value is missing. Pure. */
-import type { OptionSummary } from '@shared/engine/index.js';
-import { formatMoney, formatNumber, formatPercent, type MoneyFormat } from '@/composables/useMoney';
+import type { OptionSummary } from '@shared/engine';
+import { formatMoney, formatNumber, formatPercent, type MoneyFormat } from '@/composables/useFormat';
 import { irrUndefinedReading } from '@/components/results/readings';
 import type { Measure } from './ranking';
 

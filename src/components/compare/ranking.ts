@@ -3,7 +3,7 @@
  * OptionSummary values as they are; a measure an option lacks (null) ranks after every option
  * that has it, ties keep the scenario's option order.
  */
-import type { OptionSummary } from '@shared/engine/index.js';
+import type { OptionSummary } from '@shared/engine';
 
 export type MeasureKind = 'money' | 'percent' | 'years' | 'ratio' | 'hours' | 'tonnes';
 

@@ -3,7 +3,7 @@ import type { OptionResult, ScenarioResults } from '../../../shared/engine/resul
 import type { Scenario } from '../../../shared/schema';
 import { cashLeftAfterLoans, familySummary } from '../../../src/components/print/family-summary';
 import { operationsPaybackReading, type ReadingFormat } from '../../../src/components/results/readings';
-import { formatMoney, formatNumber, formatPercent } from '../../../src/composables/useMoney';
+import { formatMoney, formatNumber, formatPercent } from '@/composables/useFormat';
 
 const en: ReadingFormat = {
   money: (v) => formatMoney(v, { currency: 'EUR', locale: 'en-IE' }, 0),

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { rowsToCsv, sumCents, type ProjectionRow } from '../../../src/components/results/projection-rows';
-import { formatMoney, parseFormatted } from '../../../src/composables/useMoney';
+import { formatMoney, parseFormatted } from '@/composables/useFormat';
 import { canonicalJson, sha256Hex } from '../../../server/services/risk-inputs-hash';
 
 describe('money in the farm locale', () => {

@@ -10,7 +10,7 @@ import {
   profitabilityIndexReading,
   type ReadingFormat,
 } from '../../../src/components/results/readings';
-import { formatMoney, formatNumber, formatPercent } from '../../../src/composables/useMoney';
+import { formatMoney, formatNumber, formatPercent } from '@/composables/useFormat';
 
 const en: ReadingFormat = {
   money: (v) => formatMoney(v, { currency: 'EUR', locale: 'en-IE' }),
