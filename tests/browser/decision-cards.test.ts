@@ -11,7 +11,7 @@ import { evaluateScenario } from '../../shared/engine/evaluate.js';
 import { runMonteCarlo } from '../../shared/engine/risk/monte-carlo.js';
 import { scenarioSchema, type Scenario } from '../../shared/schema/index.js';
 import { formatNumber, formatPercent } from '../../src/composables/useFormat.js';
-import { SCREENSHOT_DIR, signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser.js';
+import { signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser.js';
 
 const SCENARIO_FILE = 'scenarios/cairnbrook-five-systems.json';
 const DESKTOP = { width: 1366, height: 900 };
