@@ -50,7 +50,7 @@ export async function findFreePort(): Promise<number> {
 }
 
 /** True for a running process; a zombie (ended, not yet reaped by its parent) counts as gone. */
-function processAlive(pid: number): boolean {
+export function processAlive(pid: number): boolean {
   try {
     process.kill(pid, 0);
   } catch {

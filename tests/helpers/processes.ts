@@ -4,8 +4,8 @@
  * a line of its output, sign in over real HTTP, wait for a process to be gone.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { readFileSync } from 'node:fs';
 import { SESSION_COOKIE } from '../../server/auth/session.js';
+import { processAlive } from '../../server/db/local-server.js';
 
 export interface ChildServer {
   child: ChildProcess;
@@ -77,19 +77,8 @@ export async function signIn(baseUrl: string, email: string, password = 'byrecas
   return cookie.split(';')[0]!;
 }
 
-/** True for a running process; a zombie (ended, not yet reaped by whoever adopted it) counts as gone. */
-export function isRunning(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-  } catch {
-    return false;
-  }
-  try {
-    return !/^\d+ \(.*\) Z/.test(readFileSync(`/proc/${pid}/stat`, 'utf8'));
-  } catch {
-    return true;
-  }
-}
+/** True for a running process; a zombie counts as gone (the rule the start command's supervisor uses). */
+export const isRunning = processAlive;
 
 /** Waits until process `pid` has ended (a killed child of another process may linger as a zombie; its port is closed by then). */
 export async function processGone(pid: number, ms = 10_000): Promise<void> {
