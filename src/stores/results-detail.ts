@@ -6,7 +6,7 @@
 import { defineStore } from 'pinia';
 import { shallowRef } from 'vue';
 import type { OptionDetail } from '@shared/engine';
-import { ApiError } from '@/api/client';
+import { messageFor } from '@/api/messages';
 import { scenariosApi } from '@/api/scenarios';
 
 const keyOf = (farmId: number, scenarioId: number, version: number): string => `${farmId}/${scenarioId}/${version}`;
@@ -28,7 +28,7 @@ export const useResultsDetailStore = defineStore('results-detail', () => {
         byVersion.value = new Map(byVersion.value).set(key, new Map(detail.options.map((o) => [o.id, o])));
       })
       .catch((error: unknown) => {
-        errors.value = new Map(errors.value).set(key, error instanceof ApiError ? error.message : 'Could not load the yearly figures.');
+        errors.value = new Map(errors.value).set(key, messageFor(error, 'Could not load the yearly figures.'));
       })
       .finally(() => pending.delete(key));
     pending.set(key, started);
