@@ -60,14 +60,16 @@ function assertVersionVisible(access: Access, scenarioId: number, version: numbe
 }
 
 /**
- * Option count and the best option by the NPV of its change against the current option (currency;
- * the current option itself counts 0, staying as today), for the list: never by an option's own
- * whole-herd flows, which rank barns by the herd's margin rather than by what building changes.
+ * Option count and the best candidate by the NPV of its change against the current option
+ * (currency), for the list. The current option is the reference, not a candidate: when no
+ * candidate pays, the best is still the least bad change, with its negative figure. Never by an
+ * option's own whole-herd flows, which rank barns by the herd's margin rather than by what building changes.
  */
 export function summarise(results: { options: readonly { id: string; name: string; incremental: { npv: number } | null }[] }): ScenarioSummary {
   let best: ScenarioSummary['best'] = null;
   for (const option of results.options) {
-    const npv = option.incremental?.npv ?? 0;
+    if (option.incremental === null) continue;
+    const npv = option.incremental.npv;
     if (best === null || npv > best.npv) best = { optionId: option.id, name: option.name, npv };
   }
   return { optionCount: results.options.length, best };

@@ -20,3 +20,11 @@ export const riskInputKeys = [
   'lyingHours',
 ] as const;
 export type RiskInputKey = (typeof riskInputKeys)[number];
+
+/**
+ * The inputs the one-at-a-time sensitivity moves: every risk input but the lying-time gain. The
+ * milk extra lying time brings is the response × the hours gained, so moving either one alone
+ * moves the NPV by the same amount; the sensitivity shows that one driver once, as the response.
+ * Monte Carlo draws both, since two uncertain factors of one product widen its spread.
+ */
+export const sensitivityInputKeys = riskInputKeys.filter((key) => key !== 'lyingHours');

@@ -62,9 +62,10 @@ describe('scenario API', () => {
       ] as const) {
         const fixture = demoScenarioFile(file);
         const results = evaluateScenario(fixture);
-        // Best by the change against the current option (the current option counts 0: staying as today).
-        const change = (o: (typeof results.options)[number]) => o.incremental?.npv ?? 0;
-        const best = [...results.options].sort((a, b) => change(b) - change(a))[0]!;
+        // Best candidate by its change against the current option; the current option is the reference, never the pick.
+        const candidates = results.options.filter((o) => !o.current);
+        const change = (o: (typeof results.options)[number]) => o.incremental!.npv;
+        const best = [...candidates].sort((a, b) => change(b) - change(a))[0]!;
         expect(byName.get(fixture.name)).toMatchObject({
           status: 'draft',
           version: 1,

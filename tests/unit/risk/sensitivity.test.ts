@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { riskInputKeys } from '../../../shared/schema';
+import { sensitivityInputKeys } from '../../../shared/schema/risk-keys';
 import { evaluateNpvOnly } from '../../../shared/engine/evaluate';
 import { perturb } from '../../../shared/engine/risk/perturb';
 import { sensitivity, type InputSwing } from '../../../shared/engine/risk/sensitivity';
@@ -14,7 +14,7 @@ describe('sensitivity', () => {
 
   it('moves each key input by the default ±20 % (docs/model.md, Risk)', () => {
     for (const option of result.options) {
-      expect(option.npv.map((s) => s.key).sort()).toEqual([...riskInputKeys].sort());
+      expect(option.npv.map((s) => s.key).sort()).toEqual([...sensitivityInputKeys].sort());
       for (const swing of option.npv) {
         expect(swing.lowMultiplier).toBeCloseTo(0.8, 12);
         expect(swing.highMultiplier).toBeCloseTo(1.2, 12);
