@@ -69,3 +69,22 @@ describe('sensitivity', () => {
     );
   });
 });
+
+describe('the lying-time milk in the sensitivity', () => {
+  // The cap raised to a full day so no option's lying time reaches it.
+  const base = riskScenario();
+  const scenario = { ...base, herd: { ...base.herd, lyingResponseCapHours: 24 } };
+
+  it('moves the NPV the same whether the response or the hours gained are scaled, so it is listed once', () => {
+    // The lying effect is response × (hours − current hours) (docs/model.md, Milk): scaling either
+    // factor by m scales the product by m, while no option reaches the lying-time cap.
+    for (const m of [0.8, 1.2]) {
+      const byResponse = evaluateNpvOnly(perturb(scenario, 'yieldResponse', m));
+      const byGain = evaluateNpvOnly(perturb(scenario, 'lyingHours', m));
+      byResponse.forEach((option, i) => expect(byGain[i]?.incrementalNpv ?? 0).toBeCloseTo(option.incrementalNpv ?? 0, 6));
+    }
+    const listed = sensitivity(base).options.flatMap((option) => option.npv.map((s) => s.key));
+    expect(listed).toContain('yieldResponse');
+    expect(listed).not.toContain('lyingHours');
+  });
+});
