@@ -1,8 +1,8 @@
 /** Lender shares and reviews of the scenario or farm being looked at, and the lender's own shares. */
 import { defineStore } from 'pinia';
 import { computed, readonly, ref } from 'vue';
-import type { CreateNoteInput, ReviewStatusValue } from '@shared/schema/lender';
-import { lenderApi, type CreateShareBody, type LenderShare } from '@/api/lender';
+import type { CreateNoteInput, CreateShareInput, ReviewStatusValue } from '@shared/schema/lender';
+import { lenderApi, type LenderShare } from '@/api/lender';
 import { reviewsApi, type ShareReview } from '@/api/reviews';
 import { scenariosApi, type VersionListItem } from '@/api/scenarios';
 
@@ -42,7 +42,7 @@ export const useLenderStore = defineStore('lender', () => {
     return mine.value;
   }
 
-  async function share(farmId: number, scenarioId: number, body: CreateShareBody): Promise<LenderShare> {
+  async function share(farmId: number, scenarioId: number, body: CreateShareInput): Promise<LenderShare> {
     const created = await lenderApi.create(farmId, scenarioId, body);
     await reload();
     return created;
