@@ -3,16 +3,17 @@
  * ends, and `slow` (what shows the spinner) only once a request has taken longer than `delayMs`,
  * so quick loads never flash a spinner (docs/design.md: no flicker).
  */
-import { getCurrentScope, onScopeDispose, readonly, ref, type Ref } from 'vue';
+import { getCurrentScope, onScopeDispose, reactive, readonly, ref } from 'vue';
 
 /** How long a request may take before the spinner appears. */
 export const SPINNER_DELAY_MS = 200;
 
+/** Reactive, so a template reads `loading.slow` as it is. */
 export interface Loading {
   /** True while anything tracked is running (hide empty states, disable buttons). */
-  active: Readonly<Ref<boolean>>;
+  readonly active: boolean;
   /** True once it has run longer than the delay (show the spinner). */
-  slow: Readonly<Ref<boolean>>;
+  readonly slow: boolean;
   /** Runs `work` under the loading state and returns what it returns (or throws what it throws). */
   track<T>(work: Promise<T> | (() => Promise<T>)): Promise<T>;
 }
@@ -47,5 +48,5 @@ export function useLoading(delayMs = SPINNER_DELAY_MS): Loading {
   }
 
   if (getCurrentScope()) onScopeDispose(stopTimer);
-  return { active: readonly(active), slow: readonly(slow), track };
+  return reactive({ active: readonly(active), slow: readonly(slow), track });
 }
