@@ -57,6 +57,11 @@ export const useSharedScenarioStore = defineStore('shared-scenario', () => {
     return newest ? { farmId: newest.farmId, scenarioId: newest.share.scenarioId } : null;
   }
 
+  /** Where a document on a shared capital line downloads. */
+  function documentUrl(farmId: number, documentId: number): string {
+    return documentsApi.downloadUrl(farmId, documentId);
+  }
+
   function clear(): void {
     loading = null;
     doc.value = null;
@@ -65,5 +70,5 @@ export const useSharedScenarioStore = defineStore('shared-scenario', () => {
     error.value = null;
   }
 
-  return { doc, risk, quotes, error: readonly(error), load, clear, newestShare };
+  return { doc, risk, quotes, error: readonly(error), load, clear, newestShare, documentUrl };
 });
