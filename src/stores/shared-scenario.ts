@@ -6,6 +6,7 @@
 import { defineStore } from 'pinia';
 import { readonly, ref, shallowRef } from 'vue';
 import { ApiError } from '@/api/client';
+import { messageFor } from '@/api/messages';
 import { documentsApi, type CapitalLineQuotes } from '@/api/documents';
 import { lenderApi, type LenderShare } from '@/api/lender';
 import { preferencesApi, type SavedRiskResult } from '@/api/preferences';
@@ -39,7 +40,7 @@ export const useSharedScenarioStore = defineStore('shared-scenario', () => {
       quotes.value = new Map(lines.map((l) => [l.capitalLineId, l]));
     } catch (e) {
       if (loading !== key) return;
-      error.value = e instanceof ApiError && e.status === 404 ? 'This scenario is not shared with you, or the share has ended.' : 'Could not load the shared scenario.';
+      error.value = e instanceof ApiError && e.status === 404 ? 'This scenario is not shared with you, or the share has ended.' : messageFor(e, 'Could not load the shared scenario.');
     }
   }
 
