@@ -66,10 +66,34 @@ const OLD_CUBICLE_HOUSE_VALUE = 400000;
 /** Cows the new barn is built for: the herd grows from 190 to 230 when it moves in (the grazing platform holds no more). */
 const ADDED_COWS = 40;
 /**
- * Cairnbrook's own planning figure for a mixed ration fed in the barn all year against its grazing
- * herd's 20 kg (kg/cow/day beyond the lying-time effect): about 28–29 kg in the barn.
+ * Cairnbrook's planning figure for a mixed ration fed in the barn all year (kg/cow/day beyond the
+ * lying-time effect): with the lying-time gain the barn herd gives about 25 to 26 kg a day
+ * (9 200 to 9 600 kg a year) against the grazing herd's 16 kg, what housed Holstein-Friesian herds
+ * fed a mixed ration commonly reach in Ireland and Britain (from memory).
  */
-const BARN_FEEDING_YIELD_GAIN = 7.5;
+const BARN_FEEDING_YIELD_GAIN = 8;
+
+/**
+ * Where the demo's capital figures sit against what such work costs in Ireland (from memory; the
+ * demo's own costs are invented): a steel-portal farm building about 200 to 350 EUR per m²,
+ * concrete slurry storage about 40 to 80 EUR per m³, site works, drainage and services about
+ * 5 to 10 % of the build.
+ */
+const CAPITAL_NOTES: Record<string, string> = {
+  shell: 'invented; steel-portal farm buildings in Ireland cost about 200 to 350 EUR per m² (from memory)',
+  storage: 'invented; concrete slurry storage in Ireland costs about 40 to 80 EUR per m³ (from memory); volume from the sizing helper',
+  'site-works': 'invented; site works, drainage and services commonly run at about 5 to 10 % of the build (from memory)',
+};
+
+/** The capital lines' source tags with the regional notes above. */
+function withCapitalNotes(option: Option): Option['sources'] {
+  const sources = { ...option.sources };
+  for (const [line, note] of Object.entries(CAPITAL_NOTES)) {
+    const key = `capitalLines.${option.id}.${line}.unitCost`;
+    if (sources[key]) sources[key] = { kind: 'assumption', note };
+  }
+  return sources;
+}
 
 /** A freestall option sized for the enlarged herd, with its extra cows and the barn-feeding yield gain. */
 function barnOption(startingPoint: StartingPoint, herd: Herd, settings: { id: string; name?: string }): Option {
@@ -79,8 +103,8 @@ function barnOption(startingPoint: StartingPoint, herd: Herd, settings: { id: st
     systemYieldAdjustment: BARN_FEEDING_YIELD_GAIN,
     herdChange: { ...option.herdChange, addedCows: ADDED_COWS },
     sources: {
-      ...option.sources,
-      systemYieldAdjustment: { kind: 'assumption', note: "the farm's planning figure for a mixed ration fed in the barn all year" },
+      ...withCapitalNotes(option),
+      systemYieldAdjustment: { kind: 'assumption', note: "the farm's planning figure for a mixed ration fed in the barn all year: about 25 to 26 kg a day with the lying-time gain, as housed Holstein-Friesian herds on a mixed ration commonly give (from memory)" },
       'herdChange.addedCows': { kind: 'user', note: `the barn is built for ${herd.cows + ADDED_COWS} cows; the herd grows by ${ADDED_COWS} heifers of its own rearing` },
     },
   };
