@@ -75,13 +75,13 @@ const BARN_FEEDING_YIELD_GAIN = 8;
 
 /**
  * Where the demo's capital figures sit against what such work costs in Ireland (from memory; the
- * demo's own costs are invented): a steel-portal farm building about 200 to 350 EUR per m²,
- * concrete slurry storage about 40 to 80 EUR per m³, site works, drainage and services about
+ * demo's own costs are invented): a steel-portal farm building about €200 to €350 per m²,
+ * concrete slurry storage about €40 to €80 per m³, site works, drainage and services about
  * 5 to 10 % of the build.
  */
 const CAPITAL_NOTES: Record<string, string> = {
-  shell: 'invented; steel-portal farm buildings in Ireland cost about 200 to 350 EUR per m² (from memory)',
-  storage: 'invented; concrete slurry storage in Ireland costs about 40 to 80 EUR per m³ (from memory); volume from the sizing helper',
+  shell: 'invented; steel-portal farm buildings in Ireland cost about €200 to €350 per m² (from memory)',
+  storage: 'invented; concrete slurry storage in Ireland costs about €40 to €80 per m³ (from memory); volume from the sizing helper',
   'site-works': 'invented; site works, drainage and services commonly run at about 5 to 10 % of the build (from memory)',
 };
 
