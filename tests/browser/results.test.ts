@@ -216,6 +216,10 @@ describe('results and comparison in Chromium', () => {
     await page.getByTestId('comparison-table').waitFor();
     await page.locator('.apexcharts-canvas').first().waitFor();
     await expect.poll(() => page.locator('main').innerText()).toContain('never enter a manure pit');
+    // The demo's barns raise the option cautions too: sand in the slurry and moving the grazing herd indoors.
+    const printed = await page.locator('.cautions').innerText();
+    expect(printed).toContain('never enter a pit or tank');
+    expect(printed).toContain('vet and hoof trimmer');
     await expectNoBrokenNumbers(page);
     await harness.screenshot(page, 'print-screen-desktop');
 

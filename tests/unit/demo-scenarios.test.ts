@@ -1,5 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { missingScope } from '../../shared/capital-scope';
+import { checkStallDimensions, checkWater } from '../../shared/engine';
 import { evaluateScenario } from '../../shared/engine/evaluate';
 import { optionSchema, scenarioSchema, type Option, type Scenario } from '../../shared/schema';
 import { assumptionShare, flattenInputs } from '../../server/workbook/assumptions';
@@ -33,6 +35,21 @@ function sourceOf(option: Option, path: string): Option['sources'][string] | und
 describe('the invented demo farm a practitioner would believe', () => {
   it('evaluates both demo scenarios without warnings', () => {
     for (const scenario of [fiveSystems, mattressOrSand]) expect(evaluateScenario(scenario).warnings).toEqual([]);
+  });
+
+  it('raises no capital-scope, stall or water note on any demo option', () => {
+    for (const scenario of [fiveSystems, mattressOrSand]) {
+      const evaluated = evaluateScenario(scenario);
+      for (const option of scenario.options) {
+        // What a first barn budget forgets (common practice, no source).
+        expect(missingScope(option), option.id).toEqual([]);
+        if (option.kind !== 'freestall') continue;
+        // Dairy cattle extension stall guidance and Penn State watering guidance (docs/references.md, read).
+        expect(checkStallDimensions(option.stallDimensions, scenario.herd.breedSize).status, option.id).toBe('within');
+        const cows = Math.max(...(evaluated.options.find((o) => o.id === option.id)?.years.map((y) => y.cows) ?? [0]));
+        expect(checkWater(cows, option.water.troughs, option.water.troughPerimeterM, option.water.fillRateLitresPerMinute).reasons, option.id).toEqual([]);
+      }
+    }
   });
 
   it('has at least one barn that pays against grazing in the base case and one that does not', () => {
