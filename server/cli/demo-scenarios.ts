@@ -95,6 +95,12 @@ function withCapitalNotes(option: Option): Option['sources'] {
   return sources;
 }
 
+/** Milk from a barn's extra lying time over the grazing herd's (kg/cow/day): response × hours × the share of days in milk. */
+function barnLyingGainOverGrazing(herd: Herd, startingPoint: StartingPoint): number {
+  const hours = createOption(startingPoint, herd, { id: 'barn' }).lyingHoursPerDay - createOption('grazing', herd, { id: 'grazing' }).lyingHoursPerDay;
+  return herd.lyingResponseKgPerHour * hours * (1 - herd.dryDaysPerCowYear / 365);
+}
+
 /** A freestall option sized for the enlarged herd, with its extra cows and the barn-feeding yield gain. */
 function barnOption(startingPoint: StartingPoint, herd: Herd, settings: { id: string; name?: string }): Option {
   const option = createOption(startingPoint, { ...herd, cows: herd.cows + ADDED_COWS }, settings);
@@ -137,15 +143,32 @@ function fiveSystems(farm: DemoFarm['farm'], herd: Herd): Scenario {
   );
 }
 
-/** A new barn for 230 cows either way: top-dressed mattresses (current) or deep sand. Both carry the barn's capital. */
-function mattressOrSand(farm: DemoFarm['farm'], herd: Herd): Scenario {
-  const mattress = { ...barnOption('mattress-freestall', herd, { id: 'mattress', name: 'New barn, mattresses' }), current: true };
+/**
+ * A new barn for 230 cows either way: top-dressed mattresses (current) or deep sand. Both carry the
+ * barn's capital. The farm's cash today was earned on grass, so the herd margin inside it is the
+ * grazing herd's: the existing farm's cash then moves to the barn's, as in the five systems.
+ */
+function mattressOrSand(farm: DemoFarm['farm'], herd: Herd, grazingHerdMargin: number | null): Scenario {
+  // The herd's 16 kg is the grazing herd's: lying times here count from the mattress barn, so both
+  // options carry the mattress barn's lying gain over grazing in their system adjustment, and each
+  // barn gives the same milk as in the five systems (from year 2, once the gain has ramped up).
+  const mattressLyingGain = barnLyingGainOverGrazing(herd, 'mattress-freestall');
+  const withGain = (option: Option): Option => ({
+    ...option,
+    systemYieldAdjustment: Math.round((BARN_FEEDING_YIELD_GAIN + mattressLyingGain) * 100) / 100,
+    sources: {
+      ...option.sources,
+      systemYieldAdjustment: { kind: 'assumption', note: `the farm's planning figure for a mixed ration fed in the barn all year (${BARN_FEEDING_YIELD_GAIN} kg) plus the mattress barn's lying-time gain over the grazing herd the baseline yield was measured on` },
+    },
+  });
+  const mattress = withGain({ ...barnOption('mattress-freestall', herd, { id: 'mattress', name: 'New barn, mattresses' }), current: true });
+  const sand = withGain(barnOption('sand-freestall', herd, { id: 'sand', name: 'New barn, deep sand' }));
   return scenario(
     farm,
-    herd,
+    { ...herd, existingCashHerdMarginPerYear: grazingHerdMargin },
     'New barn: mattress or sand',
     'The new freestall barn is decided; which bed goes in it? Top-dressed mattresses with an automatic scraper against deep sand beds scraped by tractor.',
-    [mattress, barnOption('sand-freestall', herd, { id: 'sand', name: 'New barn, deep sand' })],
+    [mattress, sand],
   );
 }
 
@@ -156,5 +179,6 @@ function write(fileName: string, document: Scenario): void {
 
 const demo = JSON.parse(readFileSync(`${demoDir}demo-farm.json`, 'utf8')) as DemoFarm;
 const herd = herdSchema.parse(demo.farm.baseline);
-write('cairnbrook-five-systems.json', fiveSystems(demo.farm, herd));
-write('cairnbrook-mattress-or-sand.json', mattressOrSand(demo.farm, herd));
+const stayOrBuild = fiveSystems(demo.farm, herd);
+write('cairnbrook-five-systems.json', stayOrBuild);
+write('cairnbrook-mattress-or-sand.json', mattressOrSand(demo.farm, herd, stayOrBuild.herd.existingCashHerdMarginPerYear));

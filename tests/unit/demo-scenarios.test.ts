@@ -58,6 +58,15 @@ describe('the invented demo farm a practitioner would believe', () => {
     expect(npvs.some((npv) => npv < 0)).toBe(true);
   });
 
+  it('tells the same story in both scenarios: sand against mattresses is the same change', () => {
+    const five = (bed: string) => barns.find((o) => fiveSystems.options.find((f) => f.id === o.id)?.bed === bed)?.incremental?.npv ?? NaN;
+    const sandAgainstMattress = evaluateScenario(mattressOrSand).options.find((o) => !o.current)?.incremental?.npv ?? NaN;
+    // The lying-time gain ramps in year 1 in the five systems only: a few hundred EUR apart at most.
+    expect(Math.abs(sandAgainstMattress - (five('deep-sand') - five('mattress-topdressed')))).toBeLessThan(1000);
+    // The farm's cash today was earned on grass in both files.
+    expect(mattressOrSand.herd.existingCashHerdMarginPerYear).toBe(fiveSystems.herd.existingCashHerdMarginPerYear);
+  });
+
   it('enters what every cow carries besides feed, so the added cows do not carry the barns for free', () => {
     const { herd } = fiveSystems;
     // Costed pasture herds: about 350–550 EUR a cow-year of vet, breeding, parlour and recording
