@@ -37,6 +37,8 @@ export interface ScenarioCaution {
   key: OptionCautionKey;
   text: string;
   optionNames: string[];
+  /** True when every option but the current one raises it: the print then says so instead of listing them. */
+  everyNewOption: boolean;
 }
 
 /** The cautions the scenario's options raise, each once, in the order above: for the print view. */
@@ -46,8 +48,9 @@ export function scenarioCautions(scenario: { herd: { cows: number }; options: Op
   for (const option of scenario.options) {
     for (const key of optionCautions(option, farm)) raisedBy.set(key, [...(raisedBy.get(key) ?? []), option.name]);
   }
+  const newOptions = scenario.options.filter((o) => !o.current).length;
   return (Object.keys(OPTION_CAUTIONS) as OptionCautionKey[]).flatMap((key) => {
     const optionNames = raisedBy.get(key);
-    return optionNames ? [{ key, text: OPTION_CAUTIONS[key], optionNames }] : [];
+    return optionNames ? [{ key, text: OPTION_CAUTIONS[key], optionNames, everyNewOption: newOptions > 1 && optionNames.length === newOptions }] : [];
   });
 }

@@ -51,6 +51,8 @@ describe('cautions where the work can hurt (README, "Cautions")', () => {
     expect(listed.map((c) => c.key)).toEqual(['sandInSlurry', 'automaticScraper', 'movingIndoors', 'permits', 'biosecurity']);
     const barnNames = demo.options.filter((o) => !o.current).map((o) => o.name);
     expect(listed.find((c) => c.key === 'movingIndoors')?.optionNames).toEqual(barnNames);
+    // Raised by every barn, the print says so instead of naming all four; sand by one barn only.
+    expect(listed.filter((c) => c.everyNewOption).map((c) => c.key)).toEqual(['movingIndoors', 'permits', 'biosecurity']);
     expect(listed.find((c) => c.key === 'sandInSlurry')?.optionNames).toEqual([demo.options.find((o) => o.bed === 'deep-sand')?.name]);
     expect(listed.find((c) => c.key === 'automaticScraper')?.optionNames).toEqual([demo.options.find((o) => o.manureRemoval === 'automatic-scraper')?.name]);
     // The grazing herd as it is raises none of them.
