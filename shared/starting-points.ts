@@ -267,9 +267,10 @@ function capitalLinesFor(startingPoint: StartingPoint, defaults: Defaults, stall
   const add = (line: CapitalLine, note: string): void => {
     lines.push(line);
     sources[`capitalLines.${line.id}.${line.kind === 'item' ? 'unitCost' : 'rate'}`] = assumed(note);
-    // The line's other figures (quantity, life, tax class) are planning figures too.
-    const quantity = line.kind === 'item' && line.quantity === null ? 'quantity sized by Byrecast, ' : '';
-    sources[`capitalLines.${line.id}`] = assumed(`${quantity}economic life ${line.lifeYears} years, taxed over the same life; invented planning figures`);
+    // The line's other figures (quantity, life, tax class) are planning figures too; the note names
+    // no number, so it stays true when the farm edits one.
+    const quantity = line.kind === 'item' && line.quantity === null ? 'quantity sized by Byrecast; ' : '';
+    sources[`capitalLines.${line.id}`] = assumed(`${quantity}economic life and tax life are invented planning figures`);
   };
   if (startingPoint === 'grazing') {
     add(item('cubicle-refit', 'Cubicle house refit for winter housing', 'building-shell', 'per-stall', null, 900, 25, false), 'invented planning cost per stall');

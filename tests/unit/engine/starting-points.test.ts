@@ -106,7 +106,7 @@ describe('starting points', () => {
     expect(copy.sources['capitalLines.sand-2.shell.unitCost']).toEqual(sand.sources['capitalLines.sand.shell.unitCost']);
     expect(copy.sources['capitalLines.sand.shell.unitCost']).toBeUndefined();
     // The line's own tag (its quantity, life and tax class) follows the line as well.
-    expect(sand.sources['capitalLines.sand.shell']?.note).toMatch(/economic life 30 years/);
+    expect(sand.sources['capitalLines.sand.shell']?.note).toMatch(/economic life and tax life/);
     expect(copy.sources['capitalLines.sand-2.shell']).toEqual(sand.sources['capitalLines.sand.shell']);
     expect(copy.sources['capitalLines.sand.shell']).toBeUndefined();
     // The ids stay within the schema's 60 characters, the option part shortened.
