@@ -101,6 +101,12 @@ describe('the lender sees what the share promises', () => {
       expect(amount(await row.locator('[data-figure="good"]').innerText())).toBe(Math.round(option.incrementalNpv!.p90!));
       expect(amount(await row.locator('[data-figure="loss"]').innerText())).toBe(Math.round(option.incrementalNpv!.probabilityNegative! * 100));
     }
+    // The comparison carries the same chance beside the change's other figures, to a tenth of a percent.
+    const chanceRow = page.locator('tr[data-risk-row="chance-of-loss"]');
+    for (const option of kept.options.filter((o) => !o.current && o.incrementalNpv)) {
+      const cell = chanceRow.locator(`td[data-option-id="${option.optionId}"]`);
+      expect(amount(await cell.innerText())).toBeCloseTo(option.incrementalNpv!.probabilityNegative! * 100, 1);
+    }
     expect(await risk.getByText('1-in-10 bad').count()).toBeGreaterThan(0);
     // The statistics' names sit under the closed "advanced" fold.
     expect(await risk.getByText('P10 of the change').isVisible()).toBe(false);
