@@ -2,6 +2,9 @@
  * The engine's one present value and its one sign-change count: every NPV, discounted series
  * and IRR test goes through these, so the figures on every path share their arithmetic.
  */
+import { powerTable } from './powers';
+
+const discountDivisor = powerTable();
 
 /**
  * Present value Σ flows[t] / (1 + rate)^t (currency), flows[0] at t = 0 undiscounted (the numpy /
@@ -10,7 +13,7 @@
  */
 export function presentValue(rate: number, flows: readonly number[]): number {
   let total = 0;
-  for (let t = 0; t < flows.length; t++) total += (flows[t] ?? 0) / (1 + rate) ** t;
+  for (let t = 0; t < flows.length; t++) total += (flows[t] ?? 0) / discountDivisor(rate, t);
   return total;
 }
 

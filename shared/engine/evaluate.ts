@@ -326,7 +326,7 @@ export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOpti
   return runs.map(({ option, plan, projection }, index) => {
     const isCurrent = option === current;
     const flows = projection.cashFlows;
-    const optionNpv = presentValue(discountRate, flows);
+    const optionNpv = flows === base.projection.cashFlows ? baseNpv : presentValue(discountRate, flows);
     const sides: CoverageSides = { ownCash: projection.cashForDebtService, ownPlan: plan, currentCash: base.projection.cashForDebtService, currentPlan: base.plan, isCurrent };
     const { minCoverage, minProjectCoverage, yearsBelowThreshold } = coverageSummary(farm, sides, plan.horizon, scenario.finance.coverageThreshold);
     let incrementalIrr: number | null = null;
