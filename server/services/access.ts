@@ -10,11 +10,12 @@ import type { Executor } from '../db/repositories/farms.js';
 import { notFound } from '../errors.js';
 import { lenderGrants } from './lender-access.js';
 
-/** Who is asking, on which farm. */
+/** Who is asking (id and name, for audit entries and mails), on which farm, in which role. */
 export interface Actor {
   farmId: number;
   role: FarmRole;
   userId: number;
+  name: string;
 }
 
 /** What one caller may see: everything (grants null), or a lender's shared scenarios → versions, highest first. */
