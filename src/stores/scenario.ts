@@ -253,9 +253,10 @@ export const useScenarioStore = defineStore('scenario', () => {
       working.value = adoptResult(result);
       optionError.value = null;
       return result;
-    } catch (error) {
-      if (!(error instanceof optionOperations.OptionOperationError)) throw error;
-      optionError.value = error.message;
+    } catch (refusal) {
+      // A refusal is worded by the shared module itself, not by the server: no ApiError reaches here.
+      if (!(refusal instanceof optionOperations.OptionOperationError)) throw refusal;
+      optionError.value = refusal.message;
       return null;
     }
   }
