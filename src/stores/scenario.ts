@@ -62,6 +62,8 @@ export const useScenarioStore = defineStore('scenario', () => {
   const saveMessage = ref<string | null>(null);
   const conflict = ref<VersionConflict | null>(null);
   const selectedOptionId = ref<string | null>(null);
+  /** Why the last option operation was refused (e.g. deleting the current option), until the next one or a load. */
+  const optionError = ref<string | null>(null);
 
   const dirty = computed(() => working.value !== null && JSON.stringify(working.value) !== savedJson.value);
   const options = computed<Option[]>(() => working.value?.options ?? []);
@@ -77,6 +79,7 @@ export const useScenarioStore = defineStore('scenario', () => {
     meta.value = nextMeta ?? {};
     serverErrors.value = {};
     conflict.value = null;
+    optionError.value = null;
     if (!scenario.options.some((option) => option.id === selectedOptionId.value)) {
       selectedOptionId.value = scenario.options.find((option) => !option.current)?.id ?? scenario.options[0]?.id ?? null;
     }
@@ -236,9 +239,6 @@ export const useScenarioStore = defineStore('scenario', () => {
     working.value = JSON.parse(savedJson.value) as Scenario;
     serverErrors.value = {};
   }
-
-  /** Why the last option operation was refused (e.g. deleting the current option), until the next one. */
-  const optionError = ref<string | null>(null);
 
   /**
    * Applies an option operation of `shared/option-operations` to the working copy (its raw
