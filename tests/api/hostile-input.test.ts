@@ -138,11 +138,13 @@ describe('hostile input', () => {
   });
 
   it('keeps SQL metacharacters in path parameters from reaching the database as SQL', async () => {
-    // docs/product.md (Accounts): never executed; a farm id that is not a number is a farm not found,
-    // any other id that is not a positive whole number is bad input naming the parameter (Bad input).
+    // docs/product.md (Accounts): never executed; an id that is not a positive whole number, the farm
+    // id too, is bad input naming the parameter (Bad input; DEVELOPERS.md, Authorization).
     for (const value of ["1' OR '1'='1", '1;DROP TABLE farms', '-1', '1e3', '99999999999999999999']) {
       const res = await request(t.app).get(`/api/farms/${encodeURIComponent(value)}/members`).set('cookie', owner);
-      expect(res.status, value).toBe(404);
+      // '1e3' reads as the number 1000: a farm the caller is not on.
+      expect(res.status, value).toBe(value === '1e3' ? 404 : 400);
+      if (value !== '1e3') expect(Object.keys(res.body.error.fields), value).toEqual(['farmId']);
       const member = await request(t.app).delete(`/api/farms/${farmId}/members/${encodeURIComponent(value)}`).set('cookie', owner);
       // '1e3' reads as the number 1000: a member that does not exist.
       expect(member.status, value).toBe(value === '1e3' ? 404 : 400);
