@@ -17,22 +17,25 @@ export function preferenceRoutes({ db }: AppDeps): Router {
     res.json(await preferences.readPreferences(db, actorOf(req), scenarioIdOf(req)));
   });
   route('put', `${base}/preferences/me`, 'preference:write', async (req, res) => {
+    const scenarioId = scenarioIdOf(req);
     const input = parseOrThrow(preferenceBodySchema, req.body);
-    res.json(await preferences.recordPreference(db, actorOf(req), scenarioIdOf(req), input));
+    res.json(await preferences.recordPreference(db, actorOf(req), scenarioId, input));
   });
   route('delete', `${base}/preferences/me`, 'preference:write', async (req, res) => {
     res.json(await preferences.withdrawPreference(db, actorOf(req), scenarioIdOf(req)));
   });
   route('post', `${base}/decision`, 'scenario:decide', async (req, res) => {
+    const scenarioId = scenarioIdOf(req);
     const input = parseOrThrow(decisionBodySchema, req.body);
-    res.status(201).json(await preferences.decide(db, actorOf(req), scenarioIdOf(req), input));
+    res.status(201).json(await preferences.decide(db, actorOf(req), scenarioId, input));
   });
   route('get', `${base}/risk-result`, 'scenario:read', async (req, res) => {
     res.json(await preferences.readRiskResult(db, actorOf(req), scenarioIdOf(req)));
   });
   route('put', `${base}/risk-result`, 'scenario:write', async (req, res) => {
+    const scenarioId = scenarioIdOf(req);
     const input = parseOrThrow(riskResultBodySchema, req.body);
-    res.json(await preferences.keepRiskResult(db, actorOf(req), scenarioIdOf(req), input));
+    res.json(await preferences.keepRiskResult(db, actorOf(req), scenarioId, input));
   });
   return router;
 }

@@ -17,7 +17,7 @@ import { reviewNoteMail, reviewStatusMail } from '../mail/lender-templates.js';
 import { recordAudit } from './audit.js';
 import { liveSharesOf, shareState } from './lender-access.js';
 import { shareSubject, toShareView, type LenderContext, type ShareView } from './lender-shares.js';
-import { accessOf, assertScenarioVisible, type Actor } from './access.js';
+import { accessToScenario, type Actor } from './access.js';
 
 /** Arranges notes (oldest first) into threads: top-level notes, each with its replies in order. */
 export function threadNotes(notes: readonly NoteRecord[], optionNames: ReadonlyMap<string, string>): ReviewThread[] {
@@ -49,8 +49,8 @@ async function optionNamesOf(db: Database, share: Pick<ShareRecord, 'scenarioId'
  */
 export async function scenarioReviews(db: Database, actor: Actor, scenarioId: number, now = new Date()): Promise<ShareReview[]> {
   let shares: ShareRecord[];
+  await accessToScenario(db, actor, scenarioId, now);
   if (actor.role === 'lender') {
-    assertScenarioVisible(await accessOf(db, actor, now), scenarioId);
     shares = (await liveSharesOf(db, actor.farmId, actor.userId, now)).filter((s) => s.scenarioId === scenarioId);
   } else {
     shares = await listShares(db, actor.farmId, scenarioId);
