@@ -31,3 +31,26 @@ export function optionCautions(option: Option, farm: { currentKind: Option['kind
   if (addsCows) keys.push('biosecurity');
   return keys;
 }
+
+/** One caution a scenario raises, with the names of the options that raise it. */
+export interface ScenarioCaution {
+  key: OptionCautionKey;
+  text: string;
+  optionNames: string[];
+  /** True when every option but the current one raises it: the print then says so instead of listing them. */
+  everyNewOption: boolean;
+}
+
+/** The cautions the scenario's options raise, each once, in the order above: for the print view. */
+export function scenarioCautions(scenario: { herd: { cows: number }; options: Option[] }): ScenarioCaution[] {
+  const farm = { currentKind: scenario.options.find((o) => o.current)?.kind ?? null, herdCows: scenario.herd.cows };
+  const raisedBy = new Map<OptionCautionKey, string[]>();
+  for (const option of scenario.options) {
+    for (const key of optionCautions(option, farm)) raisedBy.set(key, [...(raisedBy.get(key) ?? []), option.name]);
+  }
+  const newOptions = scenario.options.filter((o) => !o.current).length;
+  return (Object.keys(OPTION_CAUTIONS) as OptionCautionKey[]).flatMap((key) => {
+    const optionNames = raisedBy.get(key);
+    return optionNames ? [{ key, text: OPTION_CAUTIONS[key], optionNames, everyNewOption: newOptions > 1 && optionNames.length === newOptions }] : [];
+  });
+}

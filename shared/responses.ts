@@ -7,6 +7,7 @@ import type { OptionDetail, ScenarioResultsSummary, MonteCarloResult } from './e
 import type { Herd, Scenario } from './schema';
 import type { FarmRole } from './schema/accounts';
 import type { ReviewStatusValue } from './schema/lender';
+import type { MilkRecordImport } from './schema/milk-records';
 import type { FieldChange } from './scenario-diff';
 import type { UnitSystem } from './units';
 
@@ -290,4 +291,66 @@ export interface PendingInvitation {
   role: FarmRole;
   expiresAt: string;
   createdAt: string;
+}
+
+/** One row of GET F/members. */
+export interface FarmMember {
+  userId: number;
+  name: string;
+  email: string;
+  role: FarmRole;
+  since: string;
+}
+
+/** PATCH F/members/:userId. */
+export interface MemberRoleChange {
+  userId: number;
+  role: FarmRole;
+}
+
+/** The answer of accepting an invitation: the session it signed in, and the farm joined. */
+export interface AcceptedInvitation extends Session {
+  farmId: number;
+}
+
+/** The answer of accepting a lender share: the session, and where the shared scenario is. */
+export interface AcceptedShare extends Session {
+  farmId: number;
+  scenarioId: number;
+  shareId: number;
+}
+
+/** One row of GET /admin/users. */
+export interface AccountListing {
+  id: number;
+  email: string;
+  name: string;
+  isAdmin: boolean;
+  disabled: boolean;
+  createdAt: string;
+  farmCount: number;
+}
+
+/** PATCH /admin/users/:userId: the account as it is now. */
+export type AccountUpdate = Omit<AccountListing, 'createdAt' | 'farmCount'>;
+
+/** GET F/milk-records: the herd fields an import sets, as the baseline holds them now, and past imports. */
+export interface MilkRecordHistory {
+  baseline: { cows: number | null; yieldKgPerCowDay: number | null };
+  imports: MilkRecordImport[];
+}
+
+/** One e-mail of GET /dev/outbox (captured instead of sent when no SMTP server is set). */
+export interface CapturedMail {
+  id: number;
+  from: string;
+  to: string;
+  subject: string;
+  text: string;
+  html?: string;
+  sentAt: string;
+  /** The http(s) links in the text, so the outbox screen can make them clickable. */
+  links: string[];
+  /** Size in bytes of the built message. */
+  size: number;
 }

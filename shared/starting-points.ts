@@ -70,6 +70,10 @@ const COMMON_SOURCES: Record<string, Source> = {
   maintenanceRate: assumed('1 % of capital a year'),
   insuranceRate: assumed('0.3 % of capital a year for buildings and equipment insurance, invented'),
   existingHousingValue: assumed('no existing housing carried'),
+  milkQualityPricePerKg: assumed("no somatic-cell premium or penalty; enter the milk buyer's scale"),
+  'herdChange.addedCows': assumed('no cows added'),
+  'herdChange.cowsByYear': assumed('no herd entered by year: the same herd every year, with any added cows'),
+  'herdChange.addedCowCost': fromHerd("empty: the herd's replacement heifer cost"),
 };
 
 /** A bare-mattress freestall with rigid steel dividers; the flexible-divider one differs only in injuries. */
@@ -263,6 +267,10 @@ function capitalLinesFor(startingPoint: StartingPoint, defaults: Defaults, stall
   const add = (line: CapitalLine, note: string): void => {
     lines.push(line);
     sources[`capitalLines.${line.id}.${line.kind === 'item' ? 'unitCost' : 'rate'}`] = assumed(note);
+    // The line's other figures (quantity, life, tax class) are planning figures too; the note names
+    // no number, so it stays true when the farm edits one.
+    const quantity = line.kind === 'item' && line.quantity === null ? 'quantity sized by Byrecast; ' : '';
+    sources[`capitalLines.${line.id}`] = assumed(`${quantity}economic life and tax life are invented planning figures`);
   };
   if (startingPoint === 'grazing') {
     add(item('cubicle-refit', 'Cubicle house refit for winter housing', 'building-shell', 'per-stall', null, 900, 25, false), 'invented planning cost per stall');
@@ -341,9 +349,10 @@ export function withOptionId(option: Option, optionId: string): Option {
   const capitalIds = new Map(option.capitalLines.map((line) => [line.id, rename(line.id)]));
   const sources: Option['sources'] = {};
   for (const [key, source] of Object.entries(option.sources)) {
-    const match = /^capitalLines\.(.+)\.(unitCost|rate)$/.exec(key);
+    // A line's own tag ("capitalLines.<id>") or its cost's ("capitalLines.<id>.unitCost" or ".rate").
+    const match = /^capitalLines\.(.+?)(\.unitCost|\.rate)?$/.exec(key);
     const renamed = match?.[1] === undefined ? undefined : capitalIds.get(match[1]);
-    sources[renamed === undefined ? key : `capitalLines.${renamed}.${match?.[2] ?? ''}`] = source;
+    sources[renamed === undefined ? key : `capitalLines.${renamed}${match?.[2] ?? ''}`] = source;
   }
   return {
     ...option,

@@ -6,7 +6,7 @@
 import { Router, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
 import type { Database } from '../db/client.js';
 import type { FarmRole } from '../db/schema/index.js';
-import { findMembership, findUserById, type User } from '../db/repositories/users.js';
+import { findMembership, findUserById, findUserWithMembership, type User } from '../db/repositories/users.js';
 import { forbidden, notFound, unauthorized } from '../errors.js';
 import { idParam } from '../http/params.js';
 import { roleAllows, type Permission } from './permissions.js';
@@ -16,15 +16,31 @@ declare module 'express-serve-static-core' {
   interface Request {
     user?: User;
     farmAccess?: { farmId: number; role: FarmRole };
+    /** The caller's role on the farm the path names, read with the session (null: not a member). */
+    sessionMembership?: { farmId: number; role: FarmRole | null };
   }
 }
+
+/** The farm id a farm route's path starts with, else null. */
+const FARM_PATH = /^\/api\/farms\/(\d{1,9})(?:\/|$)/;
 
 export function loadSession(db: Database, secret: string): RequestHandler {
   return async (req, res, next) => {
     const claims = readSession(req, secret);
     if (!claims) return next();
-    const user = await findUserById(db, Number(claims.sub));
+    const userId = Number(claims.sub);
+    // On a farm route the membership comes in the same query as the user: one round trip fewer.
+    const farmId = Number(FARM_PATH.exec(req.path)?.[1] ?? Number.NaN);
+    let user: User | null;
+    if (farmId > 0) {
+      const found = await findUserWithMembership(db, userId, farmId);
+      user = found?.user ?? null;
+      if (found) req.sessionMembership = { farmId, role: found.role };
+    } else {
+      user = await findUserById(db, userId);
+    }
     if (!user || user.disabled || user.tokenVersion !== claims.ver) {
+      req.sessionMembership = undefined;
       clearSession(res);
       return next();
     }
@@ -56,7 +72,8 @@ export function authorizeFarm(db: Database, permission: Permission): RequestHand
     const user = requireUser(req);
     const farmId = idParam(req, 'farmId', 'Farm id');
     // A farm the caller does not belong to is "not found", so ids reveal nothing.
-    const role = await findMembership(db, farmId, user.id);
+    const known = req.sessionMembership;
+    const role = known?.farmId === farmId ? known.role : await findMembership(db, farmId, user.id);
     if (!role) throw notFound('Farm not found');
     if (!roleAllows(role, permission)) throw forbidden(`Your role (${role}) cannot do this on this farm`);
     req.farmAccess = { farmId, role };

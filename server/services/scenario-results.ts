@@ -23,11 +23,14 @@ export function evaluateForKeeping(document: Scenario): ScenarioResults {
   return evaluateScenario(document);
 }
 
-/** Keeps `results` of `document` as scenario `scenarioId` version `version`, under today's engine key. */
-export async function keep(db: Executor, scenarioId: number, version: number, document: Scenario, results: ScenarioResults): Promise<KeptResults> {
+/**
+ * Keeps `results` of `document` as scenario `scenarioId` version `version`, under today's engine
+ * key; `newVersion` when the version is written in the same transaction (nothing older to drop).
+ */
+export async function keep(db: Executor, scenarioId: number, version: number, document: Scenario, results: ScenarioResults, newVersion = false): Promise<KeptResults> {
   const { summary, detail } = splitResults(results);
   const kept: KeptResults = { name: document.name, document: JSON.stringify(document), summary: JSON.stringify(summary), detail: JSON.stringify(detail) };
-  await keepResults(db, { ...kept, scenarioId, version, engineKey: resultsCacheKey() });
+  await keepResults(db, { ...kept, scenarioId, version, engineKey: resultsCacheKey() }, newVersion);
   return kept;
 }
 
@@ -53,6 +56,11 @@ function remember(remembered: Map<string, KeptResults>, key: string, kept: KeptR
   if (remembered.size >= REMEMBERED) remembered.delete(remembered.keys().next().value as string);
   remembered.set(key, kept);
   return kept;
+}
+
+/** Remembers the texts a save kept, once its transaction has committed, so the answer to the save reads none back. */
+export function rememberCommitted(db: Executor, scenarioId: number, version: number, kept: KeptResults): void {
+  remember(rememberedIn(db), `${scenarioId}:${version}`, kept);
 }
 
 /** Forgets every remembered text: for tests that change kept rows in the database behind the service's back. */

@@ -37,7 +37,7 @@ import type { ScenarioStatus } from '../db/schema/index.js';
 import type { KeptResults } from '../db/repositories/scenario-results.js';
 import { AppError, fieldErrors, notFound } from '../errors.js';
 import { accessOf, canSeeScenario, canSeeVersion, visibleVersions, type Access, type Actor } from './access.js';
-import { evaluateForKeeping, keep, keptResults } from './scenario-results.js';
+import { evaluateForKeeping, keep, keptResults, rememberCommitted } from './scenario-results.js';
 
 export type { ResultsDetailView, ScenarioListItem, ScenarioView, VersionListItem };
 
@@ -176,7 +176,7 @@ export async function readScenarioWhole(db: Database, actor: ScenarioActor, scen
 
 async function createScenario(db: Database, actor: ScenarioActor, document: Scenario, note: string): Promise<JsonText<ScenarioView>> {
   const results = evaluateForKeeping(document);
-  const id = await db.transaction(async (tx) => {
+  const { id, kept } = await db.transaction(async (tx) => {
     const created = await insertScenario(tx, {
       farmId: actor.farmId,
       name: document.name,
@@ -186,9 +186,9 @@ async function createScenario(db: Database, actor: ScenarioActor, document: Scen
       note,
       now: new Date(),
     });
-    await keep(tx, created, 1, document, results);
-    return created;
+    return { id: created, kept: await keep(tx, created, 1, document, results, true) };
   });
+  rememberCommitted(db, id, 1, kept);
   return readScenario(db, actor, id);
 }
 
@@ -240,12 +240,12 @@ async function saveChange(
   note: string,
   document: Scenario,
 ): Promise<JsonText<ScenarioView>> {
-  await db.transaction(async (tx) => {
+  const saved = await db.transaction(async (tx) => {
     const access = await accessOf(tx, actor);
     const locked = canSeeScenario(access, scenarioId) ? await lockScenario(tx, actor.farmId, scenarioId) : null;
     if (!locked) throw notFound('Scenario not found');
-    const latest = await visibleHead(tx, actor, scenarioId, access);
     if (basedOn !== undefined && basedOn !== locked.version) {
+      const latest = await visibleHead(tx, actor, scenarioId, access);
       throw new AppError(
         409,
         'version_conflict',
@@ -266,8 +266,9 @@ async function saveChange(
       note,
       now: new Date(),
     });
-    await keep(tx, scenarioId, version, document, results);
+    return { version, kept: await keep(tx, scenarioId, version, document, results, true) };
   });
+  rememberCommitted(db, scenarioId, saved.version, saved.kept);
   return readScenario(db, actor, scenarioId);
 }
 

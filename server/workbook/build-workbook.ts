@@ -104,7 +104,7 @@ export async function buildLenderWorkbook(input: LenderWorkbookInput): Promise<E
       { name: LOAN_PAYMENTS_SHEET, what: 'The same loan payment by payment (level payment via PMT()).' },
       { name: COVERAGE_SHEET, what: 'Project and whole-farm debt-service coverage per year, against the lender threshold.' },
       { name: STRESS_SHEET, what: "The lender's stress test per option (milk −10 % and −20 %, interest +2 points, feed +10 %, capital +15 %, milk −10 % with interest +2) and the sources and uses of funds." },
-      { name: STRESS_YEARS_SHEET, what: 'Each shock year by year: the change in project cash flow and the whole-farm cash and debt service (engine values), and whole-farm coverage per year as a live ratio.' },
+      { name: STRESS_YEARS_SHEET, what: 'Each shock year by year: the change in project cash flow and the whole-farm cash and debt service (engine values), and whole-farm and project coverage per year as live ratios.' },
       { name: RISK_SHEET, what: 'Sensitivity of the NPV of the change to each key input; the Monte Carlo chance that the change loses money and its percentiles.' },
     ],
   });

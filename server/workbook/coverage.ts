@@ -222,7 +222,10 @@ function writeOptionBlock(
     defineName(context.workbook, optionName(layout, key), sheetRef(COVERAGE_SHEET, r, from, r, to));
   name('DebtService', rows.debtService, yearColumn(1), yearColumn(horizon));
   name('WholeFarmCoverage', rows.wholeFarm, yearColumn(1), yearColumn(horizon));
-  if (!isCurrent) name('ProjectCoverage', rows.project, yearColumn(1), yearColumn(horizon));
+  if (!isCurrent) {
+    name('ProjectCoverage', rows.project, yearColumn(1), yearColumn(horizon));
+    name('LowestProjectCoverage', rows.project, columns.lowestColumn, columns.lowestColumn);
+  }
   name('LowestCoverage', rows.wholeFarm, columns.lowestColumn, columns.lowestColumn);
   name('LowestCoverageYear', rows.wholeFarm, columns.lowestYearColumn, columns.lowestYearColumn);
   name('YearsBelowThreshold', rows.wholeFarm, columns.belowColumn, columns.belowColumn);

@@ -1,10 +1,11 @@
 /**
  * The stress test's shocks year by year: for each option and shock the change's project flows
  * and the whole-farm cash and debt service, as Byrecast's engine computed them with the inputs
- * shocked, and the whole-farm coverage of each year as a live ratio of the two. The Stress
- * sheet's NPV, lowest coverage and years below the threshold are formulas over these rows.
+ * shocked, and the whole-farm and project coverage of each year as live ratios of them. The Stress
+ * sheet's NPV, lowest coverages and years below the threshold are formulas over these rows.
  */
-import { evaluateStressYears, STRESS_TESTS } from '../../shared/engine/index.js';
+import type ExcelJS from 'exceljs';
+import { evaluateStressYears, STRESS_TESTS, type StressYears } from '../../shared/engine/index.js';
 import { INPUT_NAMES as N, type OptionLayout, type WorkbookContext } from './context.js';
 import { address, BASE_FONT, COVERAGE_FORMAT, freeze, quoteSheet, setFormula, setupPrint, shadeBelowThreshold, styleHeaderRow, styleNote, styleSection, writeTitle } from './layout.js';
 
@@ -21,6 +22,15 @@ export interface ShockCells {
   changeYears: string | null;
   /** Years 1..H of whole-farm coverage (text "" in a year with nothing due). */
   coverageYears: string;
+  /** Years 1..H of project coverage (text "" where the change adds no debt service); null for the current option. */
+  projectCoverageYears: string | null;
+}
+
+/** Rows of one option's shock on the sheet. */
+interface ShockRows {
+  cash: number;
+  debt: number;
+  project: number | null;
 }
 
 /** Builds the sheet; returns, per option (index = option) and shock (STRESS_TESTS order), where its rows are. */
@@ -31,7 +41,7 @@ export function addStressYearsSheet(context: WorkbookContext): ShockCells[][] {
   writeTitle(
     ws,
     "The lender's stress test year by year",
-    `${context.results.currency}. Byrecast engine values with each shock applied to the inputs (the model run again), except the whole-farm coverage rows, which divide the two rows above them. The Stress sheet discounts the change's flows at ${N.discountRate} and counts years below ${N.coverageThreshold}.`,
+    `${context.results.currency}. Byrecast engine values with each shock applied to the inputs (the model run again), except the coverage rows: whole-farm coverage divides the two rows above it, project coverage the change in those two rows against the current option under the same shock. The Stress sheet discounts the change's flows at ${N.discountRate} and counts years below ${N.coverageThreshold}.`,
   );
   const header = 4;
   ws.getCell(header, 1).value = 'Option and shock';
@@ -43,6 +53,7 @@ export function addStressYearsSheet(context: WorkbookContext): ShockCells[][] {
   const money = context.formats.money;
 
   let r = header + 1;
+  const rows = context.options.map((): ShockRows[] => []);
   const cells = context.options.map((layout: OptionLayout, index): ShockCells[] => {
     ws.getCell(r, 1).value = `${layout.result.name}${layout.result.current ? ' (current option)' : ''}`;
     styleSection(ws.getCell(r, 1));
@@ -74,13 +85,19 @@ export function addStressYearsSheet(context: WorkbookContext): ShockCells[][] {
       }
       shadeBelowThreshold(ws, `${yearCell(r, 1, false)}:${yearCell(r, horizon, false)}`, N.coverageThreshold);
       const coverageRow = r++;
+      // Filled below, once the current option's rows of this shock are known.
+      const projectRow = layout.result.current ? null : r++;
+      rows[index]?.push({ cash: cashRow, debt: debtRow, project: projectRow });
+      const yearsOf = (row: number) => `${sheet}!${yearCell(row, 1)}:${yearCell(row, horizon)}`;
       return {
         changeYearZero: changeRow === null ? null : `${sheet}!${yearCell(changeRow, 0)}`,
-        changeYears: changeRow === null ? null : `${sheet}!${yearCell(changeRow, 1)}:${yearCell(changeRow, horizon)}`,
-        coverageYears: `${sheet}!${yearCell(coverageRow, 1)}:${yearCell(coverageRow, horizon)}`,
+        changeYears: changeRow === null ? null : yearsOf(changeRow),
+        coverageYears: yearsOf(coverageRow),
+        projectCoverageYears: projectRow === null ? null : yearsOf(projectRow),
       };
     });
   });
+  fillProjectCoverage(ws, context, years, rows);
   r++;
   const note = ws.getCell(r, 1);
   note.value =
@@ -96,4 +113,35 @@ export function addStressYearsSheet(context: WorkbookContext): ShockCells[][] {
   ws.pageSetup.printTitlesColumn = 'A:B';
   ws.eachRow((row) => row.eachCell((cell) => (cell.font ??= BASE_FONT)));
   return cells;
+}
+
+/**
+ * Project coverage of each shocked year as a live ratio: the change in cash for debt service
+ * over the change in debt service, both the difference of this option's whole-farm row and the
+ * current option's under the same shock (the existing farm's cash and debt cancel), as
+ * shared/engine/farm-coverage.ts coverageInYear computes it.
+ */
+function fillProjectCoverage(ws: ExcelJS.Worksheet, context: WorkbookContext, years: StressYears[][], rows: ShockRows[][]): void {
+  const { horizon } = context;
+  const currentIndex = context.options.findIndex((layout) => layout.result.current);
+  rows.forEach((shocks, index) =>
+    shocks.forEach((own, k) => {
+      const current = rows[currentIndex]?.[k];
+      const ownYears = years[index]?.[k];
+      const currentYears = years[currentIndex]?.[k];
+      if (own.project === null || !current || !ownYears || !currentYears) return;
+      const test = STRESS_TESTS[k];
+      ws.getCell(own.project, 1).value = test?.label ?? '';
+      ws.getCell(own.project, 2).value = 'Project coverage';
+      for (let t = 1; t <= horizon; t++) {
+        const at = (row: number) => address(row, FIRST_YEAR_COLUMN + t, false);
+        const changeDue = (ownYears.wholeFarmDebt[t] ?? 0) - (currentYears.wholeFarmDebt[t] ?? 0);
+        const changeCash = (ownYears.wholeFarmCash[t] ?? 0) - (currentYears.wholeFarmCash[t] ?? 0);
+        const due = `(${at(own.debt)}-${at(current.debt)})`;
+        const cell = ws.getCell(own.project, FIRST_YEAR_COLUMN + t);
+        setFormula(cell, `IF(${due}>=${NOTHING_DUE},(${at(own.cash)}-${at(current.cash)})/${due},"")`, changeDue >= NOTHING_DUE ? changeCash / changeDue : '');
+        cell.numFmt = COVERAGE_FORMAT;
+      }
+    }),
+  );
 }

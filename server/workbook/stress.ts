@@ -3,8 +3,8 @@
  * whole model (yearly lines, tax, loan) with the inputs changed, which the sheet's own flows
  * cannot do: the shocked years are engine values on the "Stress by year" sheet, and the table's
  * NPV of the change, lowest whole-farm coverage and years below the threshold are live formulas
- * over them (the base case links to the option's own cells). Lowest project coverage stays an
- * engine value. Coverage below the named threshold is shaded by a live rule.
+ * over them (the base case links to the option's own cells), and so is the lowest project
+ * coverage (not applicable to the current option). Coverage below the named threshold is shaded by a live rule.
  */
 import type ExcelJS from 'exceljs';
 import { defineName, INPUT_NAMES as N, optionName, type WorkbookContext } from './context.js';
@@ -20,7 +20,7 @@ export function fillStressSheet(ws: ExcelJS.Worksheet, context: WorkbookContext,
   writeTitle(
     ws,
     "The lender's stress test and the sources and uses of funds",
-    `${context.results.currency}. Each shock re-runs the whole model; its years are on "Stress by year", and the NPV of the change, lowest whole-farm coverage and years below the threshold here are formulas over them (${N.discountRate}, ${N.coverageThreshold}). Lowest project coverage is an engine value. The existing farm takes the same prices: its cash moves with the current option's margin. Coverage below ${N.coverageThreshold} (${threshold.toFixed(2)}) is shaded.`,
+    `${context.results.currency}. Each shock re-runs the whole model; its years are on "Stress by year", and the NPV of the change, lowest whole-farm and project coverage and years below the threshold here are formulas over them (${N.discountRate}, ${N.coverageThreshold}). The existing farm takes the same prices: its cash moves with the current option's margin. Coverage below ${N.coverageThreshold} (${threshold.toFixed(2)}) is shaded.`,
   );
   let r = 4;
   const header = ['Shock', 'Lowest whole-farm coverage', 'Lowest project coverage', 'NPV of the change', 'Years below threshold'];
@@ -42,7 +42,8 @@ export function fillStressSheet(ws: ExcelJS.Worksheet, context: WorkbookContext,
     // Base case: the option's own live cells.
     ws.getCell(r, 1).value = 'Base case';
     setFormula(ws.getCell(r, 2), `IF(ISNUMBER(${optionName(n, 'LowestCoverage')}),${optionName(n, 'LowestCoverage')},"no debt")`, result.lowestCoverage?.value ?? 'no debt');
-    ws.getCell(r, 3).value = result.lowestProjectCoverage?.value ?? 'n/a';
+    if (result.current) ws.getCell(r, 3).value = 'n/a';
+    else setFormula(ws.getCell(r, 3), `IF(ISNUMBER(${optionName(n, 'LowestProjectCoverage')}),${optionName(n, 'LowestProjectCoverage')},"n/a")`, result.lowestProjectCoverage?.value ?? 'n/a');
     if (result.incremental) setFormula(ws.getCell(r, 4), optionName(n, 'IncrementalNPV'), result.incremental.npv);
     else ws.getCell(r, 4).value = 'n/a';
     setFormula(ws.getCell(r, 5), optionName(n, 'YearsBelowThreshold'), result.yearsBelowCoverageThreshold.length);
@@ -52,7 +53,8 @@ export function fillStressSheet(ws: ExcelJS.Worksheet, context: WorkbookContext,
       if (!cells) throw new RangeError(`stress: no yearly rows for ${row.id} of option ${result.id}`);
       ws.getCell(r, 1).value = row.label;
       setFormula(ws.getCell(r, 2), `IF(COUNT(${cells.coverageYears})=0,"no debt",MIN(${cells.coverageYears}))`, row.lowestCoverage ?? 'no debt');
-      ws.getCell(r, 3).value = row.lowestProjectCoverage ?? 'n/a';
+      if (cells.projectCoverageYears) setFormula(ws.getCell(r, 3), `IF(COUNT(${cells.projectCoverageYears})=0,"n/a",MIN(${cells.projectCoverageYears}))`, row.lowestProjectCoverage ?? 'n/a');
+      else ws.getCell(r, 3).value = 'n/a';
       if (cells.changeYearZero && cells.changeYears) setFormula(ws.getCell(r, 4), `${cells.changeYearZero}+NPV(${N.discountRate},${cells.changeYears})`, row.npvAgainstCurrent);
       else ws.getCell(r, 4).value = 'n/a';
       setFormula(ws.getCell(r, 5), `COUNTIF(${cells.coverageYears},"<"&${N.coverageThreshold})`, row.yearsBelowThreshold);
@@ -67,6 +69,7 @@ export function fillStressSheet(ws: ExcelJS.Worksheet, context: WorkbookContext,
     shadeBelowThreshold(ws, `B${firstRow}:C${r - 1}`, N.coverageThreshold);
     // Base case first, then the shocks in the engine's order (shared/engine/stress.ts STRESS_TESTS).
     defineName(context.workbook, optionName(n, 'StressLowestCoverage'), sheetRef(STRESS_SHEET, firstRow, 2, r - 1, 2));
+    defineName(context.workbook, optionName(n, 'StressLowestProjectCoverage'), sheetRef(STRESS_SHEET, firstRow, 3, r - 1, 3));
     defineName(context.workbook, optionName(n, 'StressNPV'), sheetRef(STRESS_SHEET, firstRow, 4, r - 1, 4));
     defineName(context.workbook, optionName(n, 'StressYearsBelowThreshold'), sheetRef(STRESS_SHEET, firstRow, 5, r - 1, 5));
     const cover = result.breakEvenMilkPriceForCoverage;

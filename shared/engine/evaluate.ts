@@ -8,7 +8,7 @@ import { sourcesAndUses } from './sources-and-uses';
 import { stressTables, stressYears, type StressYears } from './stress';
 import { presentValue } from './discounting';
 import { expansionSplitFlows, type SplitSide } from './expansion-split';
-import { capitalRecoveryFactor, discount, mirr, paybackYears } from './finance';
+import { discount, equivalentAnnualCost, mirr, paybackYears } from './finance';
 import { milkingLyingHours, npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
 import type { CoreOptionResult, CoreScenarioResults, CoverageYear, DecisionFigures, ExpansionSplit, FastOptionResult, IncrementalResult, Metrics, ScenarioResults } from './results';
 import { irrFast } from './irr-fast';
@@ -74,15 +74,15 @@ function coverageOf(farm: ExistingFarm, sides: CoverageSides, horizon: number): 
 }
 
 /**
- * Equivalent annual cost of the capital per stall (currency per stall per year): (capital +
- * PV of replacements − PV of salvage) × capital recovery factor at the discount rate over H ÷ stalls.
+ * Equivalent annual cost of the capital per stall (currency per stall per year): the present
+ * value (the engine's one discounting rule) of the capital at year 0, the replacements and the
+ * salvage given back at H, × the capital recovery factor at the discount rate over H ÷ stalls.
  */
 function equivalentAnnualCostPerStall(plan: OptionPlan, discountRate: number): number | null {
   if (plan.stalls <= 0) return null;
-  let present = plan.capitalTotal;
-  for (let t = 1; t <= plan.horizon; t++) present += (plan.replacementsByYear[t] ?? 0) / (1 + discountRate) ** t;
-  present -= plan.salvage / (1 + discountRate) ** plan.horizon;
-  return roundCentsFast((present * capitalRecoveryFactor(discountRate, plan.horizon)) / plan.stalls);
+  const capitalFlows = Array.from({ length: plan.horizon + 1 }, (_, t) => (t === 0 ? plan.capitalTotal : (plan.replacementsByYear[t] ?? 0)));
+  capitalFlows[plan.horizon] = (capitalFlows[plan.horizon] ?? 0) - plan.salvage;
+  return roundCentsFast(equivalentAnnualCost(presentValue(discountRate, capitalFlows), discountRate, plan.horizon) / plan.stalls);
 }
 
 // The searches cover 0..10× today's milk price (at least 0..1 a kg) and 0..5 kg/cow/day per hour
@@ -326,7 +326,7 @@ export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOpti
   return runs.map(({ option, plan, projection }, index) => {
     const isCurrent = option === current;
     const flows = projection.cashFlows;
-    const optionNpv = presentValue(discountRate, flows);
+    const optionNpv = flows === base.projection.cashFlows ? baseNpv : presentValue(discountRate, flows);
     const sides: CoverageSides = { ownCash: projection.cashForDebtService, ownPlan: plan, currentCash: base.projection.cashForDebtService, currentPlan: base.plan, isCurrent };
     const { minCoverage, minProjectCoverage, yearsBelowThreshold } = coverageSummary(farm, sides, plan.horizon, scenario.finance.coverageThreshold);
     let incrementalIrr: number | null = null;

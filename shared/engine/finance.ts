@@ -6,7 +6,7 @@ import {
   requirePositiveInteger,
   requireRate,
 } from './money';
-import { presentValue, presentValues, signChanges } from './discounting';
+import { presentValue, presentValues, presentValueSign, signChanges } from './discounting';
 import { findRoot } from './root';
 
 // Conventions: rates are decimal fractions per period (0.08 = 8 %); flows[t] falls at the end of
@@ -69,20 +69,22 @@ const IRR_GRID: readonly number[] = (() => {
 const ROOT_TOLERANCE = 1e-12;
 const SAME_ROOT = 1e-9;
 
-function rootsOnGrid(f: (rate: number) => number): number[] {
+/** Every root of NPV on the grid's brackets; signs come from {@link presentValueSign}, each root from a search on `f`. */
+function rootsOnGrid(flows: readonly number[], f: (rate: number) => number): number[] {
   const roots: number[] = [];
   let lo = IRR_GRID[0] ?? IRR_RANGE.lo;
-  let fLo = f(lo);
-  if (fLo === 0) roots.push(lo);
-  for (const hi of IRR_GRID.slice(1)) {
-    const fHi = f(hi);
-    if (fHi === 0) roots.push(hi);
-    else if (fLo !== 0 && Math.sign(fLo) !== Math.sign(fHi)) {
+  let signLo = presentValueSign(lo, flows);
+  if (signLo === 0) roots.push(lo);
+  for (let i = 1; i < IRR_GRID.length; i++) {
+    const hi = IRR_GRID[i] ?? IRR_RANGE.hi;
+    const signHi = presentValueSign(hi, flows);
+    if (signHi === 0) roots.push(hi);
+    else if (signLo !== 0 && signLo !== signHi) {
       const root = findRoot(f, lo, hi, { tolerance: ROOT_TOLERANCE });
       if (root.value !== null) roots.push(root.value);
     }
     lo = hi;
-    fLo = fHi;
+    signLo = signHi;
   }
   return roots.filter((r, i) => i === 0 || r - (roots[i - 1] ?? r) > SAME_ROOT);
 }
@@ -105,7 +107,7 @@ export function irr(flows: readonly number[]): IrrResult {
     return root.value === null ? { value: null, reason: 'no-root' } : { value: root.value };
   }
 
-  const roots = rootsOnGrid(f);
+  const roots = rootsOnGrid(flows, f);
   const [only] = roots;
   if (roots.length === 1 && only !== undefined) return { value: only };
   if (roots.length === 0) return { value: null, reason: 'no-root' };

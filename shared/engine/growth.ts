@@ -1,12 +1,15 @@
 import type { GrowthRates } from '../schema';
+import { powerTable } from './powers';
 
 /**
  * Growth factor (unitless) for a price entered in today's money (year 0) and grown at a
  * nominal yearly rate: (1 + rate)^year, so year-1 values carry one year of growth.
  */
 export function growthFactor(rate: number, year: number): number {
-  return (1 + rate) ** year;
+  return grownBy(rate, year);
 }
+
+const grownBy = powerTable();
 
 /** The yearly growth of every price group (fractions per year), each one the farm left empty at general inflation. */
 export type ResolvedGrowthRates = { [Key in keyof GrowthRates]: number };

@@ -30,6 +30,9 @@ export type {
 export { joinOption, splitResults, type OptionDetail, type OptionSummary, type ScenarioResultsSummary } from './result-parts';
 export { ENGINE_VERSION, resultsCacheKey } from './version';
 
+// The herd per year as an option plans it (head, [0] = today).
+export { cowsPerYear } from './herd-size';
+
 // The lender's stress table: its shocks and results.
 export { STRESS_TESTS, type StressResult, type StressYears } from './stress';
 

@@ -1,8 +1,9 @@
 import { signChanges } from './discounting';
 import { IRR_RANGE, irr, type IrrResult } from './finance';
 
-// NPV at rate r and its derivative d/dr, flows[0] at t = 0.
-function npvAndSlope(flows: readonly number[], rate: number): [number, number] {
+// NPV at rate r (returned) and its derivative d/dr (written to slopeOut[0]), flows[0] at t = 0:
+// no pair allocated per step, as this runs several times for every option of every Monte Carlo draw.
+function npvAt(flows: readonly number[], rate: number, slopeOut: Float64Array): number {
   const v = 1 / (1 + rate);
   let power = 1;
   let value = 0;
@@ -13,7 +14,8 @@ function npvAndSlope(flows: readonly number[], rate: number): [number, number] {
     slope -= t * cf * power * v;
     power *= v;
   }
-  return [value, slope];
+  slopeOut[0] = slope;
+  return value;
 }
 
 /** Sign changes of the running sums of the flows, from the first flow onwards or from the last one backwards. */
@@ -55,8 +57,9 @@ export function irrFast(flows: readonly number[], start = DEFAULT_START): IrrRes
   if (changes === 0 || (changes > 1 && !atMostOneIrr(flows))) return irr(flows);
   let lo: number = IRR_RANGE.lo;
   let hi: number = IRR_RANGE.hi;
-  const fLo = npvAndSlope(flows, lo)[0];
-  const fHi = npvAndSlope(flows, hi)[0];
+  const slopeOut = new Float64Array(1);
+  const fLo = npvAt(flows, lo, slopeOut);
+  const fHi = npvAt(flows, hi, slopeOut);
   if (fLo === 0) return { value: lo };
   if (fHi === 0) return { value: hi };
   if (fLo > 0 === fHi > 0) return { value: null, reason: 'no-root' };
@@ -65,7 +68,8 @@ export function irrFast(flows: readonly number[], start = DEFAULT_START): IrrRes
   let pos = fLo < 0 ? hi : lo;
   let rate = Number.isFinite(start) && start > lo && start < hi ? start : DEFAULT_START;
   for (let i = 0; i < MAX_ITERATIONS; i++) {
-    const [value, slope] = npvAndSlope(flows, rate);
+    const value = npvAt(flows, rate, slopeOut);
+    const slope = slopeOut[0] as number;
     if (value === 0) return { value: rate };
     if (value < 0) neg = rate;
     else pos = rate;

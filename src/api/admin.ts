@@ -1,17 +1,10 @@
+import type { AccountListing, AccountUpdate } from '@shared/responses';
 import { http } from './client';
 
-export interface AccountListing {
-  id: number;
-  email: string;
-  name: string;
-  isAdmin: boolean;
-  disabled: boolean;
-  createdAt: string;
-  farmCount: number;
-}
+export type { AccountListing };
 
 /** Account administration (administrators only). */
 export const adminApi = {
   users: () => http.get<AccountListing[]>('/admin/users'),
-  setDisabled: (userId: number, disabled: boolean) => http.patch<AccountListing>(`/admin/users/${userId}`, { disabled }),
+  setDisabled: (userId: number, disabled: boolean) => http.patch<AccountUpdate>(`/admin/users/${userId}`, { disabled }),
 };

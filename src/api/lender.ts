@@ -1,33 +1,19 @@
 /** Lender shares: share a scenario version, list and revoke shares, the lender's own shares, the share link, the audit log. */
-import type { SharePreview } from '@shared/schema/lender';
-import type { AuditEntry, AuditPage, ShareState, ShareView } from '@shared/responses';
+import type { CreateShareInput, SharePreview } from '@shared/schema/lender';
+import type { AcceptedShare, AuditEntry, AuditPage, ShareState, ShareView } from '@shared/responses';
 import type { AcceptInvitationInput } from '@shared/schema/accounts';
-import type { Session } from './auth';
 import { http } from './client';
 
-export type { AuditEntry, AuditPage, SharePreview, ShareState };
+export type { AcceptedShare, AuditEntry, AuditPage, SharePreview, ShareState };
 /** A lender share as the API answers it. */
 export type LenderShare = ShareView;
-
-export interface CreateShareBody {
-  email: string;
-  version?: number;
-  expiresOn: string;
-  message?: string;
-}
-
-export interface AcceptedShare extends Session {
-  farmId: number;
-  scenarioId: number;
-  shareId: number;
-}
 
 const farm = (farmId: number) => `/farms/${farmId}`;
 
 export const lenderApi = {
   list: (farmId: number, scenarioId?: number) => http.get<LenderShare[]>(`${farm(farmId)}/lender-shares${scenarioId ? `?scenarioId=${scenarioId}` : ''}`),
   mine: (farmId: number) => http.get<LenderShare[]>(`${farm(farmId)}/lender-shares/mine`),
-  create: (farmId: number, scenarioId: number, body: CreateShareBody) => http.post<LenderShare>(`${farm(farmId)}/scenarios/${scenarioId}/lender-shares`, body),
+  create: (farmId: number, scenarioId: number, body: CreateShareInput) => http.post<LenderShare>(`${farm(farmId)}/scenarios/${scenarioId}/lender-shares`, body),
   revoke: (farmId: number, shareId: number) => http.post<LenderShare>(`${farm(farmId)}/lender-shares/${shareId}/revoke`),
   preview: (token: string) => http.get<SharePreview>(`/lender-shares/${encodeURIComponent(token)}`),
   accept: (token: string, input: AcceptInvitationInput) => http.post<AcceptedShare>(`/lender-shares/${encodeURIComponent(token)}/accept`, input),

@@ -1,22 +1,13 @@
 import type { AcceptInvitationInput, FarmRole, InviteInput } from '@shared/schema/accounts';
-import type { InvitationPreview, PendingInvitation } from '@shared/responses';
-import type { Session } from './auth';
+import type { AcceptedInvitation, FarmMember, InvitationPreview, MemberRoleChange, PendingInvitation } from '@shared/responses';
 import { http } from './client';
 
-export interface FarmMember {
-  userId: number;
-  name: string;
-  email: string;
-  role: FarmRole;
-  since: string;
-}
-
-export type { InvitationPreview, PendingInvitation };
+export type { FarmMember, InvitationPreview, PendingInvitation };
 
 /** A farm's members and the owner's invitations. */
 export const membersApi = {
   list: (farmId: number) => http.get<FarmMember[]>(`/farms/${farmId}/members`),
-  changeRole: (farmId: number, userId: number, role: FarmRole) => http.patch<{ userId: number; role: FarmRole }>(`/farms/${farmId}/members/${userId}`, { role }),
+  changeRole: (farmId: number, userId: number, role: FarmRole) => http.patch<MemberRoleChange>(`/farms/${farmId}/members/${userId}`, { role }),
   remove: (farmId: number, userId: number) => http.delete(`/farms/${farmId}/members/${userId}`),
   invitations: (farmId: number) => http.get<PendingInvitation[]>(`/farms/${farmId}/invitations`),
   invite: (farmId: number, input: InviteInput) => http.post<PendingInvitation>(`/farms/${farmId}/invitations`, input),
@@ -28,5 +19,5 @@ export const membersApi = {
 export const invitationsApi = {
   preview: (token: string) => http.get<InvitationPreview>(`/invitations/${encodeURIComponent(token)}`),
   accept: (token: string, input: AcceptInvitationInput) =>
-    http.post<Session & { farmId: number }>(`/invitations/${encodeURIComponent(token)}/accept`, input),
+    http.post<AcceptedInvitation>(`/invitations/${encodeURIComponent(token)}/accept`, input),
 };

@@ -1,15 +1,10 @@
 /** Milk-record import: preview an upload, confirm it into the herd baseline, list past imports. */
 import type { MilkRecordImport, MilkRecordPreview } from '@shared/schema/milk-records';
+import type { MilkRecordHistory } from '@shared/responses';
 import { http } from './client';
 import { uploadWithProgress, type UploadProgress } from './documents';
 
-export type { MilkRecordImport, MilkRecordPreview };
-
-export interface MilkRecordHistory {
-  /** The herd fields the import sets, as the baseline holds them now. */
-  baseline: { cows: number | null; yieldKgPerCowDay: number | null };
-  imports: MilkRecordImport[];
-}
+export type { MilkRecordHistory, MilkRecordImport, MilkRecordPreview };
 
 const base = (farmId: number) => `/farms/${farmId}/milk-records`;
 

@@ -1,14 +1,7 @@
+import type { CapturedMail } from '@shared/responses';
 import { http } from './client';
 
-export interface CapturedMail {
-  id: number;
-  from: string;
-  to: string;
-  subject: string;
-  text: string;
-  sentAt: string;
-  links: string[];
-}
+export type { CapturedMail };
 
 /** The dev outbox: e-mails captured instead of sent (only when no SMTP server is configured). */
 export const outboxApi = {

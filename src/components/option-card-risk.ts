@@ -22,3 +22,16 @@ export function cardRiskByOption(kept: MonteCarloResult | null, fresh: boolean):
     return option ? { state: 'kept', chance: option.incrementalNpv?.probabilityNegative ?? null, draws: kept.drawsDone } : { state: 'stale' };
   };
 }
+
+/** The risk line in words: the chance as a percentage (with what it counts), or why there is none. */
+export function cardRiskWords(risk: CardRisk, percent: (share: number | null) => string): { value: string; title: string; negative: boolean } {
+  if (risk.state === 'kept') {
+    return {
+      value: percent(risk.chance),
+      negative: (risk.chance ?? 0) >= 0.5,
+      title: `Share of the ${risk.draws} Monte Carlo draws of the kept risk run in which the NPV against the current option is below 0`,
+    };
+  }
+  if (risk.state === 'stale') return { value: 'risk run out of date', negative: false, title: 'The inputs changed since the kept risk run: run it again on the Risk tab' };
+  return { value: 'risk not run yet', negative: false, title: 'Run the Monte Carlo on the Risk tab to see it' };
+}

@@ -74,6 +74,35 @@ export const useFarmStore = defineStore('farm', () => {
     return created.id;
   }
 
+  function requireFarm(): number {
+    if (farmId.value === null) throw new Error('farm store used before load');
+    return farmId.value;
+  }
+
+  /** Copies a scenario (as its latest version); returns the copy's name. */
+  async function duplicateScenario(id: number): Promise<string> {
+    const copy = await scenariosApi.duplicate(requireFarm(), id);
+    await refreshScenarios();
+    return copy.scenario.name;
+  }
+
+  /** Puts a scenario aside: it leaves the working list but keeps every version. */
+  async function archiveScenario(id: number): Promise<void> {
+    await scenariosApi.archive(requireFarm(), id);
+    await refreshScenarios();
+  }
+
+  /** Deletes a scenario with all its versions, for everyone on the farm. */
+  async function removeScenario(id: number): Promise<void> {
+    await scenariosApi.remove(requireFarm(), id);
+    await refreshScenarios();
+  }
+
+  /** Where a scenario's document downloads as a JSON file. */
+  function exportUrl(id: number): string {
+    return scenariosApi.exportUrl(requireFarm(), id);
+  }
+
   return {
     farmId: readonly(farmId),
     farm: readonly(farm),
@@ -87,5 +116,9 @@ export const useFarmStore = defineStore('farm', () => {
     refreshScenarios,
     saveBaseline,
     createScenario,
+    duplicateScenario,
+    archiveScenario,
+    removeScenario,
+    exportUrl,
   };
 });

@@ -1,8 +1,8 @@
 /** Lender shares and reviews of the scenario or farm being looked at, and the lender's own shares. */
 import { defineStore } from 'pinia';
-import { computed, readonly, ref } from 'vue';
-import type { CreateNoteInput, ReviewStatusValue } from '@shared/schema/lender';
-import { lenderApi, type CreateShareBody, type LenderShare } from '@/api/lender';
+import { computed, ref } from 'vue';
+import type { CreateNoteInput, CreateShareInput, ReviewStatusValue } from '@shared/schema/lender';
+import { lenderApi, type LenderShare } from '@/api/lender';
 import { reviewsApi, type ShareReview } from '@/api/reviews';
 import { scenariosApi, type VersionListItem } from '@/api/scenarios';
 
@@ -11,25 +11,19 @@ export const useLenderStore = defineStore('lender', () => {
   const reviews = ref<ShareReview[]>([]);
   const mine = ref<LenderShare[]>([]);
   const versions = ref<VersionListItem[]>([]);
-  const loading = ref(false);
   let place: { farmId: number; scenarioId: number; canShare: boolean } | null = null;
 
   /** Loads the reviews of a scenario and, for those who may share, its shares and saved versions. */
   async function loadScenario(farmId: number, scenarioId: number, canShare: boolean): Promise<void> {
     place = { farmId, scenarioId, canShare };
-    loading.value = true;
-    try {
-      const [r, s, v] = await Promise.all([
-        reviewsApi.ofScenario(farmId, scenarioId),
-        canShare ? lenderApi.list(farmId, scenarioId) : Promise.resolve([]),
-        canShare ? scenariosApi.versions(farmId, scenarioId) : Promise.resolve([]),
-      ]);
-      reviews.value = r;
-      shares.value = s;
-      versions.value = v;
-    } finally {
-      loading.value = false;
-    }
+    const [r, s, v] = await Promise.all([
+      reviewsApi.ofScenario(farmId, scenarioId),
+      canShare ? lenderApi.list(farmId, scenarioId) : Promise.resolve([]),
+      canShare ? scenariosApi.versions(farmId, scenarioId) : Promise.resolve([]),
+    ]);
+    reviews.value = r;
+    shares.value = s;
+    versions.value = v;
   }
 
   async function reload(): Promise<void> {
@@ -42,7 +36,7 @@ export const useLenderStore = defineStore('lender', () => {
     return mine.value;
   }
 
-  async function share(farmId: number, scenarioId: number, body: CreateShareBody): Promise<LenderShare> {
+  async function share(farmId: number, scenarioId: number, body: CreateShareInput): Promise<LenderShare> {
     const created = await lenderApi.create(farmId, scenarioId, body);
     await reload();
     return created;
@@ -63,6 +57,11 @@ export const useLenderStore = defineStore('lender', () => {
     await reload();
   }
 
+  /** Where the lender workbook of a scenario downloads (members: latest version; a lender: the shared one). */
+  function workbookUrl(farmId: number, scenarioId: number): string {
+    return lenderApi.workbookUrl(farmId, scenarioId);
+  }
+
   async function setStatus(farmId: number, shareId: number, status: ReviewStatusValue): Promise<void> {
     await reviewsApi.setStatus(farmId, shareId, status);
     await reload();
@@ -73,7 +72,6 @@ export const useLenderStore = defineStore('lender', () => {
     reviews: computed(() => reviews.value),
     mine: computed(() => mine.value),
     versions: computed(() => versions.value),
-    loading: readonly(loading),
     loadScenario,
     loadMine,
     share,
@@ -81,5 +79,6 @@ export const useLenderStore = defineStore('lender', () => {
     addNote,
     reply,
     setStatus,
+    workbookUrl,
   };
 });

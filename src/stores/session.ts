@@ -1,9 +1,7 @@
 import { defineStore } from 'pinia';
 import { computed, readonly, ref } from 'vue';
 import { authApi, type Session } from '@/api/auth';
-import { invitationsApi } from '@/api/members';
 import type {
-  AcceptInvitationInput,
   ChangePasswordInput,
   PasswordResetInput,
   SignInInput,
@@ -82,12 +80,10 @@ export const useSessionStore = defineStore('session', () => {
     loaded.value = true;
   }
 
-  /** Accepts an invitation (signing up when `input` carries name and password); returns the farm id. */
-  async function acceptInvitation(token: string, input: AcceptInvitationInput): Promise<number> {
-    const { farmId, ...accepted } = await invitationsApi.accept(token, input);
-    session.value = accepted;
+  /** Takes the session an accepted link answered with (src/stores/links.ts). */
+  function adopt(next: Session): void {
+    session.value = next;
     loaded.value = true;
-    return farmId;
   }
 
   return {
@@ -105,6 +101,6 @@ export const useSessionStore = defineStore('session', () => {
     changePassword,
     requestPasswordReset,
     completePasswordReset,
-    acceptInvitation,
+    adopt,
   };
 });

@@ -6,6 +6,7 @@
 import { defineStore } from 'pinia';
 import { readonly, ref, shallowRef } from 'vue';
 import { ApiError } from '@/api/client';
+import { messageFor } from '@/api/messages';
 import { documentsApi, type CapitalLineQuotes } from '@/api/documents';
 import { lenderApi, type LenderShare } from '@/api/lender';
 import { preferencesApi, type SavedRiskResult } from '@/api/preferences';
@@ -39,7 +40,7 @@ export const useSharedScenarioStore = defineStore('shared-scenario', () => {
       quotes.value = new Map(lines.map((l) => [l.capitalLineId, l]));
     } catch (e) {
       if (loading !== key) return;
-      error.value = e instanceof ApiError && e.status === 404 ? 'This scenario is not shared with you, or the share has ended.' : 'Could not load the shared scenario.';
+      error.value = e instanceof ApiError && e.status === 404 ? 'This scenario is not shared with you, or the share has ended.' : messageFor(e, 'Could not load the shared scenario.');
     }
   }
 
@@ -57,6 +58,11 @@ export const useSharedScenarioStore = defineStore('shared-scenario', () => {
     return newest ? { farmId: newest.farmId, scenarioId: newest.share.scenarioId } : null;
   }
 
+  /** Where a document on a shared capital line downloads. */
+  function documentUrl(farmId: number, documentId: number): string {
+    return documentsApi.downloadUrl(farmId, documentId);
+  }
+
   function clear(): void {
     loading = null;
     doc.value = null;
@@ -65,5 +71,5 @@ export const useSharedScenarioStore = defineStore('shared-scenario', () => {
     error.value = null;
   }
 
-  return { doc, risk, quotes, error: readonly(error), load, clear, newestShare };
+  return { doc, risk, quotes, error: readonly(error), load, clear, newestShare, documentUrl };
 });

@@ -149,17 +149,24 @@ function checkAllOptions(workbook: ExcelJS.Workbook, results: ScenarioResults): 
 
 /**
  * The Stress sheet's live cells (base case, then each shock in the engine's order) against the
- * engine's stress rows: NPV of the change, lowest whole-farm coverage, years below the threshold.
+ * engine's stress rows: NPV of the change, lowest whole-farm and project coverage, years below the threshold.
  */
 function checkStress(workbook: ExcelJS.Workbook, results: ScenarioResults, parts: { npv: boolean; coverage: boolean } = { npv: true, coverage: true }): number {
   let checked = 0;
   results.options.forEach((option, index) => {
     const n = index + 1;
     const lowest = named(workbook, `Opt${n}_StressLowestCoverage`);
+    const lowestProject = named(workbook, `Opt${n}_StressLowestProjectCoverage`);
     const npv = named(workbook, `Opt${n}_StressNPV`);
     const below = named(workbook, `Opt${n}_StressYearsBelowThreshold`);
     const rows = [
-      { label: 'base case', lowestCoverage: option.lowestCoverage?.value ?? null, npvAgainstCurrent: option.incremental?.npv ?? null, yearsBelowThreshold: option.yearsBelowCoverageThreshold.length },
+      {
+        label: 'base case',
+        lowestCoverage: option.lowestCoverage?.value ?? null,
+        lowestProjectCoverage: option.lowestProjectCoverage?.value ?? null,
+        npvAgainstCurrent: option.incremental?.npv ?? null,
+        yearsBelowThreshold: option.yearsBelowCoverageThreshold.length,
+      },
       ...option.stress,
     ];
     expect(lowest).toHaveLength(rows.length);
@@ -167,6 +174,7 @@ function checkStress(workbook: ExcelJS.Workbook, results: ScenarioResults, parts
       const label = `${option.name} stress ${row.label}`;
       if (parts.coverage) {
         expectRate(lowest[k] ?? null, row.lowestCoverage, `${label} lowest coverage`);
+        expectRate(lowestProject[k] ?? null, row.lowestProjectCoverage, `${label} lowest project coverage`);
         expectRate(below[k] ?? null, row.yearsBelowThreshold, `${label} years below threshold`);
       }
       if (parts.npv) {
@@ -283,7 +291,7 @@ describe('lender workbook recalculated by LibreOffice, the independent reference
     checkAllOptions(recalculated, results);
   });
 
-  it('reproduces the stress table from live formulas over the shocked years: NPV of the change, lowest coverage, years below', () => {
+  it('reproduces the stress table from live formulas over the shocked years: NPV of the change, lowest whole-farm and project coverage, years below', () => {
     // Six shocks and the base case for each of the five options (shared/engine/stress.ts STRESS_TESTS).
     expect(checkStress(recalculated, results)).toBe(5 * 7);
     expect(checkStress(recalculatedLevel, levelResults)).toBe(2 * 7);

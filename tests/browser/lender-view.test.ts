@@ -101,6 +101,12 @@ describe('the lender sees what the share promises', () => {
       expect(amount(await row.locator('[data-figure="good"]').innerText())).toBe(Math.round(option.incrementalNpv!.p90!));
       expect(amount(await row.locator('[data-figure="loss"]').innerText())).toBe(Math.round(option.incrementalNpv!.probabilityNegative! * 100));
     }
+    // The comparison carries the same chance beside the change's other figures, to a tenth of a percent.
+    const chanceRow = page.locator('tr[data-risk-row="chance-of-loss"]');
+    for (const option of kept.options.filter((o) => !o.current && o.incrementalNpv)) {
+      const cell = chanceRow.locator(`td[data-option-id="${option.optionId}"]`);
+      expect(amount(await cell.innerText())).toBeCloseTo(option.incrementalNpv!.probabilityNegative! * 100, 1);
+    }
     expect(await risk.getByText('1-in-10 bad').count()).toBeGreaterThan(0);
     // The statistics' names sit under the closed "advanced" fold.
     expect(await risk.getByText('P10 of the change').isVisible()).toBe(false);
@@ -158,6 +164,18 @@ describe('the lender sees what the share promises', () => {
     await page.evaluate(() => document.querySelector('[data-testid="shared-capital"]')?.scrollIntoView());
     await harness.screenshot(page, 'lender-view-capital-desktop');
 
+    // The change in two parts, as on the results screen, when an option changes the herd: the
+    // housing with today's herd and the expansion, to the whole unit of the engine's NPVs; and the
+    // option's stress test beside its coverage (docs/model.md "Housing and expansion", "Stress").
+    const split = quotedOption.incremental?.split ?? null;
+    const splitTable = page.getByTestId('expansion-split');
+    await poll(() => page.getByTestId('stress-table').count()).toBe(1);
+    expect(await splitTable.count()).toBe(split ? 1 : 0);
+    if (split) {
+      expect(amount(await splitTable.getByTestId('split-housing').locator('td.num').first().innerText())).toBe(Math.round(split.housingTodaysHerd.npv));
+      expect(amount(await splitTable.getByTestId('split-expansion').locator('td.num').first().innerText())).toBe(Math.round(split.expansion.npv));
+    }
+
     // The phone reads the same page without sideways scrolling.
     await page.setViewportSize(PHONE);
     await fitsPhone(page, 'the lender view');
@@ -169,6 +187,9 @@ describe('the lender sees what the share promises', () => {
     await page.waitForURL(new RegExp(`/farms/${farmId}/scenarios/${scenarioId}/print$`));
     const printRisk = page.getByTestId('print-risk');
     await poll(() => printRisk.locator('tbody tr').count()).toBe(kept.options.filter((o) => !o.current && o.incrementalNpv).length);
+    // The family page reads the kept run; the split shows one table per option whose change splits.
+    await poll(() => page.getByTestId('family-summary').locator('[data-figure="risk"]').count()).toBe(kept.options.filter((o) => !o.current && o.incrementalNpv).length);
+    expect(await page.locator('[data-testid="print-split"] [data-testid="expansion-split"]').count()).toBe(results.options.filter((o) => o.incremental?.split).length);
     await harness.screenshot(page, 'lender-print-desktop');
     await page.setViewportSize(PHONE);
     await fitsPhone(page, 'the print view');

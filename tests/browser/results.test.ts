@@ -175,8 +175,8 @@ describe('results and comparison in Chromium', () => {
     expect(splitText).toContain('Expansion: 40 added cows by year 20');
     expect(await page.getByTestId('split-housing').locator('td').first().innerText()).toBe(whole(split?.housingTodaysHerd.npv ?? NaN));
     expect(await page.getByTestId('split-expansion').locator('td').first().innerText()).toBe(whole(split?.expansion.npv ?? NaN));
-    // The demo enters no cost per cow besides feed: the screen says the added cows' part is overstated.
-    await page.getByTestId('split-no-herd-costs').waitFor();
+    // The demo enters the costs every cow carries besides feed, so no note says the added cows' part is overstated.
+    expect(await page.getByTestId('split-no-herd-costs').count()).toBe(0);
     expect(await page.locator('[data-metric="coverage"] .reading').innerText()).toMatch(/coverage lowest in year \d+ at \d\.\d\d — (below|at or above) the lender's 1\.25|no debt service/);
     // The yearly and loan tables are drawn when they come near the screen, as the reader scrolls to them.
     await page.locator('.results-view .tables').scrollIntoViewIfNeeded();
@@ -216,6 +216,10 @@ describe('results and comparison in Chromium', () => {
     await page.getByTestId('comparison-table').waitFor();
     await page.locator('.apexcharts-canvas').first().waitFor();
     await expect.poll(() => page.locator('main').innerText()).toContain('never enter a manure pit');
+    // The demo's barns raise the option cautions too: sand in the slurry and moving the grazing herd indoors.
+    const printed = await page.locator('.cautions').innerText();
+    expect(printed).toContain('never enter a pit or tank');
+    expect(printed).toContain('vet and hoof trimmer');
     await expectNoBrokenNumbers(page);
     await harness.screenshot(page, 'print-screen-desktop');
 

@@ -14,7 +14,15 @@ import type * as audit from '../../server/services/audit';
 import type * as baseline from '../../server/services/farm-baseline';
 import type * as invitations from '../../server/services/invitations';
 import type * as farms from '../../server/services/farms';
+import type * as members from '../../server/services/members';
+import type * as milkRecords from '../../server/services/milk-records';
+import type * as accounts from '../../server/services/accounts';
+import type { SentMail } from '../../server/mail/mailer';
 import type * as client from '@/api/scenarios';
+import type * as membersClient from '@/api/members';
+import type * as milkClient from '@/api/milk-records';
+import type * as adminClient from '@/api/admin';
+import type * as lenderClient from '@/api/lender';
 
 /** What JSON.parse(JSON.stringify(value)) gives back, for the value kinds the API sends. */
 type Jsonified<T> = unknown extends T
@@ -49,11 +57,21 @@ describe('API response types', () => {
     expectTypeOf<Answer<typeof invitations.previewInvitation>>().toEqualTypeOf<R.InvitationPreview>();
     expectTypeOf<Answer<typeof farms.farmsOf>>().toEqualTypeOf<R.FarmSummary[]>();
     expectTypeOf<Answer<typeof farms.farmDetail>>().toEqualTypeOf<R.FarmDetail>();
+    expectTypeOf<Jsonified<Answer<typeof members.farmMembers>>>().toEqualTypeOf<R.FarmMember[]>();
+    expectTypeOf<Answer<typeof milkRecords.milkRecordHistory>>().toEqualTypeOf<R.MilkRecordHistory>();
+    // The admin route sends these fields of each listed account.
+    type Listed = Pick<Answer<typeof accounts.listAccounts>[number], keyof R.AccountListing>;
+    expectTypeOf<Jsonified<Listed>>().toEqualTypeOf<R.AccountListing>();
+    expectTypeOf<Jsonified<SentMail>>().toEqualTypeOf<R.CapturedMail>();
   });
 
   it('are what the client reads', () => {
     expectTypeOf<client.ScenarioDocument>().toEqualTypeOf<R.ScenarioView>();
     expectTypeOf<client.VersionDocument>().toEqualTypeOf<R.VersionView>();
+    expectTypeOf<Answer<typeof membersClient.membersApi.list>>().toEqualTypeOf<R.FarmMember[]>();
+    expectTypeOf<Answer<typeof milkClient.milkRecordsApi.history>>().toEqualTypeOf<R.MilkRecordHistory>();
+    expectTypeOf<Answer<typeof adminClient.adminApi.users>>().toEqualTypeOf<R.AccountListing[]>();
+    expectTypeOf<Answer<typeof lenderClient.lenderApi.accept>>().toEqualTypeOf<R.AcceptedShare>();
   });
 
   it('travel through JSON unchanged', () => {
@@ -67,5 +85,9 @@ describe('API response types', () => {
     expectTypeOf<Jsonified<R.AuditEntry>>().toEqualTypeOf<R.AuditEntry>();
     expectTypeOf<Jsonified<R.InvitationPreview>>().toEqualTypeOf<R.InvitationPreview>();
     expectTypeOf<Jsonified<R.FarmSummary>>().toEqualTypeOf<R.FarmSummary>();
+    expectTypeOf<Jsonified<R.FarmMember>>().toEqualTypeOf<R.FarmMember>();
+    expectTypeOf<Jsonified<R.AccountListing>>().toEqualTypeOf<R.AccountListing>();
+    expectTypeOf<Jsonified<R.MilkRecordHistory>>().toEqualTypeOf<R.MilkRecordHistory>();
+    expectTypeOf<Jsonified<R.AcceptedShare>>().toEqualTypeOf<R.AcceptedShare>();
   });
 });

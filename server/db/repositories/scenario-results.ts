@@ -26,12 +26,17 @@ export async function findKeptResults<K extends keyof KeptResults>(
   return (row as Pick<KeptResults, K> | undefined) ?? null;
 }
 
-/** Keeps one version's results (a second writer of the same key changes nothing) and drops that version's rows under other keys. */
-export async function keepResults(db: Executor, input: KeptResults & { scenarioId: number; version: number; engineKey: string }): Promise<void> {
+/**
+ * Keeps one version's results (a second writer of the same key changes nothing) and drops that
+ * version's rows under other keys; `newVersion` (a version written in this same transaction, so
+ * it has no rows yet) skips that delete.
+ */
+export async function keepResults(db: Executor, input: KeptResults & { scenarioId: number; version: number; engineKey: string }, newVersion = false): Promise<void> {
   await db
     .insert(scenarioResultsTable)
     .values(input)
     .onDuplicateKeyUpdate({ set: { engineKey: input.engineKey } });
+  if (newVersion) return;
   await db
     .delete(scenarioResultsTable)
     .where(and(eq(scenarioResultsTable.scenarioId, input.scenarioId), eq(scenarioResultsTable.version, input.version), ne(scenarioResultsTable.engineKey, input.engineKey)));

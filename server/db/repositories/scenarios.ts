@@ -1,5 +1,5 @@
 /** Scenario rows and their versions as plain objects; JSON columns parsed here (MariaDB returns them as text). */
-import { and, asc, desc, eq } from 'drizzle-orm';
+import { and, asc, desc, eq, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/mysql-core';
 import type { Scenario } from '../../../shared/schema/index.js';
 import { readScenarioDocument } from '../../../shared/schema/stored-scenario.js';
@@ -94,9 +94,8 @@ export async function findScenario(db: Executor, farmId: number, scenarioId: num
 /** A scenario record without its document and summary: what a read needs when the results are kept. */
 export type ScenarioHead = Omit<ScenarioRecord, 'document' | 'summary'>;
 
-/** One scenario of this farm without reading its document; null for an id of another farm. */
-export async function findScenarioHead(db: Executor, farmId: number, scenarioId: number): Promise<ScenarioHead | null> {
-  const [found] = await db
+function prepareScenarioHead(db: Executor) {
+  return db
     .select({
       id: scenariosTable.id,
       farmId: scenariosTable.farmId,
@@ -113,7 +112,21 @@ export async function findScenarioHead(db: Executor, farmId: number, scenarioId:
     .from(scenariosTable)
     .leftJoin(creator, eq(creator.id, scenariosTable.createdBy))
     .leftJoin(updater, eq(updater.id, scenariosTable.updatedBy))
-    .where(and(eq(scenariosTable.farmId, farmId), eq(scenariosTable.id, scenarioId)));
+    .where(and(eq(scenariosTable.farmId, sql.placeholder('farmId')), eq(scenariosTable.id, sql.placeholder('scenarioId'))))
+    .prepare();
+}
+
+/** Built once per pool (or transaction): every read of a scenario asks this, so its SQL is not rebuilt each time. */
+const preparedHeads = new WeakMap<Executor, ReturnType<typeof prepareScenarioHead>>();
+
+/** One scenario of this farm without reading its document; null for an id of another farm. */
+export async function findScenarioHead(db: Executor, farmId: number, scenarioId: number): Promise<ScenarioHead | null> {
+  let prepared = preparedHeads.get(db);
+  if (!prepared) {
+    prepared = prepareScenarioHead(db);
+    preparedHeads.set(db, prepared);
+  }
+  const [found] = await prepared.execute({ farmId, scenarioId });
   if (!found) return null;
   const { createdById, updatedById, creatorName, updaterName, ...row } = found;
   return { ...row, createdBy: person(createdById, creatorName), updatedBy: person(updatedById, updaterName) };

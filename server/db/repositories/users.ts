@@ -23,6 +23,35 @@ const publicColumns = {
   createdAt: usersTable.createdAt,
 };
 
+/** Built once per pool: a session check runs on every request, so its SQL is not rebuilt each time. */
+const preparedSessionQueries = new WeakMap<Database, ReturnType<typeof prepareSessionQuery>>();
+
+function prepareSessionQuery(db: Database) {
+  return db
+    .select({ ...publicColumns, role: membershipsTable.role, farmId: farmsTable.id })
+    .from(usersTable)
+    .leftJoin(membershipsTable, and(eq(membershipsTable.userId, usersTable.id), eq(membershipsTable.farmId, sql.placeholder('farmId'))))
+    .leftJoin(farmsTable, eq(farmsTable.id, membershipsTable.farmId))
+    .where(eq(usersTable.id, sql.placeholder('userId')))
+    .prepare();
+}
+
+/**
+ * A user and their role on one farm (null when not a member), in one round trip: a request to a
+ * farm route needs both, and this is most of what a read of kept results costs.
+ */
+export async function findUserWithMembership(db: Database, userId: number, farmId: number): Promise<{ user: User; role: FarmRole | null } | null> {
+  let prepared = preparedSessionQueries.get(db);
+  if (!prepared) {
+    prepared = prepareSessionQuery(db);
+    preparedSessionQueries.set(db, prepared);
+  }
+  const [row] = await prepared.execute({ userId, farmId });
+  if (!row) return null;
+  const { role, farmId: foundFarm, ...user } = row;
+  return { user, role: foundFarm === null ? null : role };
+}
+
 export async function findUserById(db: Database, id: number): Promise<User | null> {
   const [row] = await db.select(publicColumns).from(usersTable).where(eq(usersTable.id, id));
   return row ?? null;

@@ -3,7 +3,7 @@
  * the current option, what that means day to day, and the assumptions that drive the answer with
  * their break-evens. Pure: reads the engine's results and the sensitivity as they are.
  */
-import type { OptionResult, ScenarioResults, SensitivityResult } from '@shared/engine';
+import type { MonteCarloResult, OptionResult, ScenarioResults, SensitivityResult } from '@shared/engine';
 import type { Scenario } from '@shared/schema';
 import type { ReadingFormat } from '@/components/results/readings';
 import { RISK_INPUT_LABELS } from '@/components/risk/risk-labels';
@@ -14,6 +14,8 @@ export interface FamilyOption {
   /** One sentence: better or worse than the current option, in today's money. */
   headline: string;
   better: boolean;
+  /** What the farm's kept risk run says about the change; null without a kept run. */
+  risk: string | null;
   /** Everyday consequences: hours a day, bedding a week, cash left after the loans each year. */
   dayToDay: string[];
 }
@@ -24,6 +26,8 @@ export interface FamilySummary {
   staying: string | null;
   options: FamilyOption[];
   drivers: string[];
+  /** Said once when no risk run is kept on this version; null when one is. */
+  riskNotRun: string | null;
 }
 
 const DAYS_PER_YEAR = 365;
@@ -37,15 +41,16 @@ export function cashLeftAfterLoans(results: ScenarioResults, option: OptionResul
   return (farm.cashForDebtServiceByYear[t] ?? 0) + change - (farm.debtPaymentsByYear[t] ?? 0) - loanPayment;
 }
 
+/** "2.0 hours a day more than today", "the same hours a day as today" (unit plural, e.g. "hours a day"). */
 function moreOrLess(value: number, f: ReadingFormat, digits: number, unit: string): string {
-  if (Math.abs(value) < 0.5 * 10 ** -digits) return `no change in ${unit}`;
-  return `${f.number(Math.abs(value), digits)} ${unit} ${value > 0 ? 'more' : 'less'}`;
+  if (Math.abs(value) < 0.5 * 10 ** -digits) return `the same ${unit} as today`;
+  return `${f.number(Math.abs(value), digits)} ${unit} ${value > 0 ? 'more' : 'less'} than today`;
 }
 
 function dayToDay(results: ScenarioResults, option: OptionResult, current: OptionResult, horizon: number, f: ReadingFormat): string[] {
   const hoursPerDay = ((option.labourHoursPerYear[1] ?? 0) - (current.labourHoursPerYear[1] ?? 0)) / DAYS_PER_YEAR;
   const beddingPerWeek = ((option.beddingTonnesPerYear[1] ?? 0) - (current.beddingTonnesPerYear[1] ?? 0)) / WEEKS_PER_YEAR;
-  const lines = [`Work: ${moreOrLess(hoursPerDay, f, 1, 'hours a day')} than today.`, `Bedding: ${moreOrLess(beddingPerWeek, f, 1, 'tonnes a week')} to buy and spread.`];
+  const lines = [`Work: ${moreOrLess(hoursPerDay, f, 1, 'hours a day')}.`, `Bedding to buy and spread: ${moreOrLess(beddingPerWeek, f, 1, 'tonnes a week')}.`];
   let lowest = { year: 1, cash: Number.POSITIVE_INFINITY };
   for (let t = 1; t <= horizon; t++) {
     const cash = cashLeftAfterLoans(results, option, current, t);
@@ -85,11 +90,27 @@ function drivers(scenario: Scenario, best: OptionResult | undefined, currentName
   return out;
 }
 
+/** The kept risk run on one option's change: how often it loses money and where the middle run ends. */
+function riskReading(risk: MonteCarloResult, optionId: string, currentName: string, f: ReadingFormat): string | null {
+  const change = risk.options.find((o) => o.optionId === optionId)?.incrementalNpv;
+  if (!change || change.probabilityNegative === null || change.p50 === null) return null;
+  const middle = change.p50 >= 0 ? `${f.money(change.p50)} better off` : `${f.money(-change.p50)} worse off`;
+  return `In the farm's risk run (${f.number(risk.drawsDone)} runs with prices, costs and yields varied) it leaves the family worse off than ${currentName} in ${f.percent(change.probabilityNegative)} of the runs; the middle run ends ${middle}.`;
+}
+
 /**
  * The summary; the options other than the current one ranked by the NPV of the change, best
- * first. `perKg` writes a milk price (money per kg, to the tenth of a cent).
+ * first. `perKg` writes a milk price (money per kg, to the tenth of a cent); `risk` is the run
+ * the farm kept on this version (null when none is kept or it is out of date).
  */
-export function familySummary(scenario: Scenario, results: ScenarioResults, sens: SensitivityResult | null, f: ReadingFormat, perKg: (price: number) => string): FamilySummary {
+export function familySummary(
+  scenario: Scenario,
+  results: ScenarioResults,
+  sens: SensitivityResult | null,
+  f: ReadingFormat,
+  perKg: (price: number) => string,
+  risk: MonteCarloResult | null = null,
+): FamilySummary {
   const current = results.options.find((o) => o.current) ?? results.options[0];
   const currentName = current?.name ?? 'the current option';
   const horizon = results.horizonYears;
@@ -105,6 +126,7 @@ export function familySummary(scenario: Scenario, results: ScenarioResults, sens
           headline: better
             ? `leaves the family ${f.money(npv)} better off than ${currentName} over ${horizon} years, in today's money.`
             : `leaves the family ${f.money(-npv)} worse off than ${currentName} over ${horizon} years, in today's money.`,
+          risk: risk ? riskReading(risk, o.id, currentName, f) : null,
           dayToDay: dayToDay(results, o, current, horizon, f),
         };
       })
@@ -118,5 +140,6 @@ export function familySummary(scenario: Scenario, results: ScenarioResults, sens
         : `Should the farm stay with ${currentName} or change to one of these ${ranked.length} options?`,
     options,
     drivers: drivers(scenario, ranked[0], currentName, sens, f, perKg),
+    riskNotRun: risk ? null : 'No risk run is kept on this version yet: how often each choice could lose money is not shown.',
   };
 }

@@ -68,10 +68,36 @@ describe('the family summary', () => {
     // (2190 − 1460) h ÷ 365 days = 2.0 h a day; (156 − 52) t ÷ 52 weeks = 2.0 t a week (by hand).
     expect(first?.dayToDay).toEqual([
       'Work: 2.0 hours a day more than today.',
-      'Bedding: 2.0 tonnes a week more to buy and spread.',
+      'Bedding to buy and spread: 2.0 tonnes a week more than today.',
       'Cash left for the farm after every loan payment: €95,000 in year 1; the tightest year is year 2 with €75,000.',
     ]);
     expect(summary.staying).toBe('Staying with grazing: €115,000 left for the farm after every loan payment in year 1.');
+    // Without a kept risk run the page says so once, and no option carries a risk sentence.
+    expect(first?.risk).toBeNull();
+    expect(summary.riskNotRun).toMatch(/No risk run is kept on this version/);
+  });
+
+  it('says the same hours as today when the work does not change', () => {
+    const same = option('same', { labourHoursPerYear: [0, 1460, 1460], beddingTonnesPerYear: [0, 52, 52], incremental: { npv: 1000 } as OptionResult['incremental'] });
+    const summary = familySummary(scenario, { ...results, options: [grazing, same] }, null, en, (v) => `€${v.toFixed(3)} a kg`);
+    expect(summary.options[0]?.dayToDay.slice(0, 2)).toEqual(['Work: the same hours a day as today.', 'Bedding to buy and spread: the same tonnes a week as today.']);
+  });
+
+  it('reads the kept risk run on the change: the chance of losing money and the middle run', () => {
+    // A kept run of 5 000 draws in which the barn's change loses money in 3 015 (60.3 %) and the P50 is −130 150.
+    const risk = {
+      seed: 1,
+      drawsRequested: 5000,
+      drawsDone: 5000,
+      cancelled: false,
+      coverageThreshold: 1.25,
+      options: [{ optionId: 'barn', incrementalNpv: { p10: -788585, p50: -130150, p90: 471000, probabilityNegative: 3015 / 5000 } }],
+    } as unknown as Parameters<typeof familySummary>[5];
+    const summary = familySummary(scenario, results, null, en, (v) => `€${v.toFixed(3)} a kg`, risk);
+    expect(summary.options[0]?.risk).toBe(
+      "In the farm's risk run (5,000 runs with prices, costs and yields varied) it leaves the family worse off than grazing in 60.3% of the runs; the middle run ends €130,150 worse off.",
+    );
+    expect(summary.riskNotRun).toBeNull();
   });
 
   it('names the inputs that move the answer most, with the milk break-evens as prices, not rounded money', () => {

@@ -219,7 +219,7 @@ describe('the core evaluation without the decision figures', () => {
 });
 
 describe('the stress shocks year by year (what the workbook discounts and divides)', () => {
-  it('give back every stress row: NPV of the change, lowest whole-farm coverage and years below the threshold', () => {
+  it('give back every stress row: NPV of the change, lowest whole-farm and project coverage and years below the threshold', () => {
     const scenario = scenarioSchema.parse(JSON.parse(readFileSync(new URL('../../../scenarios/cairnbrook-five-systems.json', import.meta.url), 'utf8')));
     const results = evaluateScenario(scenario);
     const years = evaluateStressYears(scenario);
@@ -237,6 +237,16 @@ describe('the stress shocks year by year (what the workbook discounts and divide
         const ratios = (detail?.wholeFarmCash ?? []).slice(1).map((cash, t) => cash / (detail?.wholeFarmDebt[t + 1] ?? NaN));
         expect(Math.min(...ratios)).toBeCloseTo(row.lowestCoverage ?? NaN, 12);
         expect(ratios.filter((r) => r < coverageThreshold)).toHaveLength(row.yearsBelowThreshold);
+        // Project coverage: the change in whole-farm cash over the change in whole-farm debt service
+        // against the current option under the same shock (the existing farm cancels), as the workbook divides.
+        const current = years[results.options.findIndex((o) => o.current)]?.[k];
+        if (!option.current && current && detail) {
+          const project = detail.wholeFarmCash.slice(1).map((cash, t) => {
+            const due = (detail.wholeFarmDebt[t + 1] ?? 0) - (current.wholeFarmDebt[t + 1] ?? 0);
+            return (cash - (current.wholeFarmCash[t + 1] ?? 0)) / due;
+          });
+          expect(Math.min(...project)).toBeCloseTo(row.lowestProjectCoverage ?? NaN, 9);
+        }
         checked += 1;
       });
     });

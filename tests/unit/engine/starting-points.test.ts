@@ -105,6 +105,10 @@ describe('starting points', () => {
     expect(copy.energyLines.every((line) => line.id.startsWith('sand-2.'))).toBe(true);
     expect(copy.sources['capitalLines.sand-2.shell.unitCost']).toEqual(sand.sources['capitalLines.sand.shell.unitCost']);
     expect(copy.sources['capitalLines.sand.shell.unitCost']).toBeUndefined();
+    // The line's own tag (its quantity, life and tax class) follows the line as well.
+    expect(sand.sources['capitalLines.sand.shell']?.note).toMatch(/economic life and tax life/);
+    expect(copy.sources['capitalLines.sand-2.shell']).toEqual(sand.sources['capitalLines.sand.shell']);
+    expect(copy.sources['capitalLines.sand.shell']).toBeUndefined();
     // The ids stay within the schema's 60 characters, the option part shortened.
     expect(scopedLineId('x'.repeat(60), 'shell')).toHaveLength(60);
     expect(scopedLineId('x'.repeat(60), 'shell').endsWith('.shell')).toBe(true);
