@@ -153,7 +153,7 @@ describe('hostile input', () => {
     await tablesIntact();
   });
 
-  it('refuses an oversized JSON body with 413 on the routes of this issue', async () => {
+  it('refuses an oversized JSON body with 413 on the routes that take a body', async () => {
     // docs/product.md (Accounts): oversized JSON body refused with 413 (RFC 9110 §15.5.14 Content Too Large).
     const big = JSON.stringify({ name: 'y'.repeat(2 * 1024 * 1024) });
     for (const path of ['/api/auth/sign-up', '/api/auth/password-reset/request', `/api/farms/${farmId}/invitations`, '/api/farms']) {

@@ -71,7 +71,7 @@ afterAll(async () => {
 });
 
 describe('permission matrix', () => {
-  it('covers the farm routes of this issue and names only permissions from the table', () => {
+  it('covers every farm route and names only permissions from the table', () => {
     // docs/product.md (Accounts): the matrix is generated from the permission table, so a new route cannot be forgotten.
     const paths = routes.map((r) => `${r.method} ${r.path}`);
     expect(paths).toContain('get /api/farms/:farmId');
