@@ -8,6 +8,7 @@
 import type { JsonText, ResultsDetailView, ScenarioListItem, ScenarioMeta, ScenarioView, VersionComparison, VersionListItem, VersionView } from '../../shared/responses.js';
 import type { z } from 'zod';
 import { evaluateScenario, type ScenarioResultsSummary, type ScenarioResults, resultsCacheKey } from '../../shared/engine/index.js';
+import { candidatesByChange } from '../../shared/candidates.js';
 import { diffScenarios, type Json } from '../../shared/scenario-diff.js';
 import type { createScenarioBodySchema } from '../../shared/schema/requests.js';
 import { DEFAULT_FINANCE, herdSchema, scenarioSchema, type Scenario, type ScenarioInput } from '../../shared/schema/index.js';
@@ -67,12 +68,8 @@ function assertVersionVisible(access: Access, scenarioId: number, version: numbe
  * option's own whole-herd flows, which rank barns by the herd's margin rather than by what building changes.
  */
 export function summarise(results: { options: readonly { id: string; name: string; incremental: { npv: number } | null }[] }): ScenarioSummary {
-  let best: ScenarioSummary['best'] = null;
-  for (const option of results.options) {
-    if (option.incremental === null) continue;
-    const npv = option.incremental.npv;
-    if (best === null || npv > best.npv) best = { optionId: option.id, name: option.name, npv };
-  }
+  const first = candidatesByChange(results.options)[0];
+  const best = first ? { optionId: first.id, name: first.name, npv: first.incremental.npv } : null;
   return { optionCount: results.options.length, best };
 }
 

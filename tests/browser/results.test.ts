@@ -120,8 +120,15 @@ describe('results and comparison in Chromium', () => {
     await expectNoBrokenNumbers(page);
     await harness.screenshot(page, 'compare-desktop');
 
-    // The current option is marked.
-    await expect.poll(() => table.locator('th[data-option-id="grazing"]').innerText()).toContain('current');
+    // The current option is the reference the others are measured against, not a candidate: marked, never ranked (docs/product.md glossary).
+    const reference = table.locator('th[data-option-id="grazing"]');
+    await expect.poll(() => reference.innerText()).toContain('current option');
+    expect(await reference.locator('.rank').innerText()).toBe('reference');
+    expect(await reference.innerText()).not.toMatch(/#\d/);
+    // The candidates are ranked 1, 2, … by the NPV of their change, best first, as the farm page names the best.
+    const candidates = engine.options.filter((o) => !o.current);
+    const ranks = await table.locator('thead th[data-option-id] .rank').evaluateAll((cells) => cells.map((c) => c.textContent?.trim()));
+    expect(ranks).toEqual(['reference', ...candidates.map((_, i) => `#${i + 1}`)]);
     await context.close();
   });
 
@@ -136,12 +143,13 @@ describe('results and comparison in Chromium', () => {
     await page.getByRole('option', { name: 'Capital per stall' }).click();
     const measure = measureByKey('capitalPerStall');
     const order = await table.locator('thead th[data-option-id]').evaluateAll((cells) => cells.map((c) => c.getAttribute('data-option-id')));
-    const expected = [...engine.options]
-      .filter((o) => measure.value(o) !== null)
+    const expected = engine.options
+      .filter((o) => !o.current && measure.value(o) !== null)
       .sort((a, b) => (measure.value(a) ?? 0) - (measure.value(b) ?? 0))
       .map((o) => o.id);
-    // Lower capital per stall ranks first (common practice, no source); options without stalls go last.
-    expect(order.slice(0, expected.length)).toEqual(expected);
+    // The current option stays first as the reference; lower capital per stall ranks first (common practice, no source); options without stalls go last.
+    expect(order[0]).toBe(engine.currentOptionId);
+    expect(order.slice(1, 1 + expected.length)).toEqual(expected);
     await context.close();
   });
 

@@ -1,8 +1,10 @@
 /**
- * The comparison's measures and the ranking of options by one of them. Pure: takes the engine's
- * OptionSummary values as they are; a measure an option lacks (null) ranks after every option
- * that has it, ties keep the scenario's option order.
+ * The comparison's measures and the ranking of the candidates by one of them. Pure: takes the
+ * engine's OptionSummary values as they are; the current option is the reference, not ranked; a
+ * measure a candidate lacks (null) ranks after every candidate that has it, ties keep the
+ * scenario's option order.
  */
+import { isCandidate } from '@shared/candidates';
 import type { OptionSummary } from '@shared/engine';
 
 export type MeasureKind = 'money' | 'percent' | 'years' | 'ratio' | 'hours' | 'tonnes';
@@ -84,17 +86,19 @@ export function measureByKey(key: string): Measure {
 
 export interface RankedOption {
   option: OptionSummary;
-  /** 1 = best; options with the same value share a rank; null when the option lacks the measure. */
+  /** 1 = best; candidates with the same value share a rank; null for the current option (the reference) or when the option lacks the measure. */
   rank: number | null;
   value: number | null;
 }
 
 /**
- * Options ordered best first by `measure` (direction from the measure), options without a
- * value last; equal values share a rank (competition ranking, 1-2-2-4), ties in scenario order.
+ * The current option first, as the reference and without a rank (shared/candidates.ts), then the
+ * candidates best first by `measure` (direction from the measure), those without a value last;
+ * equal values share a rank (competition ranking, 1-2-2-4), ties in scenario order.
  */
 export function rankOptions(options: readonly OptionSummary[], measure: Measure): RankedOption[] {
-  const entries = options.map((option, index) => ({ option, index, value: measure.value(option) }));
+  const references = options.filter((option) => !isCandidate(option)).map((option) => ({ option, rank: null, value: measure.value(option) }));
+  const entries = options.filter(isCandidate).map((option, index) => ({ option, index, value: measure.value(option) }));
   const sign = measure.higherIsBetter ? -1 : 1;
   entries.sort((a, b) => {
     if (a.value === null || b.value === null) return a.value === null ? (b.value === null ? a.index - b.index : 1) : -1;
@@ -107,5 +111,5 @@ export function rankOptions(options: readonly OptionSummary[], measure: Measure)
     if (entry.value !== null) rank = previous && previous.value === entry.value ? (previous.rank ?? position + 1) : position + 1;
     ranked.push({ option: entry.option, rank, value: entry.value });
   });
-  return ranked;
+  return [...references, ...ranked];
 }

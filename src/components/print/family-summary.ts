@@ -5,6 +5,7 @@
  */
 import type { MonteCarloResult, OptionResult, ScenarioResults, SensitivityResult } from '@shared/engine';
 import type { Scenario } from '@shared/schema';
+import { candidatesByChange } from '@shared/candidates';
 import type { ReadingFormat } from '@/components/results/readings';
 import { RISK_INPUT_LABELS } from '@/components/risk/risk-labels';
 
@@ -114,10 +115,10 @@ export function familySummary(
   const current = results.options.find((o) => o.current) ?? results.options[0];
   const currentName = current?.name ?? 'the current option';
   const horizon = results.horizonYears;
-  const ranked = results.options.filter((o) => !o.current && o.incremental).sort((a, b) => (b.incremental?.npv ?? 0) - (a.incremental?.npv ?? 0));
+  const ranked = candidatesByChange(results.options);
   const options = current
     ? ranked.map((o): FamilyOption => {
-        const npv = o.incremental?.npv ?? 0;
+        const npv = o.incremental.npv;
         const better = npv >= 0;
         return {
           id: o.id,

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { OptionResult } from '../../../shared/engine/results';
+import { candidatesByChange } from '../../../shared/candidates';
 import { MEASURES, measureByKey, rankOptions } from '../../../src/components/compare/ranking';
 
 /** Only the fields the measures read; the rest of OptionResult does not matter to ranking. */
@@ -66,5 +67,18 @@ describe('ranking options by a measure', () => {
     const options = [barn('a', null, 1.4), barn('b', 12, 0.9), barn('c', 8, 1.1)];
     expect(rankOptions(options, measureByKey('paybackFromOperationsYears')).map((r) => r.option.id)).toEqual(['c', 'b', 'a']);
     expect(rankOptions(options, measureByKey('stressedCoverage')).map((r) => r.option.id)).toEqual(['a', 'c', 'b']);
+  });
+
+  it('keeps the current option first as the reference, unranked, even where its own figure is the best', () => {
+    // The current option is the yardstick, not a candidate (docs/product.md glossary, docs/model.md).
+    const change = (npv: number) => ({ incremental: { npv, cashFlows: [-1, 1] } }) as Partial<OptionResult>;
+    const options = [option('barn', { npv: 40, ...change(-3) }), option('today', { current: true, npv: 90, incremental: null }), option('robot', { npv: 20, ...change(5) })];
+    const byOwnNpv = rankOptions(options, measureByKey('npv'));
+    expect(byOwnNpv.map((r) => [r.option.id, r.rank])).toEqual([['today', null], ['barn', 1], ['robot', 2]]);
+    const byChange = rankOptions(options, measureByKey('incrementalNpv'));
+    expect(byChange.map((r) => [r.option.id, r.rank])).toEqual([['today', null], ['robot', 1], ['barn', 2]]);
+    // The same rule names the best candidate on the farm page: the least bad change when none pays.
+    expect(candidatesByChange(options).map((o) => o.id)).toEqual(['robot', 'barn']);
+    expect(candidatesByChange([options[0]!, options[1]!])[0]?.id).toBe('barn');
   });
 });
