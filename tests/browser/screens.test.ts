@@ -134,6 +134,29 @@ describe('the screens a family and a bank read', () => {
       expect(box.left).toBeGreaterThanOrEqual(0);
       expect(box.right).toBeLessThanOrEqual(PHONE.width);
     }
+
+    // The scenario's long name wraps in its box instead of being cut, on one or more whole lines.
+    const name = page.locator('#scenario-name');
+    const fit = await name.evaluate((box) => ({ width: box.scrollWidth - box.clientWidth, height: box.scrollHeight - box.clientHeight, lines: Math.round(box.clientHeight / parseFloat(getComputedStyle(box).lineHeight)) }));
+    expect(fit.width).toBeLessThanOrEqual(0);
+    expect(fit.height).toBeLessThanOrEqual(1);
+    expect(fit.lines).toBeGreaterThan(1);
+    // The breadcrumb wraps after a separator, never with one leading a line: each sits on the line of the item it follows.
+    const separators = await page.getByRole('navigation', { name: 'Breadcrumb' }).locator('li').evaluateAll((items) =>
+      items.flatMap((item) => {
+        const separator = item.querySelector('.separator');
+        const label = item.firstElementChild;
+        if (!separator || !label) return [];
+        const lastLine = [...label.getClientRects()].at(-1);
+        return [{ gap: Math.abs(separator.getBoundingClientRect().bottom - (lastLine?.bottom ?? 0)), beforeContent: getComputedStyle(item, '::before').content }];
+      }),
+    );
+    expect(separators.length).toBe(2);
+    for (const separator of separators) {
+      expect(separator.gap).toBeLessThan(2);
+      expect(separator.beforeContent).toBe('none');
+    }
+    await harness.screenshot(page, 'phone-scenario-title');
     await context.close();
   });
 
