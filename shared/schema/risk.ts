@@ -53,7 +53,12 @@ const sensitivitySchema = z
     healthCostPerCase: rangeSchema('Health cost per case').prefault({}),
     manureHandlingCost: rangeSchema('Manure handling cost').prefault({}),
     milkFeedGrowthGap: rangeSchema('Milk growth against feed (0.2 = 1 point a year faster)').prefault({}),
-    lyingHours: rangeSchema('Lying-time gain over the current option').prefault({}),
+    // Kept so stored scenarios still read; see the description for why neither run reads it.
+    lyingHours: rangeSchema('Lying-time gain over the current option')
+      .describe(
+        'Lying-time gain over the current option: not used by the one-at-a-time sensitivity, which shows the lying-time milk once as the milk response to lying time (shared/schema/risk-keys.ts); the Monte Carlo draws the gain from its own distribution (risk.monteCarlo.inputs). Kept so stored scenarios still read.',
+      )
+      .prefault({}),
   } satisfies Record<RiskInputKey, unknown>)
   .describe('Low/high change per key input (fractions of the base value)');
 

@@ -8,7 +8,8 @@ import { readFileSync } from 'node:fs';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runMonteCarlo } from '../../shared/engine/risk/monte-carlo.js';
-import { scenarioSchema } from '../../shared/schema/index.js';
+import { RISK_INPUT_LABELS, scenarioSchema } from '../../shared/schema/index.js';
+import { sensitivityInputKeys } from '../../shared/schema/risk-keys.js';
 import { signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser.js';
 
 const SCENARIO_FILE = 'scenarios/cairnbrook-five-systems.json';
@@ -120,6 +121,13 @@ describe('risk screen in Chromium', () => {
     await page.waitForTimeout(300);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(820);
     expect(await page.locator('main').innerText()).not.toMatch(/NaN|Infinity|undefined/);
+    // The sensitivity lists the lying-time milk once, as the response (docs/model.md, Risk): no range to edit for the gain.
+    const table = page.getByTestId('sensitivity-table');
+    const rows = await table.locator('tbody th[scope="row"]').allInnerTexts();
+    expect([...rows].sort()).toEqual(sensitivityInputKeys.map((key) => RISK_INPUT_LABELS[key]).sort());
+    expect(rows).not.toContain(RISK_INPUT_LABELS.lyingHours);
+    expect(await table.getByRole('spinbutton', { name: new RegExp(`^${RISK_INPUT_LABELS.lyingHours}`) }).count()).toBe(0);
+    expect(await table.locator('input').count()).toBe(2 * sensitivityInputKeys.length);
     await harness.screenshot(page, 'risk-tablet');
     await context.close();
   });
