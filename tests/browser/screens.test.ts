@@ -143,7 +143,7 @@ describe('the screens a family and a bank read', () => {
         width: box.scrollWidth - box.clientWidth,
         // Only the box's bottom padding may lie below its visible part, never a line of the name.
         hidden: box.scrollHeight - box.clientHeight - parseFloat(style.paddingBottom),
-        lines: Math.floor((box.clientHeight - parseFloat(style.paddingTop) - parseFloat(style.paddingBottom) + 1) / parseFloat(style.lineHeight)),
+        lines: Math.round((box.clientHeight - parseFloat(style.paddingTop) - parseFloat(style.paddingBottom)) / parseFloat(style.lineHeight)),
       };
     });
     expect(fit.width).toBeLessThanOrEqual(0);
