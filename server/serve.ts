@@ -5,7 +5,7 @@ import { createApp } from './app.js';
 import { loadConfig, type AppConfig } from './config.js';
 import { openDatabase } from './db/client.js';
 import { migrateDatabase } from './db/migrate.js';
-import { seedDemoData, type SeedResult } from './db/seed.js';
+import { seedDemoData, type SeedResult } from './demo/seed.js';
 import { createLogger } from './logger.js';
 import { createMailer } from './mail/index.js';
 

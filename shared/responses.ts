@@ -97,7 +97,7 @@ export interface ScenarioListItem {
   status: ScenarioStatus;
   version: number;
   optionCount: number;
-  /** Best option by NPV at the last save; null when nothing could be evaluated. */
+  /** Best candidate by the NPV of its change against the current option at the last save (negative when none pays); null with no candidate. */
   best: { optionId: string; name: string; npv: number } | null;
   updatedAt: string;
   updatedBy: string | null;

@@ -8,6 +8,7 @@ import type { Database } from '../db/client.js';
 import type { FarmRole } from '../db/schema/index.js';
 import { findMembership, findUserById, findUserWithMembership, type User } from '../db/repositories/users.js';
 import { forbidden, notFound, unauthorized } from '../errors.js';
+import { idParam } from '../http/params.js';
 import { roleAllows, type Permission } from './permissions.js';
 import { clearSession, issueSession, readSession, SESSION_LIFETIME_SECONDS } from './session.js';
 
@@ -69,9 +70,8 @@ export const requireAdmin: RequestHandler = (req, _res, next) => {
 export function authorizeFarm(db: Database, permission: Permission): RequestHandler {
   return async (req, _res, next) => {
     const user = requireUser(req);
-    const farmId = Number(req.params.farmId);
+    const farmId = idParam(req, 'farmId', 'Farm id');
     // A farm the caller does not belong to is "not found", so ids reveal nothing.
-    if (!Number.isInteger(farmId) || farmId <= 0) throw notFound('Farm not found');
     const known = req.sessionMembership;
     const role = known?.farmId === farmId ? known.role : await findMembership(db, farmId, user.id);
     if (!role) throw notFound('Farm not found');

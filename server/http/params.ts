@@ -1,10 +1,11 @@
 /**
- * What every farm route reads from the request the same way: id path parameters (a value that is
- * not a positive whole number is bad input: 400 naming the parameter, on every route alike) and
- * the actor (who is asking, on which farm).
+ * What every route reads from the request the same way. Id path parameters: a value that is not
+ * a positive whole number is bad input, 400 `invalid_input` naming the parameter, on every route
+ * alike (:farmId too), and it is read before the body; a well-formed id of a row the caller may
+ * not see is 404. The actor: who is asking, on which farm.
  */
 import type { Request } from 'express';
-import { idParamSchema } from '../../shared/scenario-api.js';
+import { idParamSchema } from '../../shared/schema/requests.js';
 import { farmAccess, requireUser } from '../auth/middleware.js';
 import { AppError } from '../errors.js';
 import type { Actor } from '../services/access.js';
@@ -20,5 +21,6 @@ export function idParam(req: Request, name: string, label: string): number {
 /** Who is asking, on which farm, with their role there. */
 export function actorOf(req: Request): Actor {
   const { farmId, role } = farmAccess(req);
-  return { farmId, role, userId: requireUser(req).id };
+  const user = requireUser(req);
+  return { farmId, role, userId: user.id, name: user.name };
 }

@@ -3,7 +3,8 @@ import { Router } from 'express';
 import { adminUpdateUserSchema } from '../../shared/schema/accounts.js';
 import type { AppDeps } from '../app.js';
 import { requireAdmin, requireUser } from '../auth/middleware.js';
-import { notFound, parseOrThrow } from '../errors.js';
+import { parseOrThrow } from '../errors.js';
+import { idParam } from '../http/params.js';
 import { listAccounts, setAccountDisabled } from '../services/accounts.js';
 
 export function adminRoutes({ db }: AppDeps): Router {
@@ -16,8 +17,7 @@ export function adminRoutes({ db }: AppDeps): Router {
   });
 
   router.patch('/users/:userId', async (req, res) => {
-    const userId = Number(req.params.userId);
-    if (!Number.isInteger(userId) || userId <= 0) throw notFound('Account not found');
+    const userId = idParam(req, 'userId', 'User id');
     const { disabled } = parseOrThrow(adminUpdateUserSchema, req.body);
     const user = await setAccountDisabled(db, requireUser(req), userId, disabled);
     res.json({ id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin, disabled: user.disabled });

@@ -80,8 +80,9 @@ export function documentRoutes({ db, config }: AppDeps): Router {
   });
 
   route('patch', '/documents/:documentId', 'document:write', async (req, res) => {
+    const documentId = idParam(req, 'documentId', 'Document id');
     const { quoteAmount } = parseOrThrow(documentPatchSchema, req.body);
-    res.json(await setQuoteAmount(db, actorOf(req), idParam(req, 'documentId', 'Document id'), quoteAmount));
+    res.json(await setQuoteAmount(db, actorOf(req), documentId, quoteAmount));
   });
 
   route('delete', '/documents/:documentId', 'document:write', async (req, res) => {

@@ -3,51 +3,43 @@
  * lender workbook download) under /api/farms/:farmId, and the link side under
  * /api/lender-shares/:token, open to anyone holding the link.
  */
-import { Router, type Request } from 'express';
-import { z } from 'zod';
-import { acceptInvitationSchema, emailTokenSchema } from '../../shared/schema/accounts.js';
+import { Router } from 'express';
+import { acceptInvitationSchema } from '../../shared/schema/accounts.js';
 import { createShareSchema } from '../../shared/schema/lender.js';
-import { idParamSchema } from '../../shared/scenario-api.js';
+import { shareFilterQuerySchema, tokenParamsSchema } from '../../shared/schema/requests.js';
 import type { AppDeps } from '../app.js';
-import { idParam } from '../http/params.js';
-import { farmAccess, farmRouter, requireUser } from '../auth/middleware.js';
+import { actorOf, idParam } from '../http/params.js';
+import { farmAccess, farmRouter } from '../auth/middleware.js';
 import { issueSession } from '../auth/session.js';
 import { parseOrThrow } from '../errors.js';
-import { acceptShare, createShare, farmShares, mySharesOnFarm, previewShare, revokeFarmShare, type FarmActor } from '../services/lender-shares.js';
+import { acceptShare, createShare, farmShares, mySharesOnFarm, previewShare, revokeFarmShare } from '../services/lender-shares.js';
 import { lenderWorkbook } from '../services/lender-workbook.js';
 import { sessionOf } from '../services/session.js';
-
-const tokenParams = z.object({ token: emailTokenSchema });
-const scenarioFilter = z.object({ scenarioId: idParamSchema('Scenario id').optional() });
-
-export function farmActor(req: Request): FarmActor {
-  return { farmId: farmAccess(req).farmId, user: requireUser(req) };
-}
 
 export function lenderShareRoutes({ db, mailer, config }: AppDeps): Router {
   const { router, route } = farmRouter(db);
   const ctx = { db, mailer, appOrigin: config.appOrigin };
 
   route('get', '/lender-shares', 'scenario:share', async (req, res) => {
-    const { scenarioId } = parseOrThrow(scenarioFilter, req.query);
+    const { scenarioId } = parseOrThrow(shareFilterQuerySchema, req.query);
     res.json(await farmShares(db, farmAccess(req).farmId, scenarioId));
   });
   // Declared before /lender-shares/:shareId routes so "mine" is not read as an id.
   route('get', '/lender-shares/mine', 'review:write', async (req, res) => {
-    res.json(await mySharesOnFarm(db, farmAccess(req).farmId, requireUser(req).id));
+    const actor = actorOf(req);
+    res.json(await mySharesOnFarm(db, actor.farmId, actor.userId));
   });
   route('post', '/scenarios/:scenarioId/lender-shares', 'scenario:share', async (req, res) => {
     const scenarioId = idParam(req, 'scenarioId', 'Scenario id');
     const input = parseOrThrow(createShareSchema, req.body);
-    res.status(201).json(await createShare(ctx, farmActor(req), scenarioId, input));
+    res.status(201).json(await createShare(ctx, actorOf(req), scenarioId, input));
   });
   route('post', '/lender-shares/:shareId/revoke', 'scenario:share', async (req, res) => {
-    res.json(await revokeFarmShare(db, farmActor(req), idParam(req, 'shareId', 'Share id')));
+    res.json(await revokeFarmShare(db, actorOf(req), idParam(req, 'shareId', 'Share id')));
   });
   route('get', '/scenarios/:scenarioId/workbook.xlsx', 'scenario:read', async (req, res) => {
     const scenarioId = idParam(req, 'scenarioId', 'Scenario id');
-    const { role } = farmAccess(req);
-    const { fileName, workbook } = await lenderWorkbook(db, { ...farmActor(req), role }, scenarioId);
+    const { fileName, workbook } = await lenderWorkbook(db, actorOf(req), scenarioId);
     res.attachment(fileName).type('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
     await workbook.xlsx.write(res);
     res.end();
@@ -61,12 +53,12 @@ export function lenderShareLinkRoutes({ db, config }: AppDeps): Router {
   const router = Router();
 
   router.get('/:token', async (req, res) => {
-    const { token } = parseOrThrow(tokenParams, req.params);
+    const { token } = parseOrThrow(tokenParamsSchema, req.params);
     res.json(await previewShare(db, token));
   });
 
   router.post('/:token/accept', async (req, res) => {
-    const { token } = parseOrThrow(tokenParams, req.params);
+    const { token } = parseOrThrow(tokenParamsSchema, req.params);
     const input = parseOrThrow(acceptInvitationSchema, req.body);
     const accepted = await acceptShare(db, token, req.user ?? null, input, config.bcryptCost);
     if (accepted.created) issueSession(res, req, config.jwtSecret, accepted.user.id, accepted.user.tokenVersion);

@@ -1,20 +1,15 @@
 /** /api/farms/:farmId/baseline and /api/farms/:farmId/scenarios/…: parse → service → respond. */
 import type { Request, Router } from 'express';
 import {
-  addOptionBodySchema,
   baselineBodySchema,
   compareQuerySchema,
   createScenarioBodySchema,
-  duplicateOptionBodySchema,
   duplicateScenarioBodySchema,
   importScenarioBodySchema,
-  optionChangeBodySchema,
-  reorderOptionsBodySchema,
   restoreVersionBodySchema,
   resultsDetailQuerySchema,
   saveScenarioBodySchema,
-  versionQuerySchema,
-} from '../../shared/scenario-api.js';
+} from '../../shared/schema/requests.js';
 import type { AppDeps } from '../app.js';
 import { sendJsonText } from '../http/json-text.js';
 import { actorOf, idParam } from '../http/params.js';
@@ -25,7 +20,6 @@ import * as scenarios from '../services/scenarios.js';
 
 const scenarioIdOf = (req: Request) => idParam(req, 'scenarioId', 'Scenario id');
 const versionOf = (req: Request) => idParam(req, 'version', 'Version');
-const optionIdOf = (req: Request) => String(req.params.optionId);
 
 export function scenarioRoutes({ db }: AppDeps): Router {
   const { router, route } = farmRouter(db);
@@ -82,33 +76,6 @@ export function scenarioRoutes({ db }: AppDeps): Router {
   route('get', '/scenarios/:scenarioId/export.json', 'scenario:read', async (req, res) => {
     const { fileName, document } = await scenarios.exportScenario(db, actorOf(req), scenarioIdOf(req));
     res.attachment(fileName).type('application/json').send(`${JSON.stringify(document, null, 2)}\n`);
-  });
-
-  route('post', '/scenarios/:scenarioId/options', 'scenario:write', async (req, res) => {
-    const id = scenarioIdOf(req);
-    const input = parseOrThrow(addOptionBodySchema, req.body);
-    sendJsonText(req, res, await scenarios.addOption(db, actorOf(req), id, input.version, input.startingPoint, input.name));
-  });
-  route('post', '/scenarios/:scenarioId/options/reorder', 'scenario:write', async (req, res) => {
-    const id = scenarioIdOf(req);
-    const input = parseOrThrow(reorderOptionsBodySchema, req.body);
-    sendJsonText(req, res, await scenarios.reorderOptions(db, actorOf(req), id, input.version, input.order));
-  });
-  route('post', '/scenarios/:scenarioId/options/:optionId/duplicate', 'scenario:write', async (req, res) => {
-    const id = scenarioIdOf(req);
-    const input = parseOrThrow(duplicateOptionBodySchema, req.body);
-    sendJsonText(req, res, await scenarios.duplicateOption(db, actorOf(req), id, input.version, optionIdOf(req), input.name));
-  });
-  route('post', '/scenarios/:scenarioId/options/:optionId/current', 'scenario:write', async (req, res) => {
-    const id = scenarioIdOf(req);
-    const input = parseOrThrow(optionChangeBodySchema, req.body);
-    sendJsonText(req, res, await scenarios.markCurrent(db, actorOf(req), id, input.version, optionIdOf(req)));
-  });
-  route('delete', '/scenarios/:scenarioId/options/:optionId', 'scenario:write', async (req, res) => {
-    const id = scenarioIdOf(req);
-    // DELETE carries no body: the version it is based on comes as ?version=.
-    const input = parseOrThrow(versionQuerySchema, req.query);
-    sendJsonText(req, res, await scenarios.deleteOption(db, actorOf(req), id, input.version, optionIdOf(req)));
   });
 
   route('get', '/scenarios/:scenarioId/versions', 'scenario:read', async (req, res) => {

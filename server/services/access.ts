@@ -7,14 +7,16 @@
  */
 import type { FarmRole } from '../../shared/schema/accounts.js';
 import type { Executor } from '../db/repositories/farms.js';
+import { findScenarioHead } from '../db/repositories/scenarios.js';
 import { notFound } from '../errors.js';
 import { lenderGrants } from './lender-access.js';
 
-/** Who is asking, on which farm. */
+/** Who is asking (id and name, for audit entries and mails), on which farm, in which role. */
 export interface Actor {
   farmId: number;
   role: FarmRole;
   userId: number;
+  name: string;
 }
 
 /** What one caller may see: everything (grants null), or a lender's shared scenarios → versions, highest first. */
@@ -53,4 +55,15 @@ export function canSeeDocument(access: Access, document: { scenarioId: number | 
 /** 404 (as for a scenario that does not exist) unless the caller may see it. */
 export function assertScenarioVisible(access: Access, scenarioId: number): void {
   if (!canSeeScenario(access, scenarioId)) throw notFound('Scenario not found');
+}
+
+/**
+ * The caller's access, after a 404 unless the scenario is on the caller's farm and they may see it:
+ * what every route under /scenarios/:scenarioId answers alike, whatever it reads next.
+ */
+export async function accessToScenario(db: Executor, actor: Actor, scenarioId: number, now = new Date()): Promise<Access> {
+  const access = await accessOf(db, actor, now);
+  assertScenarioVisible(access, scenarioId);
+  if (!(await findScenarioHead(db, actor.farmId, scenarioId))) throw notFound('Scenario not found');
+  return access;
 }

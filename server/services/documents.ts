@@ -25,7 +25,7 @@ import {
 import { findScenario } from '../db/repositories/scenarios.js';
 import { AppError, notFound } from '../errors.js';
 import { StoredFileMissingError, type FileStorage } from '../storage/index.js';
-import { accessOf, assertScenarioVisible, canSeeDocument, type Actor } from './access.js';
+import { accessOf, accessToScenario, canSeeDocument, type Actor } from './access.js';
 
 /** Who is asking, on which farm. */
 export type DocumentActor = Actor;
@@ -175,9 +175,7 @@ export async function setQuoteAmount(db: Database, actor: DocumentActor, documen
  * amounts entered. Lines missing from the answer have no document (they are estimates).
  */
 export async function scenarioQuotes(db: Database, actor: DocumentActor, scenarioId: number): Promise<CapitalLineQuotes[]> {
-  const access = await accessOf(db, actor);
-  assertScenarioVisible(access, scenarioId);
-  if (!(await findScenario(db, actor.farmId, scenarioId))) throw notFound('Scenario not found');
+  const access = await accessToScenario(db, actor, scenarioId);
   const documents = (await listCapitalLineDocuments(db, actor.farmId, scenarioId)).filter((d) => canSeeDocument(access, d));
   const byLine = new Map<string, DocumentRecord[]>();
   for (const d of documents) {

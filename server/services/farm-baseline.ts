@@ -1,6 +1,6 @@
 /** The farm baseline: the herd and markets new scenarios start from, and how the farm shows figures. */
 import type { z } from 'zod';
-import type { baselineBodySchema } from '../../shared/scenario-api.js';
+import type { baselineBodySchema } from '../../shared/schema/requests.js';
 import { herdSchema } from '../../shared/schema/index.js';
 import type { FarmBaseline } from '../../shared/responses.js';
 import type { Database } from '../db/client.js';

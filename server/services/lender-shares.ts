@@ -21,18 +21,13 @@ import { lenderShareMail } from '../mail/lender-templates.js';
 import type { Mailer } from '../mail/mailer.js';
 import { recordAudit } from './audit.js';
 import { liveSharesOf, shareState } from './lender-access.js';
+import type { Actor } from './access.js';
 import { assertAddressee, insertedUser, invalidLink, prepareLinkAccount } from './link-accounts.js';
 
 export interface LenderContext {
   db: Database;
   mailer: Mailer;
   appOrigin: string;
-}
-
-/** A member acting on the farm (the caller of a farm route). */
-export interface FarmActor {
-  farmId: number;
-  user: User;
 }
 
 export type { ShareView };
@@ -77,7 +72,7 @@ export function shareSubject(share: Pick<ShareRecord, 'scenarioName' | 'version'
  */
 export async function createShare(
   ctx: LenderContext,
-  actor: FarmActor,
+  actor: Actor,
   scenarioId: number,
   input: z.output<typeof createShareSchema>,
   now = new Date(),
@@ -101,8 +96,8 @@ export async function createShare(
   if (!farm) throw notFound('Farm not found');
   const { token, hash } = newEmailToken();
   const id = await ctx.db.transaction(async (tx) => {
-    const shareId = await insertShare(tx, { farmId: actor.farmId, scenarioId, version, lenderEmail: input.email, tokenHash: hash, expiresOn: input.expiresOn, createdBy: actor.user.id });
-    await recordAudit(tx, { farmId: actor.farmId, userId: actor.user.id, name: actor.user.name }, 'share.created', shareSubject({ scenarioName: scenario.name, version, lenderEmail: input.email }), {
+    const shareId = await insertShare(tx, { farmId: actor.farmId, scenarioId, version, lenderEmail: input.email, tokenHash: hash, expiresOn: input.expiresOn, createdBy: actor.userId });
+    await recordAudit(tx, { farmId: actor.farmId, userId: actor.userId, name: actor.name }, 'share.created', shareSubject({ scenarioName: scenario.name, version, lenderEmail: input.email }), {
       shareId,
       scenarioId,
       version,
@@ -117,7 +112,7 @@ export async function createShare(
       farmName: farm.name,
       scenarioName: scenario.name,
       version,
-      sharerName: actor.user.name,
+      sharerName: actor.name,
       expiresOn: input.expiresOn,
       ...(input.message ? { message: input.message } : {}),
       link: shareLink(ctx.appOrigin, token),
@@ -139,12 +134,12 @@ export async function mySharesOnFarm(db: Database, farmId: number, userId: numbe
 }
 
 /** Revokes a share: the lender's next request no longer sees the version. */
-export async function revokeFarmShare(db: Database, actor: FarmActor, shareId: number, now = new Date()): Promise<ShareView> {
+export async function revokeFarmShare(db: Database, actor: Actor, shareId: number, now = new Date()): Promise<ShareView> {
   const share = await findShare(db, actor.farmId, shareId);
   if (!share) throw notFound('Share not found');
   await db.transaction(async (tx) => {
     if (!(await revokeShare(tx, shareId, now))) throw new AppError(409, 'already_revoked', 'This share was already revoked');
-    await recordAudit(tx, { farmId: actor.farmId, userId: actor.user.id, name: actor.user.name }, 'share.revoked', shareSubject(share), { shareId, scenarioId: share.scenarioId, version: share.version });
+    await recordAudit(tx, { farmId: actor.farmId, userId: actor.userId, name: actor.name }, 'share.revoked', shareSubject(share), { shareId, scenarioId: share.scenarioId, version: share.version });
   });
   const revoked = await findShare(db, actor.farmId, shareId);
   if (!revoked) throw notFound('Share not found');

@@ -8,11 +8,10 @@ import type ExcelJS from 'exceljs';
 import { type MonteCarloResult, runMonteCarlo, sensitivity } from '../../shared/engine/index.js';
 import type { Database } from '../db/client.js';
 import { findFarm } from '../db/repositories/farms.js';
-import type { FarmRole } from '../db/schema/index.js';
+import type { Actor } from './access.js';
 import { notFound } from '../errors.js';
 import { buildLenderWorkbook, workbookFileName } from '../workbook/build-workbook.js';
 import { recordAudit } from './audit.js';
-import type { FarmActor } from './lender-shares.js';
 import { riskInputsHash } from './risk-inputs-hash.js';
 import { scenarioQuotes } from './documents.js';
 import { readScenarioWhole } from './scenarios.js';
@@ -35,11 +34,11 @@ function cachedMonteCarlo(scenario: Parameters<typeof runMonteCarlo>[0]): MonteC
 /** Builds the workbook (not yet written) and its download name; a lender's download is audited. */
 export async function lenderWorkbook(
   db: Database,
-  actor: FarmActor & { role: FarmRole },
+  actor: Actor,
   scenarioId: number,
   now = new Date(),
 ): Promise<{ fileName: string; workbook: ExcelJS.Workbook }> {
-  const view = await readScenarioWhole(db, { farmId: actor.farmId, role: actor.role, userId: actor.user.id }, scenarioId);
+  const view = await readScenarioWhole(db, actor, scenarioId);
   const farm = await findFarm(db, actor.farmId);
   if (!farm) throw notFound('Farm not found');
   const { scenario, results, version } = view;
@@ -51,10 +50,10 @@ export async function lenderWorkbook(
     preparedBy: view.updatedBy ?? farm.name,
     created: now,
     risk: { sensitivity: sensitivity(scenario), monteCarlo: cachedMonteCarlo(scenario) },
-    quotes: await scenarioQuotes(db, { farmId: actor.farmId, role: actor.role, userId: actor.user.id }, scenarioId),
+    quotes: await scenarioQuotes(db, actor, scenarioId),
   });
   if (actor.role === 'lender') {
-    await recordAudit(db, { farmId: actor.farmId, userId: actor.user.id, name: actor.user.name }, 'workbook.downloaded', `"${scenario.name}" version ${version}`, { scenarioId, version });
+    await recordAudit(db, { farmId: actor.farmId, userId: actor.userId, name: actor.name }, 'workbook.downloaded', `"${scenario.name}" version ${version}`, { scenarioId, version });
   }
   return { fileName: workbookFileName(farm.name, scenario.name, `v${version}`), workbook };
 }

@@ -12,18 +12,12 @@ import type { Database } from '../db/client.js';
 import { findFarm, listMembers } from '../db/repositories/farms.js';
 import { findNote, findShare, insertNote, listNotes, listShares, setReviewStatus, type NoteRecord, type ShareRecord } from '../db/repositories/lender.js';
 import { findVersion } from '../db/repositories/scenarios.js';
-import type { FarmRole } from '../db/schema/index.js';
 import { AppError, notFound } from '../errors.js';
 import { reviewNoteMail, reviewStatusMail } from '../mail/lender-templates.js';
 import { recordAudit } from './audit.js';
 import { liveSharesOf, shareState } from './lender-access.js';
-import { shareSubject, toShareView, type FarmActor, type LenderContext, type ShareView } from './lender-shares.js';
-import { accessOf, assertScenarioVisible } from './access.js';
-
-/** A caller with their farm role, as the farm route resolved it. */
-export interface ReviewActor extends FarmActor {
-  role: FarmRole;
-}
+import { shareSubject, toShareView, type LenderContext, type ShareView } from './lender-shares.js';
+import { accessToScenario, type Actor } from './access.js';
 
 /** Arranges notes (oldest first) into threads: top-level notes, each with its replies in order. */
 export function threadNotes(notes: readonly NoteRecord[], optionNames: ReadonlyMap<string, string>): ReviewThread[] {
@@ -53,11 +47,11 @@ async function optionNamesOf(db: Database, share: Pick<ShareRecord, 'scenarioId'
  * The reviews of one scenario the caller may read: for members every share of it, for a lender
  * only their own live shares (a scenario without one is "not found", as everywhere else).
  */
-export async function scenarioReviews(db: Database, actor: ReviewActor, scenarioId: number, now = new Date()): Promise<ShareReview[]> {
+export async function scenarioReviews(db: Database, actor: Actor, scenarioId: number, now = new Date()): Promise<ShareReview[]> {
   let shares: ShareRecord[];
+  await accessToScenario(db, actor, scenarioId, now);
   if (actor.role === 'lender') {
-    assertScenarioVisible(await accessOf(db, { farmId: actor.farmId, role: actor.role, userId: actor.user.id }, now), scenarioId);
-    shares = (await liveSharesOf(db, actor.farmId, actor.user.id, now)).filter((s) => s.scenarioId === scenarioId);
+    shares = (await liveSharesOf(db, actor.farmId, actor.userId, now)).filter((s) => s.scenarioId === scenarioId);
   } else {
     shares = await listShares(db, actor.farmId, scenarioId);
   }
@@ -74,15 +68,15 @@ export async function scenarioReviews(db: Database, actor: ReviewActor, scenario
 }
 
 /** The share a lender acts on: theirs and live, or 404 (a revoked or expired share ends writing too). */
-async function lendersLiveShare(db: Database, actor: ReviewActor, shareId: number, now: Date): Promise<ShareRecord> {
+async function lendersLiveShare(db: Database, actor: Actor, shareId: number, now: Date): Promise<ShareRecord> {
   const share = await findShare(db, actor.farmId, shareId);
-  if (!share || share.lenderUserId !== actor.user.id || shareState(share, now) !== 'live') throw notFound('Share not found');
+  if (!share || share.lenderUserId !== actor.userId || shareState(share, now) !== 'live') throw notFound('Share not found');
   return share;
 }
 
-const auditActor = (actor: ReviewActor) => ({ farmId: actor.farmId, userId: actor.user.id, name: actor.user.name });
+const auditActor = (actor: Actor) => ({ farmId: actor.farmId, userId: actor.userId, name: actor.name });
 
-async function noteView(db: Database, actor: ReviewActor, share: ShareRecord, noteId: number): Promise<ReviewNote> {
+async function noteView(db: Database, actor: Actor, share: ShareRecord, noteId: number): Promise<ReviewNote> {
   const note = await findNote(db, actor.farmId, noteId);
   if (!note) throw new Error('note vanished after insert');
   const [view] = threadNotes([{ ...note, parentId: null }], await optionNamesOf(db, share));
@@ -99,7 +93,7 @@ async function threadRoot(db: Database, farmId: number, shareId: number, parentI
 }
 
 /** The farm's members a lender's action is e-mailed to (everyone but lenders) and the link to the scenario's Lender tab. */
-async function farmRecipients(db: Database, actor: ReviewActor, share: ShareRecord, appOrigin: string) {
+async function farmRecipients(db: Database, actor: Actor, share: ShareRecord, appOrigin: string) {
   const [farm, members] = await Promise.all([findFarm(db, actor.farmId), listMembers(db, actor.farmId)]);
   return {
     farmName: farm?.name ?? 'your farm',
@@ -113,7 +107,7 @@ async function farmRecipients(db: Database, actor: ReviewActor, share: ShareReco
  * version; `lineRef` names a line (and needs an option); `parentId` answers a note in a thread.
  * Like a status change, the note is e-mailed to the farm's members so a question does not wait unread.
  */
-export async function addLenderNote(ctx: LenderContext, actor: ReviewActor, shareId: number, input: z.output<typeof createNoteSchema>, now = new Date()): Promise<ReviewNote> {
+export async function addLenderNote(ctx: LenderContext, actor: Actor, shareId: number, input: z.output<typeof createNoteSchema>, now = new Date()): Promise<ReviewNote> {
   const { db } = ctx;
   const share = await lendersLiveShare(db, actor, shareId, now);
   const options = await optionNamesOf(db, share);
@@ -129,7 +123,7 @@ export async function addLenderNote(ctx: LenderContext, actor: ReviewActor, shar
       farmId: actor.farmId,
       scenarioId: share.scenarioId,
       shareId,
-      authorId: actor.user.id,
+      authorId: actor.userId,
       authorRole: actor.role,
       optionId: input.optionId ?? null,
       lineRef: input.lineRef ?? null,
@@ -156,7 +150,7 @@ export async function addLenderNote(ctx: LenderContext, actor: ReviewActor, shar
         farmName,
         scenarioName: share.scenarioName,
         version: share.version,
-        lenderName: actor.user.name,
+        lenderName: actor.name,
         ...(about ? { about } : {}),
         note: view.body.slice(0, 500),
         link,
@@ -167,14 +161,14 @@ export async function addLenderNote(ctx: LenderContext, actor: ReviewActor, shar
 }
 
 /** A member's answer in the thread of a note on one of the farm's shares (any state: answering a closed review is still a record). */
-export async function replyToNote(db: Database, actor: ReviewActor, shareId: number, noteId: number, body: string): Promise<ReviewNote> {
+export async function replyToNote(db: Database, actor: Actor, shareId: number, noteId: number, body: string): Promise<ReviewNote> {
   const share = await findShare(db, actor.farmId, shareId);
   if (!share) throw notFound('Share not found');
   const note = await findNote(db, actor.farmId, noteId);
   if (!note || note.shareId !== shareId) throw notFound('Note not found');
   const rootId = note.parentId ?? note.id;
   const id = await db.transaction(async (tx) => {
-    const replyId = await insertNote(tx, { farmId: actor.farmId, scenarioId: share.scenarioId, shareId, authorId: actor.user.id, authorRole: actor.role, optionId: null, lineRef: null, parentId: rootId, body });
+    const replyId = await insertNote(tx, { farmId: actor.farmId, scenarioId: share.scenarioId, shareId, authorId: actor.userId, authorRole: actor.role, optionId: null, lineRef: null, parentId: rootId, body });
     await recordAudit(tx, auditActor(actor), 'note.replied', shareSubject(share), { shareId, noteId: replyId, inReplyTo: rootId, scenarioId: share.scenarioId, version: share.version });
     return replyId;
   });
@@ -185,11 +179,11 @@ export async function replyToNote(db: Database, actor: ReviewActor, shareId: num
  * Sets the review status of the lender's live share. A change is audited and e-mailed to the
  * farm's members (owner, partners, consultant); setting the status it already has changes nothing.
  */
-export async function setShareStatus(ctx: LenderContext, actor: ReviewActor, shareId: number, status: ReviewStatusValue, now = new Date()): Promise<ShareView> {
+export async function setShareStatus(ctx: LenderContext, actor: Actor, shareId: number, status: ReviewStatusValue, now = new Date()): Promise<ShareView> {
   const share = await lendersLiveShare(ctx.db, actor, shareId, now);
   if (share.reviewStatus === status) return toShareView(share, now);
   await ctx.db.transaction(async (tx) => {
-    await setReviewStatus(tx, shareId, status, actor.user.id, now);
+    await setReviewStatus(tx, shareId, status, actor.userId, now);
     await recordAudit(tx, auditActor(actor), 'review.status', shareSubject(share), { shareId, scenarioId: share.scenarioId, version: share.version, from: share.reviewStatus, to: status });
   });
   const [{ farmName, members, link }, notes] = await Promise.all([farmRecipients(ctx.db, actor, share, ctx.appOrigin), listNotes(ctx.db, [shareId])]);
@@ -201,7 +195,7 @@ export async function setShareStatus(ctx: LenderContext, actor: ReviewActor, sha
         farmName,
         scenarioName: share.scenarioName,
         version: share.version,
-        lenderName: actor.user.name,
+        lenderName: actor.name,
         status: REVIEW_STATUS_LABELS[status],
         ...(latestNote ? { note: latestNote.body.slice(0, 500) } : {}),
         link,

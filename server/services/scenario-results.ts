@@ -83,7 +83,3 @@ export async function keptResults(db: Executor, scenarioId: number, version: num
   return remember(remembered, key, await keep(db, scenarioId, version, stored.document, evaluateForKeeping(stored.document)));
 }
 
-/** The kept document of one version, parsed (it was validated before it was kept). */
-export async function keptDocument(db: Executor, scenarioId: number, version: number): Promise<Scenario> {
-  return JSON.parse((await keptResults(db, scenarioId, version)).document) as Scenario;
-}

@@ -1,16 +1,17 @@
 /**
  * The scenario rules: who may see which scenario, creating (from the farm baseline or an
- * imported document), saving with optimistic locking, option operations, versions and their
- * comparison. Every save validates the whole document and writes a new immutable version in
- * the same transaction as the scenario row, locked with SELECT … FOR UPDATE.
+ * imported document), saving with optimistic locking, versions and their comparison. Option
+ * operations are edits of the document (`shared/option-operations.ts`) saved whole. Every
+ * save takes a whole validated document and writes a new immutable version in the same
+ * transaction as the scenario row, locked with SELECT … FOR UPDATE.
  */
 import type { JsonText, ResultsDetailView, ScenarioListItem, ScenarioMeta, ScenarioView, VersionComparison, VersionListItem, VersionView } from '../../shared/responses.js';
 import type { z } from 'zod';
 import { evaluateScenario, type ScenarioResultsSummary, type ScenarioResults, resultsCacheKey } from '../../shared/engine/index.js';
 import { diffScenarios, type Json } from '../../shared/scenario-diff.js';
-import type { createScenarioBodySchema } from '../../shared/scenario-api.js';
-import { DEFAULT_FINANCE, herdSchema, scenarioSchema, type Option, type Scenario, type ScenarioInput, type StartingPoint } from '../../shared/schema/index.js';
-import { createOption, withOptionId } from '../../shared/starting-points.js';
+import type { createScenarioBodySchema } from '../../shared/schema/requests.js';
+import { DEFAULT_FINANCE, herdSchema, scenarioSchema, type Scenario, type ScenarioInput } from '../../shared/schema/index.js';
+import { createOption } from '../../shared/starting-points.js';
 import type { UnitSystem } from '../../shared/units.js';
 import type { Database } from '../db/client.js';
 import { findFarmBaseline } from '../db/repositories/farm-baseline.js';
@@ -36,7 +37,7 @@ import type { ScenarioStatus } from '../db/schema/index.js';
 import type { KeptResults } from '../db/repositories/scenario-results.js';
 import { AppError, fieldErrors, notFound } from '../errors.js';
 import { accessOf, canSeeScenario, canSeeVersion, visibleVersions, type Access, type Actor } from './access.js';
-import { evaluateForKeeping, keep, keptDocument, keptResults, rememberCommitted } from './scenario-results.js';
+import { evaluateForKeeping, keep, keptResults, rememberCommitted } from './scenario-results.js';
 
 export type { ResultsDetailView, ScenarioListItem, ScenarioView, VersionListItem };
 
@@ -60,14 +61,16 @@ function assertVersionVisible(access: Access, scenarioId: number, version: numbe
 }
 
 /**
- * Option count and the best option by the NPV of its change against the current option (currency;
- * the current option itself counts 0, staying as today), for the list: never by an option's own
- * whole-herd flows, which rank barns by the herd's margin rather than by what building changes.
+ * Option count and the best candidate by the NPV of its change against the current option
+ * (currency), for the list. The current option is the reference, not a candidate: when no
+ * candidate pays, the best is still the least bad change, with its negative figure. Never by an
+ * option's own whole-herd flows, which rank barns by the herd's margin rather than by what building changes.
  */
 export function summarise(results: { options: readonly { id: string; name: string; incremental: { npv: number } | null }[] }): ScenarioSummary {
   let best: ScenarioSummary['best'] = null;
   for (const option of results.options) {
-    const npv = option.incremental?.npv ?? 0;
+    if (option.incremental === null) continue;
+    const npv = option.incremental.npv;
     if (best === null || npv > best.npv) best = { optionId: option.id, name: option.name, npv };
   }
   return { optionCount: results.options.length, best };
@@ -91,11 +94,6 @@ function viewText(head: ScenarioHead, kept: Pick<KeptResults, 'name' | 'document
     key: `scenario:${head.id}:${head.version}:${resultsCacheKey()}:${metaJson}`,
     text: `{"id":${head.id},"scenario":${kept.document},"version":${head.version},"results":${kept.summary},"meta":${metaJson}}`,
   };
-}
-
-/** A 400 naming one field of the request, shaped as parseOrThrow shapes it. */
-function badField(field: string, message: string): AppError {
-  return new AppError(400, 'invalid_input', `${field}: ${message}`, { [field]: message });
 }
 
 /** Validates a document the server built or changed; errors name fields under `scenario.`. */
@@ -230,11 +228,8 @@ export async function importScenario(db: Database, actor: ScenarioActor, scenari
   return createScenario(db, actor, name ? { ...scenario, name } : scenario, 'Imported');
 }
 
-/** What a save writes: a whole document already validated by the route, or a change to the latest document. */
-type Change = { whole: Scenario } | ((latest: Scenario) => unknown);
-
 /**
- * Applies `change` to the latest document and saves the result as the next version, in one
+ * Saves `document` (validated by the route or read from a kept version) as the next version, in one
  * transaction with the row locked; the new version's results are evaluated once and kept with it.
  * With `basedOn`, a scenario saved since then gives 409 `version_conflict` with who saved the
  * newer version and when; nothing is written.
@@ -245,7 +240,7 @@ async function saveChange(
   scenarioId: number,
   basedOn: number | undefined,
   note: string,
-  change: Change,
+  document: Scenario,
 ): Promise<JsonText<ScenarioView>> {
   const saved = await db.transaction(async (tx) => {
     const access = await accessOf(tx, actor);
@@ -261,9 +256,6 @@ async function saveChange(
         { latest: { version: latest.version, updatedBy: latest.updatedBy?.name ?? null, updatedAt: latest.updatedAt.toISOString() } },
       );
     }
-    // A caller who sees every version (not a lender) sees the locked one: no second read of the row.
-    const latestVersion = access.grants === null ? locked.version : (await visibleHead(tx, actor, scenarioId, access)).version;
-    const document = typeof change === 'function' ? validated(change(await keptDocument(tx, scenarioId, latestVersion))) : change.whole;
     const results = evaluateForKeeping(document);
     const version = locked.version + 1;
     await updateScenarioVersion(tx, {
@@ -284,74 +276,7 @@ async function saveChange(
 
 /** Saves a whole document (PUT) based on `version`. */
 export function saveScenario(db: Database, actor: ScenarioActor, scenarioId: number, version: number, scenario: Scenario, note?: string): Promise<JsonText<ScenarioView>> {
-  return saveChange(db, actor, scenarioId, version, note ?? '', { whole: scenario });
-}
-
-function optionIndex(scenario: Scenario, optionId: string): number {
-  const index = scenario.options.findIndex((option) => option.id === optionId);
-  if (index < 0) throw notFound(`Option "${optionId}" not found in this scenario`);
-  return index;
-}
-
-/** `base`, or `base-2`, `base-3`, … — the first id no option of the scenario uses. */
-export function freeOptionId(scenario: Scenario, base: string): string {
-  const taken = new Set(scenario.options.map((option) => option.id));
-  if (!taken.has(base)) return base;
-  let n = 2;
-  while (taken.has(`${base}-${n}`)) n++;
-  return `${base}-${n}`;
-}
-
-/** Adds a candidate option from a starting point, sized for the scenario's herd. */
-export function addOption(db: Database, actor: ScenarioActor, scenarioId: number, version: number, startingPoint: StartingPoint, name?: string): Promise<JsonText<ScenarioView>> {
-  return saveChange(db, actor, scenarioId, version, `Added an option from the ${startingPoint} starting point`, (latest) => {
-    const option = createOption(startingPoint, latest.herd, { id: freeOptionId(latest, startingPoint), ...(name ? { name } : {}) });
-    return { ...latest, options: [...latest.options, option] };
-  });
-}
-
-/** Copies an option (not as current) right after the original. */
-export function duplicateOption(db: Database, actor: ScenarioActor, scenarioId: number, version: number, optionId: string, name?: string): Promise<JsonText<ScenarioView>> {
-  return saveChange(db, actor, scenarioId, version, `Duplicated option "${optionId}"`, (latest) => {
-    const index = optionIndex(latest, optionId);
-    const original = latest.options[index] as Option;
-    // The copy's lines get ids of their own: documents attach to scenarioId + capital line id.
-    const copy: Option = { ...withOptionId(structuredClone(original), freeOptionId(latest, original.id)), name: name ?? `${original.name} (copy)`, current: false };
-    const options = [...latest.options];
-    options.splice(index + 1, 0, copy);
-    return { ...latest, options };
-  });
-}
-
-/** Removes a candidate option; the current option stays until another is marked current. */
-export function deleteOption(db: Database, actor: ScenarioActor, scenarioId: number, version: number, optionId: string): Promise<JsonText<ScenarioView>> {
-  return saveChange(db, actor, scenarioId, version, `Deleted option "${optionId}"`, (latest) => {
-    const option = latest.options[optionIndex(latest, optionId)] as Option;
-    if (option.current) {
-      throw badField('optionId', 'The current option cannot be deleted: mark another option as current first');
-    }
-    return { ...latest, options: latest.options.filter((o) => o.id !== optionId) };
-  });
-}
-
-/** Puts the options in the given order; `order` must name every option once. */
-export function reorderOptions(db: Database, actor: ScenarioActor, scenarioId: number, version: number, order: string[]): Promise<JsonText<ScenarioView>> {
-  return saveChange(db, actor, scenarioId, version, 'Reordered the options', (latest) => {
-    const byId = new Map(latest.options.map((option) => [option.id, option]));
-    const unique = new Set(order);
-    if (unique.size !== order.length || order.length !== byId.size || order.some((id) => !byId.has(id))) {
-      throw badField('order', `Order must list each option id exactly once: ${[...byId.keys()].join(', ')}`);
-    }
-    return { ...latest, options: order.map((id) => byId.get(id) as Option) };
-  });
-}
-
-/** Makes one option the current option (the baseline the others are measured against). */
-export function markCurrent(db: Database, actor: ScenarioActor, scenarioId: number, version: number, optionId: string): Promise<JsonText<ScenarioView>> {
-  return saveChange(db, actor, scenarioId, version, `Marked option "${optionId}" as current`, (latest) => {
-    optionIndex(latest, optionId);
-    return { ...latest, options: latest.options.map((option) => ({ ...option, current: option.id === optionId })) };
-  });
+  return saveChange(db, actor, scenarioId, version, note ?? '', scenario);
 }
 
 /** A new scenario holding a copy of the latest document. */
@@ -429,7 +354,7 @@ export async function restoreVersion(
   await visibleHead(db, actor, scenarioId);
   const past = await versionOf(db, scenarioId, version);
   // The past document was validated as it was read: it is saved whole, as a PUT is.
-  return saveChange(db, actor, scenarioId, basedOn, note ?? `Restored version ${version}`, { whole: past.document });
+  return saveChange(db, actor, scenarioId, basedOn, note ?? `Restored version ${version}`, past.document);
 }
 
 /** The latest document as the file `npm run evaluate` reads, and a file name for it. */

@@ -6,7 +6,7 @@
  */
 import { CURRENT_SCHEMA_VERSION } from '../schema/stored-scenario';
 
-export const ENGINE_VERSION = 1;
+export const ENGINE_VERSION = 2;
 
 /**
  * The key kept results are filed under: the engine's version and the document format the

@@ -20,3 +20,12 @@ export const riskInputKeys = [
   'lyingHours',
 ] as const;
 export type RiskInputKey = (typeof riskInputKeys)[number];
+
+/**
+ * The inputs the one-at-a-time sensitivity moves: every risk input but the lying-time gain. The
+ * milk extra lying time brings is the response × the hours gained, so moving either one alone
+ * moves the NPV by the same amount (below the lying-time cap); the sensitivity shows that one
+ * driver once, as the response, which scales the whole lying-time milk even where the cap binds.
+ * Monte Carlo draws both, since two uncertain factors of one product widen its spread.
+ */
+export const sensitivityInputKeys = riskInputKeys.filter((key) => key !== 'lyingHours');

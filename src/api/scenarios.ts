@@ -1,7 +1,7 @@
 /** Scenarios of one farm: list, read, save with optimistic locking, versions and their comparison. */
 import type { ScenarioInput } from '@shared/schema';
 import type { z } from 'zod';
-import type { createScenarioBodySchema } from '@shared/scenario-api';
+import type { createScenarioBodySchema } from '@shared/schema/requests';
 import type {
   ResultsDetailView,
   ScenarioListItem,

@@ -1,4 +1,4 @@
-import { createRouter, createWebHistory } from 'vue-router';
+import { createRouter, createWebHistory, type RouteLocationNormalized } from 'vue-router';
 import { useSessionStore } from '@/stores/session';
 import { lenderToSharedView } from './lender-guard';
 
@@ -54,8 +54,21 @@ export const router = createRouter({
   scrollBehavior: () => ({ top: 0 }),
 });
 
+/**
+ * Starts fetching the screen's code (every route component here is a lazy import) so it arrives
+ * while the session is checked; the router would otherwise ask for it only after the guard.
+ */
+function preloadScreen(to: RouteLocationNormalized): void {
+  for (const record of to.matched) {
+    for (const component of Object.values(record.components ?? {})) {
+      if (typeof component === 'function') void (component as () => Promise<unknown>)().catch(() => undefined);
+    }
+  }
+}
+
 router.beforeEach(async (to) => {
   const session = useSessionStore();
+  preloadScreen(to);
   await session.ensureLoaded();
   if (!to.meta.public && !session.signedIn) return { name: 'sign-in', query: { next: to.fullPath } };
   if (to.meta.guestOnly && session.signedIn) return { name: 'farms' };

@@ -4,10 +4,10 @@
  * same engine the server uses, and a save that never overwrites someone else's newer version.
  */
 import { defineStore } from 'pinia';
-import { computed, readonly, ref, shallowRef, watch } from 'vue';
+import { computed, readonly, ref, shallowRef, toRaw, watch } from 'vue';
 import { scenarioSchema, type Option, type Scenario, type StartingPoint } from '@shared/schema';
 import { evaluateScenario, type ScenarioResults } from '@shared/engine';
-import { createOption, STARTING_POINT_NAMES, withOptionId } from '@shared/starting-points';
+import * as optionOperations from '@shared/option-operations';
 import { ApiError } from '@/api/client';
 import { messageFor } from '@/api/messages';
 import { scenariosApi, type ScenarioMeta, type VersionConflict } from '@/api/scenarios';
@@ -21,14 +21,6 @@ export type SaveState = 'idle' | 'saving' | 'saved' | 'conflict' | 'invalid' | '
 
 function clone<T>(value: T): T {
   return JSON.parse(JSON.stringify(value)) as T;
-}
-
-/** A short, unique id for a new option or line inside its list. */
-export function newId(prefix: string, taken: readonly string[]): string {
-  for (let n = 1; ; n++) {
-    const id = `${prefix}-${n}`;
-    if (!taken.includes(id)) return id;
-  }
 }
 
 /** The server names fields inside the request body ("scenario.options.0.name"); the form knows them by document path. */
@@ -70,6 +62,8 @@ export const useScenarioStore = defineStore('scenario', () => {
   const saveMessage = ref<string | null>(null);
   const conflict = ref<VersionConflict | null>(null);
   const selectedOptionId = ref<string | null>(null);
+  /** Why the last option operation was refused (e.g. deleting the current option), until the next one or a load. */
+  const optionError = ref<string | null>(null);
 
   const dirty = computed(() => working.value !== null && JSON.stringify(working.value) !== savedJson.value);
   const options = computed<Option[]>(() => working.value?.options ?? []);
@@ -85,6 +79,7 @@ export const useScenarioStore = defineStore('scenario', () => {
     meta.value = nextMeta ?? {};
     serverErrors.value = {};
     conflict.value = null;
+    optionError.value = null;
     if (!scenario.options.some((option) => option.id === selectedOptionId.value)) {
       selectedOptionId.value = scenario.options.find((option) => !option.current)?.id ?? scenario.options[0]?.id ?? null;
     }
@@ -245,56 +240,52 @@ export const useScenarioStore = defineStore('scenario', () => {
     serverErrors.value = {};
   }
 
-  /** Adds an option from a starting point for the scenario's herd and selects it. */
-  function addOption(startingPoint: StartingPoint, name?: string): Option | null {
+  /**
+   * Applies an option operation of `shared/option-operations` to the working copy (its raw
+   * object: the operations copy what they change and never touch their input). A refusal
+   * leaves the working copy as it was and says why in `optionError`.
+   */
+  function applyOption<T>(operation: (scenario: Scenario) => T, adoptResult: (result: T) => Scenario): T | null {
     const scenario = working.value;
     if (!scenario) return null;
-    const id = newId(startingPoint, scenario.options.map((option) => option.id));
-    const taken = new Set(scenario.options.map((option) => option.name));
-    let optionName = name?.trim() || STARTING_POINT_NAMES[startingPoint];
-    for (let n = 2; taken.has(optionName); n++) optionName = `${name?.trim() || STARTING_POINT_NAMES[startingPoint]} ${n}`;
-    const option = createOption(startingPoint, scenario.herd, { id, name: optionName });
-    scenario.options.push(option);
-    selectedOptionId.value = id;
-    return option;
+    try {
+      const result = operation(toRaw(scenario));
+      working.value = adoptResult(result);
+      optionError.value = null;
+      return result;
+    } catch (refusal) {
+      // A refusal is worded by the shared module itself, not by the server: no ApiError reaches here.
+      if (!(refusal instanceof optionOperations.OptionOperationError)) throw refusal;
+      optionError.value = refusal.message;
+      return null;
+    }
+  }
+
+  /** Adds an option from a starting point for the scenario's herd and selects it. */
+  function addOption(startingPoint: StartingPoint, name?: string): Option | null {
+    const added = applyOption((s) => optionOperations.addOption(s, startingPoint, name), (r) => r.scenario);
+    if (added) selectedOptionId.value = added.option.id;
+    return added?.option ?? null;
   }
 
   function duplicateOption(id: string): void {
-    const scenario = working.value;
-    const source = scenario?.options.find((option) => option.id === id);
-    if (!scenario || !source) return;
-    // Line ids are unique across the scenario: the copy's lines take the new option id.
-    const copy = withOptionId(clone(source), newId(source.startingPoint, scenario.options.map((option) => option.id)));
-    copy.name = `${source.name} (copy)`.slice(0, 120);
-    copy.current = false;
-    scenario.options.splice(scenario.options.indexOf(source) + 1, 0, copy);
-    selectedOptionId.value = copy.id;
+    const added = applyOption((s) => optionOperations.duplicateOption(s, id), (r) => r.scenario);
+    if (added) selectedOptionId.value = added.option.id;
   }
 
+  /** Removes a candidate option; the current option is refused (mark another current first). */
   function removeOption(id: string): void {
-    const scenario = working.value;
-    if (!scenario || scenario.options.length <= 1) return;
-    const index = scenario.options.findIndex((option) => option.id === id);
-    if (index < 0) return;
-    const [removed] = scenario.options.splice(index, 1);
-    if (removed?.current && scenario.options[0]) scenario.options[0].current = true;
-    if (selectedOptionId.value === id) selectedOptionId.value = scenario.options[Math.max(0, index - 1)]?.id ?? null;
+    const index = options.value.findIndex((option) => option.id === id);
+    const removed = applyOption((s) => optionOperations.deleteOption(s, id), (r) => r);
+    if (removed && selectedOptionId.value === id) selectedOptionId.value = removed.options[Math.max(0, index - 1)]?.id ?? null;
   }
 
   function markCurrent(id: string): void {
-    working.value?.options.forEach((option) => {
-      option.current = option.id === id;
-    });
+    applyOption((s) => optionOperations.markCurrent(s, id), (r) => r);
   }
 
   function moveOption(id: string, by: -1 | 1): void {
-    const list = working.value?.options;
-    if (!list) return;
-    const index = list.findIndex((option) => option.id === id);
-    const target = index + by;
-    if (index < 0 || target < 0 || target >= list.length) return;
-    const [moved] = list.splice(index, 1);
-    if (moved) list.splice(target, 0, moved);
+    applyOption((s) => optionOperations.moveOption(s, id, by), (r) => r);
   }
 
   function selectOption(id: string): void {
@@ -316,6 +307,7 @@ export const useScenarioStore = defineStore('scenario', () => {
     saveState: readonly(saveState),
     saveMessage: readonly(saveMessage),
     conflict: readonly(conflict),
+    optionError: readonly(optionError),
     dirty,
     options,
     selectedOption,

@@ -99,10 +99,8 @@ describe('fuzzing every JSON body and query through the real routes', () => {
     return { base: `/api/farms/${row.farmId}/scenarios/${row.id}`, version: row.version, optionIds: document.options.map((o) => o.id) };
   }
 
-  it('answers near-valid option, preference and decision bodies with one field broken without a 5xx', async () => {
+  it('answers near-valid decision and duplicate bodies with one field broken without a 5xx', async () => {
     const templates: { path: string; body: (v: number, ids: string[]) => Record<string, unknown> }[] = [
-      { path: '/options', body: (version) => ({ version, startingPoint: 'sand-freestall', name: 'Sand beds' }) },
-      { path: '/options/reorder', body: (version, ids) => ({ version, order: [...ids].reverse() }) },
       { path: '/decision', body: (_v, ids) => ({ optionId: ids[1], note: 'Decided at the kitchen table' }) },
       { path: '/duplicate', body: () => ({ name: 'Copy' }) },
     ];

@@ -9,6 +9,8 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '../../server/auth/session.js';
 import { createTestApp, type TestApp } from '../helpers/app.js';
+import { addOption } from '../../shared/option-operations.js';
+import type { Scenario } from '../../shared/schema/index.js';
 
 const DEMO_PASSWORD = 'byrecast-demo';
 
@@ -94,23 +96,18 @@ describe('hostile input', () => {
     });
   }
 
-  it('refuses a lone UTF-16 surrogate with 400 naming the field, on option add, reorder and a whole save', async () => {
+  it('refuses a lone UTF-16 surrogate with 400 naming the field, in an option name, an option id and a scenario copy name', async () => {
     // "\ud800" alone is no character (Unicode 15, section 3.9 "Unicode Encoding Forms": ill-formed UTF-16).
     const list = await request(t.app).get(`/api/farms/${farmId}/scenarios`).set('cookie', owner);
     const base = `/api/farms/${farmId}/scenarios/${list.body[0].id as number}`;
     const read = await request(t.app).get(base).set('cookie', owner);
     const version = read.body.version as number;
+    const scenario = read.body.scenario as Scenario;
+    const withFirstOption = (change: Partial<Scenario['options'][number]>) => ({ ...scenario, options: [{ ...scenario.options[0]!, ...change }, ...scenario.options.slice(1)] });
     const attempts: [request.Test, string][] = [
-      [request(t.app).post(`${base}/options`).set('cookie', owner).send({ version, startingPoint: 'sand-freestall', name: 'Sand \ud800' }), 'name'],
-      [request(t.app).post(`${base}/options/reorder`).set('cookie', owner).send({ version, order: ['\ud800'] }), 'order.0'],
-      [request(t.app).post(`${base}/options/reorder`).set('cookie', owner).send({ version, order: ['\udc00x'] }), 'order.0'],
-      [
-        request(t.app)
-          .put(base)
-          .set('cookie', owner)
-          .send({ version, scenario: { ...read.body.scenario, options: [{ ...read.body.scenario.options[0], name: 'a\ud800' }, ...read.body.scenario.options.slice(1)] } }),
-        'scenario.options.0.name',
-      ],
+      [request(t.app).put(base).set('cookie', owner).send({ version, scenario: withFirstOption({ name: 'a\ud800' }) }), 'scenario.options.0.name'],
+      [request(t.app).put(base).set('cookie', owner).send({ version, scenario: withFirstOption({ id: '\udc00x' }) }), 'scenario.options.0.id'],
+      [request(t.app).post(`${base}/duplicate`).set('cookie', owner).send({ name: 'Copy \ud800' }), 'name'],
     ];
     for (const [attempt, field] of attempts) {
       const res = await attempt;
@@ -118,7 +115,7 @@ describe('hostile input', () => {
       expect(Object.keys(res.body.error.fields), field).toEqual([field]);
     }
     // A well-formed pair (an emoji) is text like any other.
-    const emoji = await request(t.app).post(`${base}/options`).set('cookie', owner).send({ version, startingPoint: 'sand-freestall', name: 'Sand \ud83d\udc04' });
+    const emoji = await request(t.app).put(base).set('cookie', owner).send({ version, scenario: addOption(scenario, 'sand-freestall', 'Sand \ud83d\udc04').scenario });
     expect(emoji.status).toBe(200);
     expect(emoji.body.scenario.options.at(-1).name).toBe('Sand 🐄');
   });
@@ -141,11 +138,13 @@ describe('hostile input', () => {
   });
 
   it('keeps SQL metacharacters in path parameters from reaching the database as SQL', async () => {
-    // docs/product.md (Accounts): never executed; a farm id that is not a number is a farm not found,
-    // any other id that is not a positive whole number is bad input naming the parameter (Bad input).
+    // docs/product.md (Accounts): never executed; an id that is not a positive whole number, the farm
+    // id too, is bad input naming the parameter (Bad input; DEVELOPERS.md, Authorization).
     for (const value of ["1' OR '1'='1", '1;DROP TABLE farms', '-1', '1e3', '99999999999999999999']) {
       const res = await request(t.app).get(`/api/farms/${encodeURIComponent(value)}/members`).set('cookie', owner);
-      expect(res.status, value).toBe(404);
+      // '1e3' reads as the number 1000: a farm the caller is not on.
+      expect(res.status, value).toBe(value === '1e3' ? 404 : 400);
+      if (value !== '1e3') expect(Object.keys(res.body.error.fields), value).toEqual(['farmId']);
       const member = await request(t.app).delete(`/api/farms/${farmId}/members/${encodeURIComponent(value)}`).set('cookie', owner);
       // '1e3' reads as the number 1000: a member that does not exist.
       expect(member.status, value).toBe(value === '1e3' ? 404 : 400);
@@ -154,7 +153,7 @@ describe('hostile input', () => {
     await tablesIntact();
   });
 
-  it('refuses an oversized JSON body with 413 on the routes of this issue', async () => {
+  it('refuses an oversized JSON body with 413 on the routes that take a body', async () => {
     // docs/product.md (Accounts): oversized JSON body refused with 413 (RFC 9110 §15.5.14 Content Too Large).
     const big = JSON.stringify({ name: 'y'.repeat(2 * 1024 * 1024) });
     for (const path of ['/api/auth/sign-up', '/api/auth/password-reset/request', `/api/farms/${farmId}/invitations`, '/api/farms']) {

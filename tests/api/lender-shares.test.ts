@@ -236,6 +236,7 @@ describe('lender shares', () => {
       expect((await owner.post(`${farm()}/lender-shares/${firstShareId}/revoke`)).status).toBe(200);
       expect((await bank.get(`${farm()}/scenarios`)).body).toEqual([]);
       expect((await bank.get(scenario(mattressId))).status).toBe(404);
+      expect((await bank.get(`${scenario(mattressId)}/quotes`)).status).toBe(404);
       expect((await bank.get(`${scenario(mattressId)}/workbook.xlsx`)).status).toBe(404);
       expect((await bank.get(`${farm()}/documents`)).body).toEqual([]);
       expect((await owner.post(`${farm()}/lender-shares/${firstShareId}/revoke`)).status).toBe(409);

@@ -71,7 +71,7 @@ afterAll(async () => {
 });
 
 describe('permission matrix', () => {
-  it('covers the farm routes of this issue and names only permissions from the table', () => {
+  it('covers every farm route and names only permissions from the table', () => {
     // docs/product.md (Accounts): the matrix is generated from the permission table, so a new route cannot be forgotten.
     const paths = routes.map((r) => `${r.method} ${r.path}`);
     expect(paths).toContain('get /api/farms/:farmId');
@@ -110,4 +110,32 @@ describe('permission matrix', () => {
       });
     });
   }
+});
+
+describe('one id-parameter policy', () => {
+  // DEVELOPERS.md (Authorization): a path id that is not a positive whole number is bad input,
+  // 400 naming the parameter, on every route alike; a well-formed id nobody may see is 404.
+  it('answers 400 naming the parameter for a malformed path id on every farm route, :farmId included', async () => {
+    const farm = await farmWithEveryRole('id policy');
+    for (const route of routes) {
+      const names = [...route.path.matchAll(/:(\w+)/g)].map((m) => m[1]!);
+      const role = (['owner', 'partner', 'consultant', 'lender'] as const).find((r) => roleAllows(r, route.permission))!;
+      for (const name of names) {
+        const path = route.path.replace(/:(\w+)/g, (_m, other: string) => (other === name ? 'abc' : other === 'farmId' ? String(farm.id) : MISSING_ID));
+        const res = await send(route, path, cookies[role]);
+        const label = `${role} on ${route.method} ${path}: ${res.status} ${res.text.slice(0, 200)}`;
+        expect(res.status, label).toBe(400);
+        expect(res.body.error.code, label).toBe('invalid_input');
+        expect(Object.keys(res.body.error.fields), label).toEqual([name]);
+      }
+    }
+  });
+
+  it('answers 404 for a well-formed id of nothing the caller may see, so /scenarios/N and /scenarios/N/quotes agree', async () => {
+    const farm = await farmWithEveryRole('missing ids');
+    for (const suffix of ['', '/quotes', '/versions', '/results/detail', '/export.json', '/risk-result', '/reviews', '/preferences']) {
+      const res = await request(t.app).get(`/api/farms/${farm.id}/scenarios/${MISSING_ID}${suffix}`).set('cookie', cookies.owner);
+      expect(res.status, suffix).toBe(404);
+    }
+  });
 });

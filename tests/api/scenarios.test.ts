@@ -15,6 +15,7 @@ import { splitResults } from '../../shared/engine/result-parts.js';
 import type { ScenarioResults } from '../../shared/engine/results.js';
 
 const summaryOf = (scenario: Scenario) => splitResults(evaluateScenario(scenario)).summary;
+import { addOption, deleteOption, duplicateOption, markCurrent, reorderOptions } from '../../shared/option-operations.js';
 import { scenarioSchema, type Scenario } from '../../shared/schema/index.js';
 import { eq } from 'drizzle-orm';
 import { scenarioResultsTable, scenariosTable, scenarioVersionsTable } from '../../server/db/schema/index.js';
@@ -62,9 +63,10 @@ describe('scenario API', () => {
       ] as const) {
         const fixture = demoScenarioFile(file);
         const results = evaluateScenario(fixture);
-        // Best by the change against the current option (the current option counts 0: staying as today).
-        const change = (o: (typeof results.options)[number]) => o.incremental?.npv ?? 0;
-        const best = [...results.options].sort((a, b) => change(b) - change(a))[0]!;
+        // Best candidate by its change against the current option; the current option is the reference, never the pick.
+        const candidates = results.options.filter((o) => !o.current);
+        const change = (o: (typeof results.options)[number]) => o.incremental!.npv;
+        const best = [...candidates].sort((a, b) => change(b) - change(a))[0]!;
         expect(byName.get(fixture.name)).toMatchObject({
           status: 'draft',
           version: 1,
@@ -178,75 +180,81 @@ describe('scenario API', () => {
 
     it('compares an added option and a reorder by option id, not position', async () => {
       const created = await createScenario('Compare options');
-      const added = await owner.post(`${base}/scenarios/${created.id}/options`).send({ version: 1, startingPoint: 'sand-freestall' });
-      const reordered = await owner.post(`${base}/scenarios/${created.id}/options/reorder`).send({ version: 2, order: ['sand-freestall', 'grazing'] });
+      const added = addOption(created.scenario, 'sand-freestall').scenario;
+      const v2 = await owner.put(`${base}/scenarios/${created.id}`).send({ version: 1, scenario: added });
+      const reordered = await owner.put(`${base}/scenarios/${created.id}`).send({ version: 2, scenario: reorderOptions(added, ['sand-freestall', 'grazing']) });
       expect(reordered.status).toBe(200);
       const changes = (await owner.get(`${base}/scenarios/${created.id}/versions/compare?from=2&to=3`)).body.changes;
       expect(changes).toEqual([{ path: 'options', kind: 'reordered', from: ['grazing', 'sand-freestall'], to: ['sand-freestall', 'grazing'], display: null }]);
       const addition = (await owner.get(`${base}/scenarios/${created.id}/versions/compare?from=1&to=2`)).body.changes;
       expect(addition).toHaveLength(1);
       expect(addition[0]).toMatchObject({ path: 'options.1', kind: 'added', to: { id: 'sand-freestall' } });
-      expect(added.body.version).toBe(2);
+      expect(v2.body.version).toBe(2);
     });
   });
 
   describe('option operations', () => {
-    it('adds from a starting point, duplicates, reorders, marks current and deletes, each as a new version', async () => {
+    /** Saves `scenario` over `version` and answers the next version's body. */
+    async function save(id: number, version: number, scenario: Scenario) {
+      const res = await owner.put(`${base}/scenarios/${id}`).send({ version, scenario });
+      expect(res.status).toBe(200);
+      return res.body as { version: number; scenario: Scenario; results: { currentOptionId: string; options: { stalls: number }[] } };
+    }
+
+    it('saves each option operation of shared/option-operations.ts whole, as a new version', async () => {
       const created = await createScenario('Options');
       const id = created.id;
-      const add = await owner.post(`${base}/scenarios/${id}/options`).send({ version: 1, startingPoint: 'sand-freestall', name: 'Sand beds' });
-      expect(add.status).toBe(200);
-      expect(add.body.version).toBe(2);
-      expect(add.body.scenario.options.map((o: { id: string; name: string; current: boolean }) => [o.id, o.name, o.current])).toEqual([
+      const add = await save(id, 1, addOption(created.scenario, 'sand-freestall', 'Sand beds').scenario);
+      expect(add.version).toBe(2);
+      expect(add.scenario.options.map((o) => [o.id, o.name, o.current])).toEqual([
         ['grazing', 'Grazing with seasonal housing', true],
         ['sand-freestall', 'Sand beds', false],
       ]);
       // The option is sized for the scenario's herd: one stall per cow at a stocking rate of 1 (common practice, no source).
-      expect(add.body.results.options[1].stalls).toBe(190);
+      expect(add.results.options[1]?.stalls).toBe(190);
 
-      const dup = await owner.post(`${base}/scenarios/${id}/options/sand-freestall/duplicate`).send({ version: 2 });
-      expect(dup.status).toBe(200);
-      expect(dup.body.scenario.options.map((o: { id: string }) => o.id)).toEqual(['grazing', 'sand-freestall', 'sand-freestall-2']);
+      const dup = await save(id, 2, duplicateOption(add.scenario, 'sand-freestall').scenario);
+      expect(dup.scenario.options.map((o) => o.id)).toEqual(['grazing', 'sand-freestall', 'sand-freestall-2']);
       // The copy's lines are the original's under the copy's id: documents attach to scenario + capital line id.
-      const originalLines = add.body.scenario.options[1].capitalLines as { id: string }[];
-      const copiedLines = originalLines.map((line) => ({ ...line, id: line.id.replace(/^sand-freestall\./, 'sand-freestall-2.') }));
+      const copiedLines = add.scenario.options[1]!.capitalLines.map((line) => ({ ...line, id: line.id.replace(/^sand-freestall\./, 'sand-freestall-2.') }));
       expect(copiedLines.every((line) => line.id.startsWith('sand-freestall-2.'))).toBe(true);
-      expect(dup.body.scenario.options[2]).toMatchObject({ name: 'Sand beds (copy)', current: false, capitalLines: copiedLines });
+      expect(dup.scenario.options[2]).toMatchObject({ name: 'Sand beds (copy)', current: false, capitalLines: copiedLines });
 
-      const reordered = await owner.post(`${base}/scenarios/${id}/options/reorder`).send({ version: 3, order: ['sand-freestall-2', 'grazing', 'sand-freestall'] });
-      expect(reordered.body.scenario.options.map((o: { id: string }) => o.id)).toEqual(['sand-freestall-2', 'grazing', 'sand-freestall']);
+      const current = await save(id, 3, markCurrent(dup.scenario, 'sand-freestall'));
+      expect(current.scenario.options.filter((o) => o.current).map((o) => o.id)).toEqual(['sand-freestall']);
+      expect(current.results.currentOptionId).toBe('sand-freestall');
 
-      const current = await owner.post(`${base}/scenarios/${id}/options/sand-freestall/current`).send({ version: 4 });
-      expect(current.status).toBe(200);
-      expect(current.body.scenario.options.filter((o: { current: boolean }) => o.current).map((o: { id: string }) => o.id)).toEqual(['sand-freestall']);
-      expect(current.body.results.currentOptionId).toBe('sand-freestall');
-
-      const refused = await owner.delete(`${base}/scenarios/${id}/options/sand-freestall?version=5`);
-      expect(refused.status).toBe(400);
-      expect(refused.body.error.fields.optionId).toMatch(/current option cannot be deleted/);
-
-      const removed = await owner.delete(`${base}/scenarios/${id}/options/grazing?version=5`);
-      expect(removed.status).toBe(200);
-      expect(removed.body.version).toBe(6);
-      expect(removed.body.scenario.options.map((o: { id: string }) => o.id)).toEqual(['sand-freestall-2', 'sand-freestall']);
-
-      const missing = await owner.post(`${base}/scenarios/${id}/options/no-such-option/current`).send({ version: 6 });
-      expect(missing.status).toBe(404);
+      const removed = await save(id, 4, deleteOption(current.scenario, 'grazing'));
+      expect(removed.version).toBe(5);
+      expect(removed.scenario.options.map((o) => o.id)).toEqual(['sand-freestall', 'sand-freestall-2']);
+      expect((await owner.get(`${base}/scenarios/${id}/versions`)).body).toHaveLength(5);
     });
 
-    it('refuses a thirteenth option with the field path of the options list', async () => {
+    it('has no option routes beside the whole save', async () => {
+      const created = await createScenario('One way');
+      const s = `${base}/scenarios/${created.id}`;
+      const attempts = [
+        owner.post(`${s}/options`).send({ version: 1, startingPoint: 'sand-freestall' }),
+        owner.post(`${s}/options/reorder`).send({ version: 1, order: ['grazing'] }),
+        owner.post(`${s}/options/grazing/duplicate`).send({ version: 1 }),
+        owner.post(`${s}/options/grazing/current`).send({ version: 1 }),
+        owner.delete(`${s}/options/grazing?version=1`),
+      ];
+      for (const res of await Promise.all(attempts)) expect(res.status).toBe(404);
+      expect((await owner.get(s)).body.version).toBe(1);
+    });
+
+    it('refuses a saved thirteenth option with the field path of the options list', async () => {
       const created = await createScenario('Too many');
-      let version = 1;
-      for (let i = 0; i < 11; i++) {
-        const res = await owner.post(`${base}/scenarios/${created.id}/options`).send({ version, startingPoint: 'steel-freestall' });
-        expect(res.status).toBe(200);
-        version = res.body.version;
-      }
-      const res = await owner.post(`${base}/scenarios/${created.id}/options`).send({ version, startingPoint: 'steel-freestall' });
+      const twelve = structuredClone(created.scenario);
+      for (let i = 0; i < 11; i++) twelve.options.push({ ...structuredClone(twelve.options[0]!), id: `copy-${i}`, current: false, capitalLines: [] });
+      await save(created.id, 1, twelve);
+      const thirteen = { ...twelve, options: [...twelve.options, { ...twelve.options[1]!, id: 'one-too-many' }] };
+      const res = await owner.put(`${base}/scenarios/${created.id}`).send({ version: 2, scenario: thirteen });
       expect(res.status).toBe(400);
       // shared/schema/scenario.ts: a scenario holds at most 12 options.
       expect(res.body.error.fields['scenario.options']).toMatch(/at most 12/);
-      expect((await owner.get(`${base}/scenarios/${created.id}`)).body.version).toBe(version);
+      expect((await owner.get(`${base}/scenarios/${created.id}`)).body.version).toBe(2);
     });
   });
 
@@ -325,10 +333,11 @@ describe('scenario API', () => {
       expect((await owner.get(`${base}/scenarios/${created.id}`)).body.scenario.herd.milkPricePerKg).toBe(winner.body.scenario.herd.milkPricePerKg);
     });
 
-    it('refuses an option operation based on an old version', async () => {
+    it('refuses an option operation saved on an old version', async () => {
       const created = await createScenario('Stale option');
-      await owner.post(`${base}/scenarios/${created.id}/options`).send({ version: 1, startingPoint: 'sand-freestall' }).expect(200);
-      const stale = await partner.post(`${base}/scenarios/${created.id}/options`).send({ version: 1, startingPoint: 'steel-freestall' });
+      const document = created.scenario;
+      await owner.put(`${base}/scenarios/${created.id}`).send({ version: 1, scenario: addOption(document, 'sand-freestall').scenario }).expect(200);
+      const stale = await partner.put(`${base}/scenarios/${created.id}`).send({ version: 1, scenario: addOption(document, 'steel-freestall').scenario });
       expect(stale.status).toBe(409);
       expect(stale.body.error.latest.version).toBe(2);
     });

@@ -115,6 +115,11 @@ describe('the lender sees what the share promises', () => {
     // The sensitivity of the shared version, read-only (no range inputs).
     await risk.getByTestId('sensitivity-table').waitFor();
     expect(await risk.getByTestId('sensitivity-table').locator('input').count()).toBe(0);
+    // Each driver once: the lying-time milk is the response × the hours gained, one row (docs/model.md, Risk).
+    const drivers = await risk.getByTestId('sensitivity-table').locator('tbody th[scope="row"]').allInnerTexts();
+    expect(new Set(drivers).size).toBe(drivers.length);
+    expect(drivers).toContain('Milk response to lying time');
+    expect(drivers).not.toContain('Lying-time gain');
 
     // Coverage by year: pick an option with a year under the lender's threshold when there is one.
     const threshold = scenario.finance.coverageThreshold;
@@ -216,6 +221,18 @@ describe('the lender sees what the share promises', () => {
     await poll(() => page.getByTestId('baseline-refused').count()).toBe(1);
     await fitsPhone(page, 'the refusal');
     await harness.screenshot(page, 'lender-baseline-refused-phone');
+
+    // The milk records are the farm's own data too: the same refusal, no import, no permission error.
+    for (const viewport of [DESKTOP, PHONE]) {
+      await page.setViewportSize(viewport);
+      await page.goto(`/farms/${farmId}/milk-records/import`);
+      await poll(() => page.getByTestId('milk-import-refused').count()).toBe(1);
+      expect(await page.locator('main input').count()).toBe(0);
+      expect(await page.locator('main .p-message-error').count()).toBe(0);
+      expect(await page.getByRole('link', { name: 'Open what is shared with you' }).count()).toBe(1);
+      if (viewport === PHONE) await fitsPhone(page, 'the milk-record refusal');
+      await harness.screenshot(page, `lender-milk-import-refused-${viewport === PHONE ? 'phone' : 'desktop'}`);
+    }
     await context.close();
   });
 

@@ -2,7 +2,7 @@
 import type { Express } from 'express';
 import { createApp, type AppDeps } from '../../server/app.js';
 import { loadConfig, type AppConfig } from '../../server/config.js';
-import { seedDemoData } from '../../server/db/seed.js';
+import { seedDemoData } from '../../server/demo/seed.js';
 import { createLogger } from '../../server/logger.js';
 import { createMemoryMailer, type Mailer } from '../../server/mail/mailer.js';
 import { createTestDatabase, type TestDatabase } from './database.js';

@@ -1,5 +1,5 @@
 import type { RiskSettings, Scenario } from '../../schema';
-import { riskInputKeys, type RiskInputKey } from '../../schema/risk-keys';
+import { riskInputKeys, sensitivityInputKeys, type RiskInputKey } from '../../schema/risk-keys';
 import { anchoredForShocks, evaluateNpvOnly } from '../evaluate';
 import type { FastOptionResult } from '../results';
 import { perturb } from './perturb';
@@ -71,7 +71,7 @@ export function sensitivity(entered: Scenario, ranges: Partial<SensitivityRanges
   // The existing farm's cash moves with the current option's margin at each input's low and high value.
   const scenario = anchoredForShocks(entered);
   const base = evaluateNpvOnly(scenario);
-  const runs = riskInputKeys.map((key) => {
+  const runs = sensitivityInputKeys.map((key) => {
     const range = ranges[key] ?? scenario.risk.sensitivity[key];
     const lowMultiplier = 1 + range.low;
     const highMultiplier = 1 + range.high;

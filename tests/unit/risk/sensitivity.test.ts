@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { riskInputKeys } from '../../../shared/schema';
+import { sensitivityInputKeys } from '../../../shared/schema/risk-keys';
 import { evaluateNpvOnly } from '../../../shared/engine/evaluate';
 import { perturb } from '../../../shared/engine/risk/perturb';
 import { sensitivity, type InputSwing } from '../../../shared/engine/risk/sensitivity';
@@ -14,7 +14,7 @@ describe('sensitivity', () => {
 
   it('moves each key input by the default ±20 % (docs/model.md, Risk)', () => {
     for (const option of result.options) {
-      expect(option.npv.map((s) => s.key).sort()).toEqual([...riskInputKeys].sort());
+      expect(option.npv.map((s) => s.key).sort()).toEqual([...sensitivityInputKeys].sort());
       for (const swing of option.npv) {
         expect(swing.lowMultiplier).toBeCloseTo(0.8, 12);
         expect(swing.highMultiplier).toBeCloseTo(1.2, 12);
@@ -67,5 +67,24 @@ describe('sensitivity', () => {
       }),
       { numRuns: 25 },
     );
+  });
+});
+
+describe('the lying-time milk in the sensitivity', () => {
+  // The cap raised to a full day so no option's lying time reaches it.
+  const base = riskScenario();
+  const scenario = { ...base, herd: { ...base.herd, lyingResponseCapHours: 24 } };
+
+  it('moves the NPV the same whether the response or the hours gained are scaled, so it is listed once', () => {
+    // The lying effect is response × (hours − current hours) (docs/model.md, Milk): scaling either
+    // factor by m scales the product by m, while no option reaches the lying-time cap.
+    for (const m of [0.8, 1.2]) {
+      const byResponse = evaluateNpvOnly(perturb(scenario, 'yieldResponse', m));
+      const byGain = evaluateNpvOnly(perturb(scenario, 'lyingHours', m));
+      byResponse.forEach((option, i) => expect(byGain[i]?.incrementalNpv ?? 0).toBeCloseTo(option.incrementalNpv ?? 0, 6));
+    }
+    const listed = sensitivity(base).options.flatMap((option) => option.npv.map((s) => s.key));
+    expect(listed).toContain('yieldResponse');
+    expect(listed).not.toContain('lyingHours');
   });
 });

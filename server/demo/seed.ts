@@ -7,16 +7,17 @@ import { fileURLToPath } from 'node:url';
 import bcrypt from 'bcryptjs';
 import { count } from 'drizzle-orm';
 import { evaluateScenario } from '../../shared/engine/index.js';
-import { herdSchema, scenarioSchema } from '../../shared/schema/index.js';
+import { herdSchema } from '../../shared/schema/index.js';
+import { readScenarioDocument } from '../../shared/schema/stored-scenario.js';
 import { keep } from '../services/scenario-results.js';
 import { summarise } from '../services/scenarios.js';
-import type { Database } from './client.js';
-import { insertScenario } from './repositories/scenarios.js';
-import type { Executor } from './repositories/farms.js';
-import { insertShare } from './repositories/lender.js';
+import type { Database } from '../db/client.js';
+import { insertScenario } from '../db/repositories/scenarios.js';
+import type { Executor } from '../db/repositories/farms.js';
+import { insertShare } from '../db/repositories/lender.js';
 import { newEmailToken } from '../auth/tokens.js';
 import { utcDatePlusDays } from '../../shared/schema/lender.js';
-import { farmsTable, membershipsTable, usersTable, type FarmRole } from './schema/index.js';
+import { farmsTable, membershipsTable, usersTable, type FarmRole } from '../db/schema/index.js';
 
 const demoDir = fileURLToPath(new URL('../../scenarios/', import.meta.url));
 
@@ -41,7 +42,7 @@ export function readDemoFarm(): DemoFarmFile {
 
 /** One of the demo farm's scenario files, validated as the CLI validates it (a broken file stops the seed with its field paths). */
 export function readDemoScenario(fileName: string) {
-  return scenarioSchema.parse(JSON.parse(readFileSync(`${demoDir}${fileName}`, 'utf8')));
+  return readScenarioDocument(JSON.parse(readFileSync(`${demoDir}${fileName}`, 'utf8')));
 }
 
 export interface SeedResult {

@@ -1,10 +1,15 @@
 /**
- * Request bodies of the farm baseline and scenario API, shared by the server (which parses
- * them) and the client (which sends them). The scenario document itself is `scenarioSchema`.
+ * Request bodies, queries and path parameters of the farm baseline and scenario API, shared by
+ * the server (which parses them) and the client (which sends them). The scenario document
+ * itself is `scenarioSchema`; other areas keep theirs beside their documents (`lender.ts`,
+ * `documents.ts`, `accounts.ts`, `milk-records.ts`).
  */
 import { z } from 'zod';
-import { herdSchema, scenarioSchema, startingPoints } from './schema';
-import { choice, quantity, text } from './schema/fields';
+import { emailTokenSchema } from './accounts';
+import { choice, quantity, text } from './fields';
+import { herdSchema } from './herd';
+import { startingPoints } from './option';
+import { scenarioSchema } from './scenario';
 
 const versionNumber = quantity('Version', '', 1, 2147483647, 'The scenario version this change is based on', { int: true });
 const note = z.string({ error: 'Note must be text' }).trim().max(200, 'Note must be at most 200 characters');
@@ -41,22 +46,6 @@ export const saveScenarioBodySchema = z.object({
   note: note.optional(),
 });
 
-/** Option operations: every one is a save based on `version`. */
-export const addOptionBodySchema = z.object({
-  version: versionNumber,
-  startingPoint,
-  name: text('Option name', 'Name shown to users', 120).optional(),
-});
-export const optionChangeBodySchema = z.object({ version: versionNumber });
-export const duplicateOptionBodySchema = z.object({
-  version: versionNumber,
-  name: text('Option name', 'Name of the copy', 120).optional(),
-});
-export const reorderOptionsBodySchema = z.object({
-  version: versionNumber,
-  order: z.array(text('Option id', 'An option id', 60), { error: 'Order must be a list of option ids' }),
-});
-
 /** POST /scenarios/:id/duplicate. */
 export const duplicateScenarioBodySchema = z.object({
   name: text('Scenario name', 'Name of the copy', 120).optional(),
@@ -80,6 +69,40 @@ export const compareQuerySchema = z.object({
   to: idParamSchema('To version'),
   units: choice('Units', ['metric', 'us'], 'Display units of the comparison; default the farm units').optional(),
 });
-export const versionQuerySchema = z.object({ version: idParamSchema('Version') });
 /** GET S/results/detail: the version to read; default the one the caller sees. */
 export const resultsDetailQuerySchema = z.object({ version: idParamSchema('Version').optional() });
+
+const optionId = z.string({ error: 'Option must be text' }).trim().min(1, 'Option must be chosen').max(60, 'Option id must be at most 60 characters');
+
+/** PUT S/preferences/me: the member's preferred option and why. */
+export const preferenceBodySchema = z.object({
+  optionId,
+  reason: z.string({ error: 'Reason must be text' }).trim().max(500, 'Reason must be at most 500 characters').default(''),
+});
+
+/** POST S/decision: the option the farm decided on. */
+export const decisionBodySchema = z.object({
+  optionId,
+  note: z.string({ error: 'Note must be text' }).trim().max(500, 'Note must be at most 500 characters').default(''),
+});
+
+const finite = (label: string) => z.number({ error: `${label} must be a number` }).finite(`${label} must be a finite number`);
+
+/** PUT S/risk-result: a Monte Carlo result as the engine returns it; checked for shape, kept whole. */
+export const riskResultBodySchema = z.object({
+  scenarioVersion: z.number({ error: 'Scenario version must be a number' }).int('Scenario version must be a whole number').min(1, 'Scenario version must be at least 1'),
+  result: z.looseObject({
+    seed: finite('Result seed'),
+    drawsRequested: finite('Result draws requested'),
+    drawsDone: finite('Result draws done'),
+    cancelled: z.boolean({ error: 'Result cancelled must be true or false' }),
+    coverageThreshold: finite('Result coverage threshold'),
+    options: z.array(z.looseObject({ optionId: z.string({ error: 'Result option id must be text' }) })).min(1, 'Result options must not be empty').max(12, 'Result options: at most 12'),
+  }),
+});
+
+/** Links sent by e-mail (invitations, lender shares): the token in the path. */
+export const tokenParamsSchema = z.object({ token: emailTokenSchema });
+
+/** GET /lender-shares: optionally the shares of one scenario. */
+export const shareFilterQuerySchema = z.object({ scenarioId: idParamSchema('Scenario id').optional() });
