@@ -171,6 +171,9 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
   const level = levelPaymentCents(balance, annualRate, paymentsPerYear, totalPeriods - interestOnlyPeriods);
   // The balance only falls, so the first period's window covers every later one.
   const window = Math.max(TIE_WINDOW, ((balance * annualRate) / paymentsPerYear) * TIE_RELATIVE);
+  // A product instead of a quotient in the loop: the two differ by an ulp or so, far inside the
+  // tie window, so Math.round and the tie test decide every period alike.
+  const periodRate = annualRate / paymentsPerYear;
   let number = 0;
   for (let year = 0; year < years; year++) {
     let yearInterest = 0;
@@ -178,7 +181,7 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
     for (let k = 0; k < paymentsPerYear; k++) {
       number++;
       // isTie inlined: this loop runs for every period of every loan of every Monte Carlo draw.
-      const raw = (balance * annualRate) / paymentsPerYear;
+      const raw = balance * periodRate;
       const whole = Math.floor(raw);
       const fraction = raw - whole;
       const periodInterest =

@@ -13,6 +13,8 @@ import { milkingLyingHours, npvAtMilk, planOption, projectOption, type MilkModel
 import type { CoreOptionResult, CoreScenarioResults, CoverageYear, DecisionFigures, ExpansionSplit, FastOptionResult, IncrementalResult, Metrics, ScenarioResults } from './results';
 import { irrFast } from './irr-fast';
 import { findRoot } from './root';
+import { housingWork } from './housing-work';
+import { steadyLines, type SteadyLines } from './steady-lines';
 import { checkStallDimensions, checkWater } from './sizing';
 import { scenarioWarnings } from './warnings';
 
@@ -304,6 +306,8 @@ export interface FastEvaluationOptions {
    * the unperturbed scenario for a Monte Carlo draw; null or absent = 10 %. Only speed depends on it.
    */
   irrStart?: readonly (number | null)[];
+  /** Each option's steady lines (index = option), when the scenario moves none of them; absent = built here. */
+  steadyLines?: readonly (SteadyLines | null)[];
 }
 
 /**
@@ -315,9 +319,9 @@ export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOpti
   const current = currentOptionOf(scenario);
   const { discountRate } = scenario.finance;
   const currentLying = milkingLyingHours(scenario.herd, current);
-  const runs = scenario.options.map((option) => {
+  const runs = scenario.options.map((option, index) => {
     const { plan } = planOption(scenario, option, 'fast');
-    return { option, plan, projection: projectOption(scenario, option, plan, currentLying, false) };
+    return { option, plan, projection: projectOption(scenario, option, plan, currentLying, false, false, settings.steadyLines?.[index] ?? null) };
   });
   const base = runs.find((run) => run.option === current) ?? runs[0];
   if (!base) return [];
@@ -343,6 +347,14 @@ export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOpti
       minProjectCoverage,
       yearsBelowThreshold,
     };
+  });
+}
+
+/** Each option's steady lines (index = option), to reuse across shocked copies that move none of them. */
+export function steadyLinesOf(scenario: Scenario): SteadyLines[] {
+  return scenario.options.map((option) => {
+    const { plan } = planOption(scenario, option, 'fast');
+    return steadyLines(scenario, option, plan, housingWork(option, plan));
   });
 }
 

@@ -48,35 +48,45 @@ export interface TaxDepreciation {
 
 /**
  * Tax depreciation per year (currency): each purchase depreciated over its life from the year
- * after it is bought; amounts falling after the horizon stay in the book value at H.
+ * after it is bought; amounts falling after the horizon stay in the book value at H. Summed in
+ * whole cents, so every year's total is exact.
  */
 export function taxDepreciation(purchases: readonly PurchaseForTax[], horizon: number, schedule: DepreciationSchedule): TaxDepreciation {
-  const byYear = new Array<number>(horizon + 1).fill(0);
-  let bookValueAtHorizon = 0;
+  const cents = new Float64Array(horizon + 1);
+  // Straight-line amounts are level but for the last year: added as a run (start +, end −), summed once below.
+  const levelRuns = new Float64Array(horizon + 2);
+  let bookCents = 0;
   for (const purchase of purchases) {
     if (purchase.cost <= 0) continue;
+    const inHorizon = Math.max(0, Math.min(purchase.lifeYears, horizon - purchase.year));
     if (!purchase.schedule && schedule === straightLineFast) {
       // straightLineFast's amounts without building its array (this runs for every purchase of
-      // every option of every Monte Carlo draw): the same values, added in the same order.
+      // every option of every Monte Carlo draw).
       const life = purchase.lifeYears;
       const base = wholeCents(purchase.cost);
       const yearly = Math.round(base / life);
-      const last = Math.min(life, horizon - purchase.year);
-      for (let i = 0; i < life; i++) {
-        const amount = (i === life - 1 ? base - yearly * (life - 1) : yearly) / 100;
-        if (i < last) byYear[purchase.year + i + 1] = (byYear[purchase.year + i + 1] ?? 0) + amount;
-        else bookValueAtHorizon += amount;
-      }
+      const lastAmount = base - yearly * (life - 1);
+      const levelYears = Math.min(life - 1, inHorizon);
+      levelRuns[purchase.year + 1] = (levelRuns[purchase.year + 1] ?? 0) + yearly;
+      levelRuns[purchase.year + 1 + levelYears] = (levelRuns[purchase.year + 1 + levelYears] ?? 0) - yearly;
+      bookCents += yearly * (life - 1 - levelYears);
+      if (inHorizon === life) cents[purchase.year + life] = (cents[purchase.year + life] ?? 0) + lastAmount;
+      else bookCents += lastAmount;
       continue;
     }
     const amounts = purchase.schedule ? purchase.schedule(purchase.cost) : schedule(purchase.cost, purchase.lifeYears);
-    const last = Math.min(amounts.length, horizon - purchase.year);
-    for (let i = 0; i < last; i++) {
-      const year = purchase.year + i + 1;
-      const amount = amounts[i] ?? 0;
-      byYear[year] = (byYear[year] ?? 0) + amount;
+    const last = Math.min(amounts.length, inHorizon);
+    for (let i = 0; i < amounts.length; i++) {
+      const amount = Math.round((amounts[i] ?? 0) * 100);
+      if (i < last) cents[purchase.year + i + 1] = (cents[purchase.year + i + 1] ?? 0) + amount;
+      else bookCents += amount;
     }
-    for (let i = last; i < amounts.length; i++) bookValueAtHorizon += amounts[i] ?? 0;
   }
-  return { byYear, bookValueAtHorizon };
+  const byYear = new Array<number>(horizon + 1).fill(0);
+  let level = 0;
+  for (let year = 1; year <= horizon; year++) {
+    level += levelRuns[year] ?? 0;
+    byYear[year] = ((cents[year] ?? 0) + level) / 100;
+  }
+  return { byYear, bookValueAtHorizon: bookCents / 100 };
 }

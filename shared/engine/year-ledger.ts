@@ -5,20 +5,18 @@
 import type { Option, Scenario } from '../schema';
 import { maintenanceCostPerYear } from './capital';
 import { roundCentsFast } from './cents';
-import { energyCostToday } from './energy';
 import { baseFeedCostPerYear, marginalFeedCostPerYear } from './feed';
 import { resolvedGrowth } from './growth';
-import { cullingCostPerYear, extraCullsPer100Cows, healthCostPerYear } from './health';
-import { herdReplacementCostPerYear, milkingHoursPerYear, otherCowCostsPerYear } from './herd-costs';
+import { milkingHoursPerYear } from './herd-costs';
 import { housingWork } from './housing-work';
 import { labourCost } from './labour';
 import { K_TO_K2O, P_TO_P2O5 } from './manure';
 import { openMilkModel, optionYield, type MilkModel } from './milk-model';
-import { optionManure } from './option-manure';
 import type { OptionPlan } from './plan';
 import type { YearLine } from './results';
 import { grownRunningCosts, runningCostsByGrowth, type GrowthFactors } from './running-costs';
 import { emptySettlement, noiseFreeCents, settleYear } from './settle-year';
+import { steadyLines, type SteadyLines } from './steady-lines';
 import { milkSoldKgPerYear } from './yield';
 
 export interface Projection {
@@ -36,7 +34,8 @@ export interface Projection {
  * The yearly flows of one option, t = 0..H (currency, nominal). Every money line is rounded to
  * cents half-up exactly as decimal.js does (cents.ts roundCentsFast) before it enters a total, so
  * net = Σ lines exactly. With `withMilkModel` it also returns the option's milk model for the
- * break-even searches.
+ * break-even searches. `steady` (from {@link steadyLines}) may carry the option's steady lines
+ * already built for inputs that move none of them.
  */
 export function projectOption(
   scenario: Scenario,
@@ -45,6 +44,7 @@ export function projectOption(
   currentLyingHours: number,
   detail: boolean,
   withMilkModel = false,
+  steady: SteadyLines | null = null,
 ): Projection {
   const round = roundCentsFast;
   const centsTotal = noiseFreeCents;
@@ -55,11 +55,12 @@ export function projectOption(
   const response = herd.lyingResponseKgPerHour;
 
   // Price-independent pieces of each line, per cow or per year in today's money.
-  const energyToday = energyCostToday(option.energyLines);
   const runningByGrowth = runningCostsByGrowth(option.runningCosts);
   // Maintenance and insurance fall on the new capital and on any existing housing the option keeps using.
   const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate + option.insuranceRate, plan.capitalTotal + option.existingHousingValue);
   const work = housingWork(option, plan);
+  const fixed = steady ?? steadyLines(scenario, option, plan, work);
+  const manure = fixed.manure;
   const { scrapingHours, bedCareHours, beddingTopUpHours, troughHours, grazingHours, beddingTonnes } = work;
 
   const cashFlows = new Array<number>(H + 1);
@@ -80,10 +81,6 @@ export function projectOption(
   const milk: MilkModel | null = withMilkModel ? openMilkModel(scenario, option, plan, currentLyingHours) : null;
   const baselineMilkPerCow = milkSoldKgPerYear(1, herd.yieldKgPerCowDay);
   const feedPerCow = baseFeedCostPerYear(1, plan.housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
-  const healthPerCow = healthCostPerYear(1, option.health);
-  const cullingPerCow = cullingCostPerYear(extraCullsPer100Cows(option.health), 1, herd.replacementHeiferCost, herd.cullCowValue);
-  const herdReplacementPerCow = herdReplacementCostPerYear(herd.replacementRate, 1, herd.replacementHeiferCost, herd.cullCowValue);
-  const manure = optionManure(herd, option, plan, work.beddingStoredM3);
 
   const settled = emptySettlement();
   // This year's growth factors per price group, updated in place year by year.
@@ -120,13 +117,7 @@ export function projectOption(
     const labourGrazing = round(labourCost(grazingHours, wage, gWage));
     const milkingHours = milkingHoursPerYear(herd.milkingHoursPerCowYear, cows);
     const labourMilking = round(labourCost(milkingHours, wage, gWage));
-    const bedding = round(work.beddingCostToday * gBedding);
-    const health = round(healthPerCow * cows * gGeneral);
-    const culling = round(cullingPerCow * cows * gGeneral);
-    const herdReplacement = round(herdReplacementPerCow * cows * gGeneral);
-    const otherCowCosts = round(otherCowCostsPerYear(herd.otherVariableCostPerCowYear, cows) * gGeneral);
     const maintenance = round(maintenanceToday * gGeneral);
-    const energy = round(energyToday * gGeneral);
     factors.milkPrice = gMilk;
     factors.feed = gFeed;
     factors.wages = gWage;
@@ -134,12 +125,9 @@ export function projectOption(
     factors.fertiliser = gFert;
     factors.general = gGeneral;
     const runningCosts = round(grownRunningCosts(runningByGrowth, factors));
-    const manureValue = round(manure.valueToday(cows) * gFert);
-    const storedM3 = manure.storedM3(cows);
-    const manureHandling = round(storedM3 * manure.handlingPerM3 * gGeneral);
+    // Every term is in whole cents, so grouping the steady lines changes no cent of the total.
     const operatingMargin = centsTotal(
-      milkIncome + manureValue - feed - labourScraping - labourBedCare - labourBeddingTopUp - labourTroughs - labourGrazing - labourMilking -
-        bedding - health - culling - herdReplacement - otherCowCosts - maintenance - energy - runningCosts - manureHandling,
+      milkIncome - feed - labourScraping - labourBedCare - labourBeddingTopUp - labourTroughs - labourGrazing - labourMilking - maintenance - runningCosts + (fixed.net[t] ?? 0),
     );
 
     settleYear(settled, plan, finance, t, operatingMargin, lossCarried, round, centsTotal);
@@ -152,6 +140,7 @@ export function projectOption(
     if (milk) milk.otherMargin[t] = operatingMargin - milkIncome + feed;
 
     if (lines) {
+      const storedM3 = fixed.storedM3[t] ?? 0;
       const repaidAtHorizon = t === H ? round(plan.loanBalanceAtHorizon) : 0;
       lines.push({
         year: t,
@@ -166,16 +155,16 @@ export function projectOption(
         labourTroughs,
         labourGrazing,
         labourMilking,
-        bedding,
-        health,
-        culling,
-        herdReplacement,
-        otherCowCosts,
+        bedding: fixed.bedding[t] ?? 0,
+        health: fixed.health[t] ?? 0,
+        culling: fixed.culling[t] ?? 0,
+        herdReplacement: fixed.herdReplacement[t] ?? 0,
+        otherCowCosts: fixed.otherCowCosts[t] ?? 0,
         maintenance,
-        energy,
+        energy: fixed.energy[t] ?? 0,
         runningCosts,
-        manureValue,
-        manureHandling,
+        manureValue: fixed.manureValue[t] ?? 0,
+        manureHandling: fixed.manureHandling[t] ?? 0,
         operatingMargin,
         capital: 0,
         grants: 0,

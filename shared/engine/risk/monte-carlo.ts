@@ -1,9 +1,9 @@
 import type { MonteCarloInput, RiskInputKey, RiskSettings, Scenario } from '../../schema';
-import { perturb } from './perturb';
+import { KEYS_LEAVING_STEADY_LINES, perturb } from './perturb';
 import { createRandom, type Random } from './random';
 import { normalCdf, normalQuantile, triangularQuantile, truncatedNormalQuantile } from './distributions';
 import { histogram, mean, percentileSorted, sortedCopy, type HistogramBin } from './statistics';
-import { anchoredForShocks, evaluateNpvOnly } from '../evaluate';
+import { anchoredForShocks, evaluateNpvOnly, steadyLinesOf } from '../evaluate';
 import type { FastOptionResult } from '../results';
 
 type SchemaMonteCarlo = RiskSettings['monteCarlo'];
@@ -210,6 +210,8 @@ export function createMonteCarloRun(entered: Scenario, settings: MonteCarloSetti
   let cancelled = false;
   // Each draw's IRR search starts from the unperturbed IRR, close to where most draws land.
   const irrStart = total > 0 ? evaluateNpvOnly(scenario).map((result) => result.irr) : [];
+  const steadyLines = total > 0 && settings.inputs.every((input) => KEYS_LEAVING_STEADY_LINES.has(input.key)) ? steadyLinesOf(scenario) : undefined;
+  const drawOptions = { irrStart, steadyLines };
 
   const record = (outcomes: readonly FastOptionResult[]): void => {
     outcomes.forEach((outcome, i) => {
@@ -233,7 +235,7 @@ export function createMonteCarloRun(entered: Scenario, settings: MonteCarloSetti
     step(n: number): number {
       const end = Math.min(total, done + Math.max(0, Math.floor(n)));
       while (!cancelled && done < end) {
-        record(evaluateNpvOnly(drawScenario(scenario, settings, random), { irrStart }));
+        record(evaluateNpvOnly(drawScenario(scenario, settings, random), drawOptions));
         done += 1;
       }
       return done;

@@ -167,6 +167,25 @@ const SCALERS: Readonly<Record<RiskInputKey, (scenario: Scenario, m: number) => 
   lyingHours: scaleLyingGain,
 };
 
+/**
+ * Inputs that move none of the steady lines (`steady-lines.ts`: bedding, health, culling, herd
+ * replacement, other cow costs, energy, manure; herd, stalls and housed days): a run drawing only
+ * these builds those lines once. A key left out is simply rebuilt every draw.
+ */
+export const KEYS_LEAVING_STEADY_LINES: ReadonlySet<RiskInputKey> = new Set<RiskInputKey>([
+  'milkPrice',
+  'yieldResponse',
+  'capitalCost',
+  'interestRate',
+  'wage',
+  'housedFeedCost',
+  'grazingFeedCost',
+  'marginalFeedCost',
+  'systemYield',
+  'milkFeedGrowthGap',
+  'lyingHours',
+]);
+
 /** Applies one multiplier to one key input; returns a new scenario, the input untouched. */
 export function perturb(scenario: Scenario, key: RiskInputKey, multiplier: number): Scenario {
   return multiplier === 1 ? scenario : SCALERS[key](scenario, multiplier);
