@@ -22,6 +22,8 @@ function option(id: string, fields: Partial<OptionResult>): OptionResult {
     years: [{}, { cashAvailableForDebtService: 0 }, { cashAvailableForDebtService: 0 }],
     loan: { years: [] },
     breakEvenMilkPriceForCoverage: { atOne: null, atThreshold: null },
+    // The engine gives the current option no change against itself (docs/model.md).
+    incremental: null,
     ...fields,
   } as unknown as OptionResult;
 }
