@@ -1,5 +1,6 @@
 /** The options side by side: capital and financing (engine values) and the key results as links to the live cells. */
 import type ExcelJS from 'exceljs';
+import { herdCostsEntered } from '../../shared/herd-costs.js';
 import { METRIC_ROW } from './cash-flows.js';
 import { INPUT_NAMES as N, optionName, type OptionLayout, type WorkbookContext } from './context.js';
 import {
@@ -148,8 +149,7 @@ function splitRows(context: WorkbookContext): (ComparisonRow | string)[] {
     if (!o.result.incremental?.split) return 'no herd change';
     return value ?? fallback;
   };
-  const { herd } = context.scenario;
-  const costsEntered = herd.otherVariableCostPerCowYear > 0 || herd.milkingHoursPerCowYear > 0 || herd.replacementRate > 0;
+  const costsEntered = herdCostsEntered(context.scenario.herd);
   const title = 'The change in two parts: the housing with today\'s herd, and the expansion (the added cows)';
   return [
     costsEntered ? title : `${title} — no cost per cow besides feed is entered, so the expansion part leaves out vet, breeding, milking labour and replacement`,
