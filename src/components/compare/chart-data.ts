@@ -4,6 +4,7 @@
  * view read the same ChartData, so the table is exactly what the chart draws. Pure.
  */
 import { capitalAssets, cumulative, discount, type OptionResult, type ScenarioResults } from '@shared/engine';
+import { isCandidate } from '@shared/candidates';
 import type { Scenario } from '@shared/schema';
 import { optionColour, optionDash } from '@/composables/useOptionColours';
 import { sumCents } from '@/components/results/projection-rows';
@@ -45,9 +46,9 @@ export function cumulativeDiscountedChart(scenario: Scenario, results: ScenarioR
     categories: yearLabels(results.horizonYears + 1),
     categoryTitle: 'Year',
     unit: 'money',
-    series: results.options.filter((o) => !o.current && o.incremental).map((o) => ({
+    series: results.options.filter(isCandidate).map((o) => ({
       name: o.name,
-      data: cumulative(discount(rate, o.incremental?.cashFlows ?? [])).map((v) => Math.round(v * 100) / 100),
+      data: cumulative(discount(rate, o.incremental.cashFlows)).map((v) => Math.round(v * 100) / 100),
       colour: optionColour(indexOf(scenario, o.id)),
       dash: optionDash(indexOf(scenario, o.id)),
     })),
@@ -61,8 +62,8 @@ export function incrementalCashFlowChart(scenario: Scenario, results: ScenarioRe
     categoryTitle: 'Year',
     unit: 'money',
     series: results.options
-      .filter((o) => !o.current && o.incremental)
-      .map((o) => ({ name: o.name, data: [...(o.incremental?.cashFlows ?? [])], colour: optionColour(indexOf(scenario, o.id)) })),
+      .filter(isCandidate)
+      .map((o) => ({ name: o.name, data: [...o.incremental.cashFlows], colour: optionColour(indexOf(scenario, o.id)) })),
   };
 }
 
