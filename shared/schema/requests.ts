@@ -57,13 +57,16 @@ export const restoreVersionBodySchema = z.object({
   note: note.optional(),
 });
 
-/** Path and query numbers: a scenario id, a version, a compare pair. */
+/**
+ * Path and query numbers: a scenario id, a version, a compare pair. They arrive as text, and only
+ * plain digits are an id: "1e3", "0x10" or " 7" would coerce to a number but name no row.
+ */
 export const idParamSchema = (label: string) =>
   z
-    .coerce.number({ error: `${label} must be a number` })
-    .int(`${label} must be a whole number`)
-    .min(1, `${label} must be at least 1`)
-    .max(4_294_967_295, `${label} is too large`);
+    .string({ error: `${label} must be a number` })
+    .regex(/^\d+$/, `${label} must be a whole number`)
+    .transform(Number)
+    .pipe(z.number().min(1, `${label} must be at least 1`).max(4_294_967_295, `${label} is too large`));
 export const compareQuerySchema = z.object({
   from: idParamSchema('From version'),
   to: idParamSchema('To version'),
