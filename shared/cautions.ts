@@ -15,7 +15,7 @@ export const OPTION_CAUTIONS = {
   permits:
     'A new barn, manure store or a larger herd usually needs building, planning and environmental permits, and the manure must fit the farm\'s nutrient rules. Check with the local authority and a nutrient adviser before committing.',
   biosecurity:
-    'Bought-in cows can bring disease (for example BVD, Johne\'s disease, bovine TB, digital dermatitis). Buy from herds of known health status, test and isolate new cows, and agree a plan with the herd vet.',
+    'Growing the herd: cows bought in from other herds can bring disease (for example BVD, Johne\'s disease, bovine TB, digital dermatitis). Buy from herds of known health status, test and isolate new cows, and agree a plan with the herd vet; heifers reared at home bring in no disease from outside the herd.',
 } as const;
 
 export type OptionCautionKey = keyof typeof OPTION_CAUTIONS;

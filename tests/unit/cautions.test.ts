@@ -40,7 +40,7 @@ describe('cautions where the work can hurt (README, "Cautions")', () => {
     expect(OPTION_CAUTIONS.movingIndoors).toMatch(/vet and hoof trimmer/);
     expect(OPTION_CAUTIONS.permits).toMatch(/permits/);
     expect(OPTION_CAUTIONS.permits).toMatch(/nutrient rules/);
-    expect(OPTION_CAUTIONS.biosecurity).toMatch(/Bought-in cows/);
+    expect(OPTION_CAUTIONS.biosecurity).toMatch(/cows bought in from other herds/);
     expect(OPTION_CAUTIONS.biosecurity).toMatch(/isolate/);
   });
 
