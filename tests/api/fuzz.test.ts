@@ -123,6 +123,29 @@ describe('fuzzing every JSON body and query through the real routes', () => {
     );
   }, 900_000);
 
+  it('answers near-valid whole-document saves with one option field broken without a 5xx', async () => {
+    // Options are added, renamed and reordered in the client and saved whole with PUT: a lone
+    // surrogate in an option's name once gave a 500 on that path, so the fuzz breaks one field
+    // of one option (or the option list itself) in an otherwise valid save.
+    await fc.assert(
+      fc.asyncProperty(fc.nat(), fc.nat(), fc.oneof(nastyString, value), async (which, key, replacement) => {
+        const { base, version } = await latest();
+        const { scenario } = (await request(t.app).get(base).set('cookie', owner)).body as { scenario: { options: Record<string, unknown>[] } };
+        const options = scenario.options;
+        const option = options[which % options.length]!;
+        const fields = ['name', 'id', 'kind', 'current', 'herdChange', 'capitalLines', 'list'];
+        const field = fields[key % fields.length]!;
+        if (field === 'list') (options as unknown[]).splice(key % options.length, 1, replacement);
+        else option[field] = replacement;
+        const res = await request(t.app).put(base).set('cookie', owner).send({ version, scenario });
+        const where = `PUT ${field} ${JSON.stringify(replacement).slice(0, 120)}`;
+        expect(res.status, where).toBeLessThan(500);
+        if (res.status === 400 && res.body.error?.code === 'invalid_input') expect(Object.keys(res.body.error.fields ?? {}).length, where).toBeGreaterThan(0);
+      }),
+      { numRuns: 300, seed: 20_261_204, endOnFailure: true },
+    );
+  }, 900_000);
+
   it(`answers ${RUNS} random requests without a 5xx, and names a field in every 400`, async () => {
     let sent = 0;
     await fc.assert(
