@@ -27,6 +27,7 @@ import {
   listVersions,
   lockScenario,
   setScenarioStatus,
+  updateScenarioSummary,
   updateScenarioVersion,
   type Executor,
   type ScenarioHead,
@@ -70,7 +71,9 @@ function assertVersionVisible(access: Access, scenarioId: number, version: numbe
 export function summarise(results: { options: readonly { id: string; name: string; incremental: { npv: number } | null }[] }): ScenarioSummary {
   const first = candidatesByChange(results.options)[0];
   const best = first ? { optionId: first.id, name: first.name, npv: first.incremental.npv } : null;
-  return { optionCount: results.options.length, best };
+  // Stamped with the engine key: when the engine or this rule changes (ENGINE_VERSION is raised
+  // with either), the list remakes the summary instead of showing the old rule's best.
+  return { optionCount: results.options.length, best, engineKey: resultsCacheKey() };
 }
 
 /** The answer of GET S written around the kept texts, which are sent as they are. */
@@ -123,6 +126,14 @@ async function visibleHead(db: Executor, actor: ScenarioActor, scenarioId: numbe
   return { ...head, version: found.version, updatedAt: found.createdAt, updatedBy: found.author };
 }
 
+/** The record with a summary made under today's engine key: one made under another is remade from the kept results and written back. */
+async function withCurrentSummary(db: Database, record: ScenarioRecord): Promise<ScenarioRecord> {
+  if (record.summary.engineKey === resultsCacheKey()) return record;
+  const summary = summarise(JSON.parse((await keptResults(db, record.id, record.version)).summary) as ScenarioResultsSummary);
+  await updateScenarioSummary(db, record.id, record.version, summary);
+  return { ...record, summary };
+}
+
 /** The farm's scenarios the caller may see, most recently saved first. */
 export async function listFarmScenarios(db: Database, actor: ScenarioActor): Promise<ScenarioListItem[]> {
   const access = await accessOf(db, actor);
@@ -136,7 +147,7 @@ export async function listFarmScenarios(db: Database, actor: ScenarioActor): Pro
           return { ...seen, name: kept.name, summary: summarise(JSON.parse(kept.summary) as ScenarioResultsSummary) };
         }),
       )
-    : visible;
+    : await Promise.all(visible.map((record) => withCurrentSummary(db, record)));
   return records
     .map((record) => ({
       id: record.id,

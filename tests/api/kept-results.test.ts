@@ -12,7 +12,7 @@ import { evaluateScenario } from '../../shared/engine/evaluate.js';
 import { joinOption, type OptionDetail, type ScenarioResultsSummary } from '../../shared/engine/result-parts.js';
 import { ENGINE_VERSION, resultsCacheKey } from '../../shared/engine/version.js';
 import type { Scenario } from '../../shared/schema/index.js';
-import { scenarioResultsTable } from '../../server/db/schema/index.js';
+import { scenarioResultsTable, scenariosTable } from '../../server/db/schema/index.js';
 import { forgetEncodedTexts } from '../../server/http/json-text.js';
 import { forgetRememberedResults as forgetKept, keptEvaluationCount } from '../../server/services/scenario-results.js';
 import { createTestApp, type TestApp } from '../helpers/app.js';
@@ -106,6 +106,27 @@ describe('kept results', () => {
     expect(keptEvaluationCount()).toBe(before + 1);
     const rows = (await keptRows(scenarioId)).filter((r) => r.version === read.body.version);
     expect(rows).toEqual([{ version: read.body.version, engineKey: resultsCacheKey() }]);
+  });
+
+  it('remakes a list summary made under an older rule or engine once, from the kept results', async () => {
+    // A row saved before the summary carried its engine key, naming the current option as the
+    // best (the old rule): the list must show the best candidate by the NPV of its change.
+    const read = await owner.get(path());
+    const stale = { optionCount: 1, best: { optionId: 'old', name: 'Named by the old rule', npv: 1 } };
+    await t.database.db.update(scenariosTable).set({ summary: stale }).where(eq(scenariosTable.id, scenarioId));
+    const expected = evaluateScenario(read.body.scenario as Scenario).options
+      .filter((o) => o.incremental !== null)
+      .sort((a, b) => b.incremental!.npv - a.incremental!.npv)[0]!;
+    const listed = async () => ((await owner.get(`/api/farms/${farmId}/scenarios`)).body as { id: number; optionCount: number; best: { optionId: string; npv: number } }[]).find((s) => s.id === scenarioId)!;
+    const first = await listed();
+    expect(first.optionCount).toBe((read.body.scenario as Scenario).options.length);
+    expect(first.best.optionId).toBe(expected.id);
+    expect(first.best.npv).toBeCloseTo(expected.incremental!.npv, 2);
+    const [row] = await t.database.db.select({ summary: scenariosTable.summary }).from(scenariosTable).where(eq(scenariosTable.id, scenarioId));
+    const written = (typeof row!.summary === 'string' ? JSON.parse(row!.summary) : row!.summary) as { engineKey: string; best: { optionId: string } };
+    expect(written.engineKey).toBe(resultsCacheKey());
+    expect(written.best.optionId).toBe(expected.id);
+    expect(await listed()).toEqual(first);
   });
 
   it('answers 304 to a read that names the ETag it already has', async () => {

@@ -10,6 +10,8 @@ import { scenariosTable, scenarioVersionsTable, usersTable, type ScenarioStatus 
 export interface ScenarioSummary {
   optionCount: number;
   best: { optionId: string; name: string; npv: number } | null;
+  /** The engine key it was made under (absent on rows saved before it was kept): another key means remake it. */
+  engineKey?: string;
 }
 
 export interface ScenarioRecord {
@@ -89,6 +91,14 @@ export async function listScenarios(db: Executor, farmId: number): Promise<Scena
 export async function findScenario(db: Executor, farmId: number, scenarioId: number): Promise<ScenarioRecord | null> {
   const [row] = await selectScenarios(db).where(and(eq(scenariosTable.farmId, farmId), eq(scenariosTable.id, scenarioId)));
   return row ? toRecord(row) : null;
+}
+
+/** Rewrites the list summary of a scenario still at this version (a save since then wrote its own). */
+export async function updateScenarioSummary(db: Executor, scenarioId: number, version: number, summary: ScenarioSummary): Promise<void> {
+  await db
+    .update(scenariosTable)
+    .set({ summary })
+    .where(and(eq(scenariosTable.id, scenarioId), eq(scenariosTable.version, version)));
 }
 
 /** A scenario record without its document and summary: what a read needs when the results are kept. */
