@@ -25,11 +25,12 @@ export function measureText(measure: Measure, value: number, format: MoneyFormat
 /** Short text and the full reason for a measure an option lacks. */
 export function missingText(measure: Measure, option: OptionSummary, horizon: number): { short: string; reason: string } {
   const change = option.incremental;
-  const ofTheChange = ['irr', 'mirr', 'paybackYears', 'paybackFromOperationsYears', 'discountedPaybackYears', 'profitabilityIndex', 'lowestProjectCoverage'].includes(measure.key);
-  if (ofTheChange && (option.current || !change)) {
+  // Returns on the extra outlay, which a change without one does not have.
+  const onTheOutlay = ['irr', 'mirr', 'paybackYears', 'paybackFromOperationsYears', 'discountedPaybackYears', 'profitabilityIndex', 'lowestProjectCoverage'].includes(measure.key);
+  if (option.current && (onTheOutlay || measure.key === 'incrementalNpv')) {
     return { short: '—', reason: 'the current option is what the others are measured against' };
   }
-  if (ofTheChange && change && change.cashFlows[0] !== undefined && change.cashFlows[0] >= 0) {
+  if (onTheOutlay && change && change.cashFlows[0] !== undefined && change.cashFlows[0] >= 0) {
     return { short: 'no extra outlay', reason: 'this option needs no more capital than the current one, so there is no investment to earn a return on; read its NPV against the current option' };
   }
   switch (measure.key) {

@@ -61,7 +61,7 @@ const stressedCoverage = (o: OptionSummary): number | null => o.stress.find((s) 
  * whole herd's margin and is labelled so).
  */
 export const MEASURES: readonly Measure[] = [
-  { key: 'incrementalNpv', label: 'NPV of the change against the current option', kind: 'money', higherIsBetter: true, value: (o) => (o.current ? 0 : (o.incremental?.npv ?? null)) },
+  { key: 'incrementalNpv', label: 'NPV of the change against the current option', kind: 'money', higherIsBetter: true, value: (o) => change(o)?.npv ?? null },
   { key: 'irr', label: 'IRR of the change', kind: 'percent', higherIsBetter: true, value: (o) => investmentIrr(o) },
   { key: 'mirr', label: 'MIRR of the change', kind: 'percent', higherIsBetter: true, value: (o) => change(o)?.mirr ?? null },
   { key: 'paybackFromOperationsYears', label: 'Payback of the change from operations', kind: 'years', higherIsBetter: false, value: (o) => change(o)?.paybackFromOperationsYears ?? null },

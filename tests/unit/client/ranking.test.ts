@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { OptionResult } from '../../../shared/engine/results';
 import { candidatesByChange } from '../../../shared/candidates';
+import { missingText } from '../../../src/components/compare/measure-format';
 import { MEASURES, measureByKey, rankOptions } from '../../../src/components/compare/ranking';
 
 /** Only the fields the measures read; the rest of OptionResult does not matter to ranking. */
@@ -31,6 +32,9 @@ describe('ranking options by a measure', () => {
     expect(measureByKey('irr').value(barn)).toBe(0.04);
     expect(measureByKey('paybackYears').value(barn)).toBe(14);
     expect(measureByKey('irr').value(current)).toBeNull();
+    // The reference has no change of its own: no "NPV of the change 0.00" in its column.
+    expect(measureByKey('incrementalNpv').value(current)).toBeNull();
+    expect(missingText(measureByKey('incrementalNpv'), current, 20).reason).toMatch(/measured against/);
     const saving = option('cheaper', { incremental: { irr: 0.6, irrKind: 'borrowing', cashFlows: [50, -10] } as OptionResult['incremental'] });
     expect(measureByKey('irr').value(saving)).toBeNull();
   });
