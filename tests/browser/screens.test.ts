@@ -215,6 +215,23 @@ describe('the screens a family and a bank read', () => {
     await context.close();
   });
 
+  it('shows the administrator’s users as cards on a phone, every e-mail address on one line', async () => {
+    // docs/design.md (Habits, Phone): a table of records becomes a card a row, label beside value.
+    const context = await harness.newContext(PHONE);
+    const page = await context.newPage();
+    await signInThroughForm(page, 'admin@byrecast.test');
+    await page.goto('/admin/users');
+    const cells = page.locator('td[data-label="E-mail"]');
+    await expect.poll(() => cells.count()).toBe(5);
+    expect(await page.locator('.record-table thead').isVisible()).toBe(false);
+    for (const cell of await cells.all()) {
+      const read = await cell.evaluate((td) => ({ height: td.getBoundingClientRect().height, line: parseFloat(getComputedStyle(td).lineHeight) || parseFloat(getComputedStyle(td).fontSize) * 1.5, text: td.textContent ?? '' }));
+      expect(read.height, `${read.text} wraps`).toBeLessThan(read.line * 2);
+    }
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+    await harness.screenshot(page, 'admin-users-phone');
+  });
+
   it('keeps every role’s whole name on one line in the phone’s top bar', async () => {
     for (const role of ['owner', 'partner', 'consultant', 'lender', 'admin']) {
       const context = await harness.newContext(PHONE);
