@@ -9,7 +9,7 @@ import type { FarmRole } from '../db/schema/index.js';
 import { findMembership, findUserById, findUserWithMembership, type User } from '../db/repositories/users.js';
 import { forbidden, notFound, unauthorized } from '../errors.js';
 import { idParam } from '../http/params.js';
-import { roleAllows, type Permission } from './permissions.js';
+import { roleAllows, type Permission } from '../../shared/permissions.js';
 import { clearSession, issueSession, readSession, SESSION_LIFETIME_SECONDS } from './session.js';
 
 declare module 'express-serve-static-core' {

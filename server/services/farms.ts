@@ -1,7 +1,7 @@
 /** The caller's farms: listing, creating one (the creator becomes its owner), and one farm's details. */
 import type { FarmDetail, FarmSummary } from '../../shared/responses.js';
 import type { CreateFarmInput, FarmRole } from '../../shared/schema/accounts.js';
-import { roleAllows } from '../auth/permissions.js';
+import { roleAllows } from '../../shared/permissions.js';
 import type { Database } from '../db/client.js';
 import { findFarm, insertFarmWithOwner, listFarmsOfUser } from '../db/repositories/farms.js';
 import { notFound } from '../errors.js';

@@ -6,6 +6,7 @@ import { farmsApi, type FarmDetail } from '@/api/farms';
 import { messageFor } from '@/api/messages';
 import { scenariosApi, type CreateScenarioBody, type ScenarioListItem } from '@/api/scenarios';
 import type { DisplaySettings } from '@/composables/useFormat';
+import { roleAllows, type Permission } from '@shared/permissions';
 import type { Herd } from '@shared/schema';
 
 export const useFarmStore = defineStore('farm', () => {
@@ -17,7 +18,11 @@ export const useFarmStore = defineStore('farm', () => {
   const loaded = ref(false);
   let pending: Promise<void> | null = null;
 
-  const canEdit = computed(() => farm.value !== null && farm.value.role !== 'lender');
+  /** The caller's role on this farm allows it (the server's own permission table); false before the farm loads. */
+  function can(permission: Permission): boolean {
+    return farm.value !== null && roleAllows(farm.value.role, permission);
+  }
+  const canEdit = computed(() => can('scenario:write'));
   const display = computed<DisplaySettings>(() => ({
     units: baseline.value?.units ?? farm.value?.units ?? 'metric',
     locale: baseline.value?.locale ?? farm.value?.locale ?? 'en-IE',
@@ -39,7 +44,7 @@ export const useFarmStore = defineStore('farm', () => {
     // A lender is not shown the herd baseline (the API refuses it): ask only for what they may see.
     pending = farmsApi
       .get(id)
-      .then((detail) => Promise.all([detail, detail.role === 'lender' ? null : baselineApi.get(id), scenariosApi.list(id)]))
+      .then((detail) => Promise.all([detail, roleAllows(detail.role, 'baseline:read') ? baselineApi.get(id) : null, scenariosApi.list(id)]))
       .then(([detail, base, list]) => {
         farm.value = detail;
         baseline.value = base;
@@ -110,6 +115,7 @@ export const useFarmStore = defineStore('farm', () => {
     scenarios: readonly(scenarios),
     loadError: readonly(loadError),
     loaded: readonly(loaded),
+    can,
     canEdit,
     display,
     load,

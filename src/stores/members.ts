@@ -3,6 +3,7 @@ import { defineStore } from 'pinia';
 import { readonly, ref } from 'vue';
 import { farmsApi, type FarmSummary } from '@/api/farms';
 import { membersApi, type FarmMember, type PendingInvitation } from '@/api/members';
+import { roleAllows } from '@shared/permissions';
 import type { FarmRole, InviteInput } from '@shared/schema/accounts';
 
 export const useMembersStore = defineStore('farm-members', () => {
@@ -19,7 +20,7 @@ export const useMembersStore = defineStore('farm-members', () => {
     const [detail, list] = await Promise.all([farmsApi.get(farmId), membersApi.list(farmId)]);
     farm.value = detail;
     members.value = list;
-    invitations.value = detail.role === 'owner' ? await membersApi.invitations(farmId) : [];
+    invitations.value = roleAllows(detail.role, 'members:manage') ? await membersApi.invitations(farmId) : [];
   }
 
   function requireFarm(): number {

@@ -8,7 +8,7 @@
 import request from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
 import { farmRouteRegistry, type FarmRouteRecord } from '../../server/auth/middleware.js';
-import { permissionTable, roleAllows } from '../../server/auth/permissions.js';
+import { permissionTable, roleAllows } from '../../shared/permissions.js';
 import { SESSION_COOKIE } from '../../server/auth/session.js';
 import { farmRoles, type FarmRole } from '../../server/db/schema/index.js';
 import { createTestApp } from '../helpers/app.js';

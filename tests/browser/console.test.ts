@@ -75,6 +75,22 @@ describe('a clean console on every screen', () => {
     await context.close();
   });
 
+  it('shows the consultant every farm screen without a console error, the owner-only lender activity as a refusal', async () => {
+    // docs/product.md (roles): the lender activity is the owner's; the client asks the same
+    // permission table (shared/permissions.ts) before it fetches, so no refused request is logged.
+    const context = await harness.newContext();
+    const page = await context.newPage();
+    const { troubles, at } = watch(page);
+    await signInThroughForm(page, 'consultant@byrecast.test');
+    const farm = `/farms/${farmId}`;
+    await visitAll(page, [farm, `${farm}/baseline`, `${farm}/documents`, `${farm}/members`, `${farm}/audit-log`, `${farm}/scenarios/${scenarioIds[0]}/lender`], at);
+    expect(troubles).toEqual([]);
+    await page.goto(`${farm}/audit-log`);
+    await page.getByTestId('audit-refused').waitFor();
+    expect(await page.getByRole('link', { name: 'Lender activity' }).count()).toBe(0);
+    await context.close();
+  });
+
   it('shows the loan officer the shared scenario without a console error', async () => {
     const context = await harness.newContext();
     const page = await context.newPage();

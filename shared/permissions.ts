@@ -1,10 +1,11 @@
 /**
  * Who may do what on a farm. Role checks are this table, nothing else: every farm route names
- * one permission, and the authorization middleware looks the caller's role up here.
+ * one permission, the authorization middleware looks the caller's role up here, and the client
+ * asks the same table before it offers or fetches what the role may not have.
  * Lenders are read-only and, beyond that, see only scenarios shared with them (checked by the
  * scenario access rule, not here).
  */
-import type { FarmRole } from '../db/schema/index.js';
+import type { FarmRole } from './schema/accounts.js';
 
 export const permissionTable = {
   'farm:read': ['owner', 'partner', 'consultant', 'lender'],
