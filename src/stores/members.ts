@@ -1,31 +1,31 @@
-/** One farm's members and open invitations, for the owner's members screen. */
+/** One farm's members and open invitations, for the members screen; the farm itself is the farm store's. */
 import { defineStore } from 'pinia';
 import { readonly, ref } from 'vue';
-import { farmsApi, type FarmSummary } from '@/api/farms';
 import { membersApi, type FarmMember, type PendingInvitation } from '@/api/members';
-import { roleAllows } from '@shared/permissions';
 import type { FarmRole, InviteInput } from '@shared/schema/accounts';
+import { useFarmStore } from './farm';
 
 export const useMembersStore = defineStore('farm-members', () => {
-  const farm = ref<FarmSummary | null>(null);
+  const farm = useFarmStore();
+  const farmId = ref<number | null>(null);
   const members = ref<FarmMember[]>([]);
   const invitations = ref<PendingInvitation[]>([]);
 
-  async function load(farmId: number): Promise<void> {
-    if (farm.value?.id !== farmId) {
-      farm.value = null;
+  async function load(id: number): Promise<void> {
+    if (farmId.value !== id) {
       members.value = [];
       invitations.value = [];
     }
-    const [detail, list] = await Promise.all([farmsApi.get(farmId), membersApi.list(farmId)]);
-    farm.value = detail;
+    farmId.value = id;
+    const [, list] = await Promise.all([farm.load(id), membersApi.list(id)]);
+    if (farm.loadError) throw new Error(farm.loadError);
     members.value = list;
-    invitations.value = roleAllows(detail.role, 'members:manage') ? await membersApi.invitations(farmId) : [];
+    invitations.value = farm.can('members:manage') ? await membersApi.invitations(id) : [];
   }
 
   function requireFarm(): number {
-    if (!farm.value) throw new Error('members store used before load');
-    return farm.value.id;
+    if (farmId.value === null) throw new Error('members store used before load');
+    return farmId.value;
   }
 
   async function invite(input: InviteInput): Promise<void> {
@@ -58,7 +58,7 @@ export const useMembersStore = defineStore('farm-members', () => {
     members.value = members.value.filter((m) => m.userId !== userId);
   }
 
-  return { farm: readonly(farm), members: readonly(members), invitations: readonly(invitations), load, invite, resend, revoke, changeRole, remove };
+  return { members: readonly(members), invitations: readonly(invitations), load, invite, resend, revoke, changeRole, remove };
 });
 
 /** How each farm role is named on screen (docs/product.md's words). */
