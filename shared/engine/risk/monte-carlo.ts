@@ -4,7 +4,6 @@ import { createRandom, type Random } from './random';
 import { normalCdf, normalQuantile, triangularQuantile, truncatedNormalQuantile } from './distributions';
 import { histogram, mean, percentileSorted, sortedCopy, type HistogramBin } from './statistics';
 import { anchoredForShocks, evaluateNpvOnly, steadyLinesOf } from '../evaluate';
-import type { FastOptionResult } from '../results';
 
 type SchemaMonteCarlo = RiskSettings['monteCarlo'];
 /**
@@ -131,7 +130,7 @@ export function prepareMonteCarlo(entered: Scenario, settings: MonteCarloSetting
 }
 
 /** Draws requested in blocks `from` … `to − 1`. */
-export function drawsInBlocks(prepared: PreparedMonteCarlo, from: number, to: number): number {
+function drawsInBlocks(prepared: PreparedMonteCarlo, from: number, to: number): number {
   const start = Math.min(prepared.total, Math.max(0, from) * MONTE_CARLO_BLOCK_DRAWS);
   return Math.max(0, Math.min(prepared.total, Math.max(0, to) * MONTE_CARLO_BLOCK_DRAWS) - start);
 }
