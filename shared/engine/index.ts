@@ -38,13 +38,17 @@ export { STRESS_TESTS, type StressResult, type StressYears } from './stress';
 
 // Risk: sensitivity and the seeded Monte Carlo.
 export {
-  createMonteCarloRun,
   DEFAULT_MILK_FEED_CORRELATION,
+  mergeMonteCarloSamples,
+  monteCarloBlockCount,
+  prepareMonteCarlo,
   runMonteCarlo,
+  runMonteCarloBlocks,
   type MonteCarloResult,
-  type MonteCarloRun,
+  type MonteCarloSamples,
   type MonteCarloSettings,
   type OptionMonteCarloResult,
+  type PreparedMonteCarlo,
 } from './risk/monte-carlo';
 export { sensitivity, type InputSwing, type SensitivityRanges, type SensitivityResult } from './risk/sensitivity';
 

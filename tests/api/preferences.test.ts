@@ -1,7 +1,10 @@
 import { readFileSync } from 'node:fs';
+import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { riskResultsTable } from '../../server/db/schema/index.js';
 import { riskInputsHash } from '../../server/services/risk-inputs-hash.js';
+import { ENGINE_VERSION } from '../../shared/engine/version.js';
 import { scenarioSchema } from '../../shared/schema/index.js';
 import { createTestApp, type TestApp } from '../helpers/app.js';
 
@@ -146,6 +149,22 @@ describe('preferences, decisions and the saved risk result', () => {
     expect(after.status).toBe(200);
     expect(after.body.fresh).toBe(false);
     version = saved.body.version;
+  });
+
+  it('reads a result kept under an earlier engine as out of date', async () => {
+    // A new engine version moves Monte Carlo figures (how draws are seeded, the model): the same
+    // scenario run now would not give the kept numbers (shared/engine/version.ts).
+    const owner = await signedIn(t, 'owner@byrecast.test');
+    const put = await owner.put(`${base}/risk-result`).send({ scenarioVersion: version, result: riskResult(['grazing']) });
+    expect(put.body.fresh).toBe(true);
+    const current = await owner.get(base);
+    const kept = scenarioSchema.parse(current.body.scenario);
+    expect(riskInputsHash(kept)).toBe(put.body.inputsHash);
+    const earlier = riskInputsHash(kept, ENGINE_VERSION - 1);
+    expect(earlier).not.toBe(put.body.inputsHash);
+    await t.database.db.update(riskResultsTable).set({ inputsHash: earlier }).where(eq(riskResultsTable.scenarioId, scenarioId));
+    const after = await owner.get(`${base}/risk-result`);
+    expect(after.body.fresh).toBe(false);
   });
 
   it('refuses to keep a result run on an older version of the scenario', async () => {

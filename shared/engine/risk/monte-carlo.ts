@@ -4,7 +4,6 @@ import { createRandom, type Random } from './random';
 import { normalCdf, normalQuantile, triangularQuantile, truncatedNormalQuantile } from './distributions';
 import { histogram, mean, percentileSorted, sortedCopy, type HistogramBin } from './statistics';
 import { anchoredForShocks, evaluateNpvOnly, steadyLinesOf } from '../evaluate';
-import type { FastOptionResult } from '../results';
 
 type SchemaMonteCarlo = RiskSettings['monteCarlo'];
 /**
@@ -17,14 +16,12 @@ export type MonteCarloSettings = Omit<SchemaMonteCarlo, 'milkFeedCorrelation' | 
 
 export const DEFAULT_MILK_FEED_CORRELATION = 0.5;
 
-/** Hooks for driving a run: progress after every chunk, cancellation checked between chunks. */
+/** Hooks for driving a run: progress after every block, cancellation checked between blocks. */
 export interface MonteCarloRunOptions {
-  /** Called after every chunk with draws done and draws requested. */
+  /** Called after every block with draws done and draws requested. */
   onProgress?(done: number, total: number): void;
-  /** Checked before every chunk; true stops the run and marks the result cancelled. */
+  /** Checked before every block; true stops the run and marks the result cancelled. */
   isCancelled?(): boolean;
-  /** Draws per chunk (default 250): the unit of progress and of cancellation latency. */
-  chunkSize?: number;
   /** Histogram bins for the NPV distributions (default 40). */
   histogramBins?: number;
 }
@@ -78,23 +75,111 @@ export interface MonteCarloResult {
   readonly options: OptionMonteCarloResult[];
 }
 
-/** A Monte Carlo run driven in chunks, e.g. from a Web Worker's message loop. */
-export interface MonteCarloRun {
-  readonly total: number;
-  /** Draws done so far. */
-  done(): number;
-  /** True once every requested draw is done or the run was cancelled. */
-  finished(): boolean;
-  /** Runs up to `n` more draws; returns draws done so far. */
-  step(n: number): number;
-  /** Stops the run; later `step` calls do nothing and `result()` reports cancelled. */
-  cancel(): void;
-  /** Summary of the draws done so far. */
-  result(): MonteCarloResult;
+/**
+ * Draws come in fixed blocks: block b holds draws b·250 … b·250 + 249 and draws them from its
+ * own random stream (the seed's stream b, `random.ts`). A draw's numbers therefore depend only on
+ * the seed and its index, so blocks can run in any order, on any number of workers, and merge
+ * to the same result as one sequential run. Changing the size changes every result.
+ */
+export const MONTE_CARLO_BLOCK_DRAWS = 250;
+const DEFAULT_BINS = 40;
+
+/** Blocks a run of `draws` draws fills (the last may be short). */
+export function monteCarloBlockCount(draws: number): number {
+  return Math.ceil(Math.max(0, Math.floor(draws)) / MONTE_CARLO_BLOCK_DRAWS);
 }
 
-const DEFAULT_CHUNK = 250;
-const DEFAULT_BINS = 40;
+/** A run's fixed part, the same for every block: worked out once per run (or per worker). */
+export interface PreparedMonteCarlo {
+  /** The scenario as drawn: the existing farm's cash anchored to the current option's margin. */
+  readonly scenario: Scenario;
+  readonly settings: MonteCarloSettings;
+  /** Draws requested. */
+  readonly total: number;
+  /** Blocks the requested draws fill (the last may be short). */
+  readonly blocks: number;
+  readonly drawOptions: Parameters<typeof evaluateNpvOnly>[1];
+}
+
+/** Raw outcomes of some draws of one option. */
+export interface OptionSamples {
+  readonly npv: Float64Array;
+  /** NPV minus the current option's, draw by draw (0 for the current option). */
+  readonly incrementalNpv: Float64Array;
+  /** IRR of the draws where it is defined. */
+  readonly irr: Float64Array;
+  readonly coverageBelow: number;
+  readonly coverageDefined: number;
+}
+
+/** Raw outcomes of a range of blocks, per option in scenario order: what a worker sends back. */
+export interface MonteCarloSamples {
+  readonly draws: number;
+  readonly options: OptionSamples[];
+}
+
+/** Prepares a seeded run over the scenario's options (floating point; same seed and settings → identical results). */
+export function prepareMonteCarlo(entered: Scenario, settings: MonteCarloSettings = entered.risk.monteCarlo): PreparedMonteCarlo {
+  // Every draw moves the existing farm's cash with the current option's margin at the draw's prices.
+  const scenario = anchoredForShocks(entered);
+  const total = Math.max(0, Math.floor(settings.draws));
+  // Each draw's IRR search starts from the unperturbed IRR, close to where most draws land.
+  const irrStart = total > 0 ? evaluateNpvOnly(scenario).map((result) => result.irr) : [];
+  const steadyLines = total > 0 && settings.inputs.every((input) => KEYS_LEAVING_STEADY_LINES.has(input.key)) ? steadyLinesOf(scenario) : undefined;
+  return { scenario, settings, total, blocks: monteCarloBlockCount(total), drawOptions: { irrStart, steadyLines } };
+}
+
+/** Draws requested in blocks `from` … `to − 1`. */
+function drawsInBlocks(prepared: PreparedMonteCarlo, from: number, to: number): number {
+  const start = Math.min(prepared.total, Math.max(0, from) * MONTE_CARLO_BLOCK_DRAWS);
+  return Math.max(0, Math.min(prepared.total, Math.max(0, to) * MONTE_CARLO_BLOCK_DRAWS) - start);
+}
+
+/**
+ * Runs blocks `from` … `to − 1` (each on its own stream) and returns their raw outcomes. Draw i
+ * perturbs the scenario by one multiplier per uncertain input and evaluates every option on it.
+ */
+export function runMonteCarloBlocks(prepared: PreparedMonteCarlo, from: number, to: number): MonteCarloSamples {
+  const { scenario, settings, drawOptions } = prepared;
+  const threshold = scenario.finance.coverageThreshold;
+  const draws = drawsInBlocks(prepared, from, to);
+  const npvs = scenario.options.map(() => new Float64Array(draws));
+  const incrementals = scenario.options.map(() => new Float64Array(draws));
+  const irrs = scenario.options.map(() => new Float64Array(draws));
+  const irrCounts = scenario.options.map(() => 0);
+  const coverageBelow = scenario.options.map(() => 0);
+  const coverageDefined = scenario.options.map(() => 0);
+  let done = 0;
+  for (let block = Math.max(0, from); done < draws; block += 1) {
+    const random = createRandom(settings.seed, block);
+    const end = done + drawsInBlocks(prepared, block, block + 1);
+    for (; done < end; done += 1) {
+      evaluateNpvOnly(drawScenario(scenario, settings, random), drawOptions).forEach((outcome, i) => {
+        (npvs[i] as Float64Array)[done] = outcome.npv;
+        (incrementals[i] as Float64Array)[done] = outcome.incrementalNpv ?? 0;
+        if (outcome.irr !== null) {
+          const at = irrCounts[i] ?? 0;
+          (irrs[i] as Float64Array)[at] = outcome.irr;
+          irrCounts[i] = at + 1;
+        }
+        if (outcome.minCoverage !== null) {
+          coverageDefined[i] = (coverageDefined[i] ?? 0) + 1;
+          if (outcome.minCoverage < threshold) coverageBelow[i] = (coverageBelow[i] ?? 0) + 1;
+        }
+      });
+    }
+  }
+  return {
+    draws,
+    options: scenario.options.map((_, i) => ({
+      npv: npvs[i] as Float64Array,
+      incrementalNpv: incrementals[i] as Float64Array,
+      irr: (irrs[i] as Float64Array).slice(0, irrCounts[i]),
+      coverageBelow: coverageBelow[i] ?? 0,
+      coverageDefined: coverageDefined[i] ?? 0,
+    })),
+  };
+}
 
 /**
  * One multiplier per uncertain input, each consuming exactly one uniform in the order the
@@ -187,105 +272,72 @@ function npvDistribution(values: Float64Array, bins: number): NpvDistribution {
   };
 }
 
-/**
- * Creates a seeded Monte Carlo run over the scenario's options (floating point; same seed and
- * settings → identical results, however the run is chunked). Draw i perturbs the scenario by
- * one multiplier per uncertain input and evaluates every option on the same draw.
- */
-export function createMonteCarloRun(entered: Scenario, settings: MonteCarloSettings = entered.risk.monteCarlo, options: Pick<MonteCarloRunOptions, 'histogramBins'> = {}): MonteCarloRun {
-  // Every draw moves the existing farm's cash with the current option's margin at the draw's prices.
-  const scenario = anchoredForShocks(entered);
-  const total = Math.max(0, Math.floor(settings.draws));
-  const bins = options.histogramBins ?? DEFAULT_BINS;
-  const random = createRandom(settings.seed);
-  const optionCount = scenario.options.length;
-  const npvs = scenario.options.map(() => new Float64Array(total));
-  const incrementals = scenario.options.map(() => new Float64Array(total));
-  const irrs = scenario.options.map(() => new Float64Array(total));
-  const irrCounts = new Array<number>(optionCount).fill(0);
-  const coverageBelow = new Array<number>(optionCount).fill(0);
-  const coverageDefined = new Array<number>(optionCount).fill(0);
-  const threshold = scenario.finance.coverageThreshold;
-  let done = 0;
-  let cancelled = false;
-  // Each draw's IRR search starts from the unperturbed IRR, close to where most draws land.
-  const irrStart = total > 0 ? evaluateNpvOnly(scenario).map((result) => result.irr) : [];
-  const steadyLines = total > 0 && settings.inputs.every((input) => KEYS_LEAVING_STEADY_LINES.has(input.key)) ? steadyLinesOf(scenario) : undefined;
-  const drawOptions = { irrStart, steadyLines };
-
-  const record = (outcomes: readonly FastOptionResult[]): void => {
-    outcomes.forEach((outcome, i) => {
-      (npvs[i] as Float64Array)[done] = outcome.npv;
-      (incrementals[i] as Float64Array)[done] = outcome.incrementalNpv ?? 0;
-      if (outcome.irr !== null) {
-        (irrs[i] as Float64Array)[irrCounts[i] ?? 0] = outcome.irr;
-        irrCounts[i] = (irrCounts[i] ?? 0) + 1;
-      }
-      if (outcome.minCoverage !== null) {
-        coverageDefined[i] = (coverageDefined[i] ?? 0) + 1;
-        if (outcome.minCoverage < threshold) coverageBelow[i] = (coverageBelow[i] ?? 0) + 1;
-      }
-    });
-  };
-
-  const run: MonteCarloRun = {
-    total,
-    done: () => done,
-    finished: () => cancelled || done >= total,
-    step(n: number): number {
-      const end = Math.min(total, done + Math.max(0, Math.floor(n)));
-      while (!cancelled && done < end) {
-        record(evaluateNpvOnly(drawScenario(scenario, settings, random), drawOptions));
-        done += 1;
-      }
-      return done;
-    },
-    cancel(): void {
-      if (done < total) cancelled = true;
-    },
-    result(): MonteCarloResult {
-      return {
-        seed: settings.seed,
-        drawsRequested: total,
-        drawsDone: done,
-        cancelled,
-        coverageThreshold: threshold,
-        options: scenario.options.map((option, i) => {
-          const npv = (npvs[i] as Float64Array).subarray(0, done);
-          const irrCount = irrCounts[i] ?? 0;
-          const defined = coverageDefined[i] ?? 0;
-          return {
-            optionId: option.id,
-            name: option.name,
-            current: option.current,
-            npv: npvDistribution(npv, bins),
-            incrementalNpv: option.current ? null : npvDistribution((incrementals[i] as Float64Array).subarray(0, done), bins),
-            // A draw without debt service cannot breach the threshold; it still counts in the denominator.
-            probabilityCoverageBelowThreshold: defined === 0 || done === 0 ? null : (coverageBelow[i] ?? 0) / done,
-            coverageReason: done === 0 ? 'no-draws' : defined === 0 ? 'no-debt-service' : null,
-            irr: { ...summarise((irrs[i] as Float64Array).subarray(0, irrCount)), definedDraws: irrCount },
-          };
-        }),
-      };
-    },
-  };
-  return run;
+/** The values of every part end to end. */
+function joined(parts: readonly Float64Array[]): Float64Array {
+  const all = new Float64Array(parts.reduce((n, part) => n + part.length, 0));
+  let at = 0;
+  for (const part of parts) {
+    all.set(part, at);
+    at += part.length;
+  }
+  return all;
 }
 
 /**
- * Runs a whole Monte Carlo synchronously in chunks, reporting progress after each chunk and
- * stopping early when `isCancelled()` turns true. Same seed and settings → identical result.
+ * Summarises the raw outcomes of any set of blocks, given in any order or grouping: every
+ * figure comes from sorted values or counts, so the same draws give the same result bit for bit.
+ * `cancelled` says the run stopped before the blocks missing from `parts` were done.
+ */
+export function mergeMonteCarloSamples(
+  prepared: PreparedMonteCarlo,
+  parts: readonly MonteCarloSamples[],
+  options: { cancelled?: boolean; histogramBins?: number } = {},
+): MonteCarloResult {
+  const { scenario, settings, total } = prepared;
+  const bins = options.histogramBins ?? DEFAULT_BINS;
+  const done = parts.reduce((n, part) => n + part.draws, 0);
+  const of = (i: number): OptionSamples[] => parts.map((part) => part.options[i] as OptionSamples);
+  return {
+    seed: settings.seed,
+    drawsRequested: total,
+    drawsDone: done,
+    cancelled: (options.cancelled ?? false) && done < total,
+    coverageThreshold: scenario.finance.coverageThreshold,
+    options: scenario.options.map((option, i) => {
+      const samples = of(i);
+      const irr = joined(samples.map((s) => s.irr));
+      const defined = samples.reduce((n, s) => n + s.coverageDefined, 0);
+      const below = samples.reduce((n, s) => n + s.coverageBelow, 0);
+      return {
+        optionId: option.id,
+        name: option.name,
+        current: option.current,
+        npv: npvDistribution(joined(samples.map((s) => s.npv)), bins),
+        incrementalNpv: option.current ? null : npvDistribution(joined(samples.map((s) => s.incrementalNpv)), bins),
+        // A draw without debt service cannot breach the threshold; it still counts in the denominator.
+        probabilityCoverageBelowThreshold: defined === 0 || done === 0 ? null : below / done,
+        coverageReason: done === 0 ? 'no-draws' : defined === 0 ? 'no-debt-service' : null,
+        irr: { ...summarise(irr), definedDraws: irr.length },
+      };
+    }),
+  };
+}
+
+/**
+ * Runs a whole Monte Carlo synchronously, block after block, reporting progress after each and
+ * stopping early when `isCancelled()` turns true. Same seed and settings → identical result, the
+ * same as any split of the blocks merged.
  */
 export function runMonteCarlo(scenario: Scenario, settings: MonteCarloSettings = scenario.risk.monteCarlo, options: MonteCarloRunOptions = {}): MonteCarloResult {
-  const chunk = Math.max(1, Math.floor(options.chunkSize ?? DEFAULT_CHUNK));
-  const run = createMonteCarloRun(scenario, settings, options);
-  while (!run.finished()) {
-    if (options.isCancelled?.()) {
-      run.cancel();
-      break;
-    }
-    run.step(chunk);
-    options.onProgress?.(run.done(), run.total);
+  const prepared = prepareMonteCarlo(scenario, settings);
+  const parts: MonteCarloSamples[] = [];
+  let done = 0;
+  for (let block = 0; block < prepared.blocks; block += 1) {
+    if (options.isCancelled?.()) return mergeMonteCarloSamples(prepared, parts, { cancelled: true, histogramBins: options.histogramBins });
+    const part = runMonteCarloBlocks(prepared, block, block + 1);
+    parts.push(part);
+    done += part.draws;
+    options.onProgress?.(done, prepared.total);
   }
-  return run.result();
+  return mergeMonteCarloSamples(prepared, parts, { histogramBins: options.histogramBins });
 }

@@ -28,10 +28,13 @@ function scrambleSeed(seed: number): number {
 
 /**
  * Seeded uniform generator (xoroshiro128+ from `pure-rand`, 53-bit floats).
- * The seed is an integer; only its low 32 bits count. Same seed → same sequence everywhere.
+ * The seed is an integer; only its low 32 bits count. Same seed and stream → same sequence
+ * everywhere. Stream k is the seed's sequence jumped k times by 2⁶⁴ outputs (xoroshiro128+'s
+ * jump function), so the streams of one seed never overlap: a Monte Carlo block uses its own.
  */
-export function createRandom(seed: number): Random {
+export function createRandom(seed: number, stream = 0): Random {
   const generator = xoroshiro128plus(scrambleSeed(Math.trunc(seed)));
   for (let i = 0; i < WARM_UP_OUTPUTS; i += 1) generator.next();
+  for (let k = 0; k < stream; k += 1) generator.jump();
   return { next: () => uniformFloat64(generator) };
 }

@@ -25,7 +25,7 @@ describe('the engine surface (shared/engine/README.md "Layout")', () => {
   });
 
   it('names the evaluation, risk and finance functions callers use', () => {
-    for (const name of ['evaluateScenario', 'evaluateNpvOnly', 'anchoredForShocks', 'runMonteCarlo', 'createMonteCarloRun', 'sensitivity', 'presentValue', 'signChanges', 'discount', 'cumulative']) {
+    for (const name of ['evaluateScenario', 'evaluateNpvOnly', 'anchoredForShocks', 'runMonteCarlo', 'prepareMonteCarlo', 'runMonteCarloBlocks', 'mergeMonteCarloSamples', 'sensitivity', 'presentValue', 'signChanges', 'discount', 'cumulative']) {
       expect(typeof (engine as Record<string, unknown>)[name], name).toBe('function');
     }
   });

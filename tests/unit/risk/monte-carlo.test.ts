@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { evaluateNpvOnly } from '../../../shared/engine/evaluate';
 import { perturb } from '../../../shared/engine/risk/perturb';
-import { createMonteCarloRun, runMonteCarlo, type MonteCarloSettings } from '../../../shared/engine/risk/monte-carlo';
+import { MONTE_CARLO_BLOCK_DRAWS, mergeMonteCarloSamples, prepareMonteCarlo, runMonteCarlo, runMonteCarloBlocks, type MonteCarloSettings } from '../../../shared/engine/risk/monte-carlo';
 import { riskScenario } from '../engine/fixtures';
 
 const scenario = riskScenario();
@@ -18,30 +18,50 @@ describe('runMonteCarlo', () => {
     expect(a.options[1]?.npv.mean).not.toBe(b.options[1]?.npv.mean);
   });
 
-  it('does not depend on how the run is chunked', () => {
-    const whole = runMonteCarlo(scenario, settings(), { chunkSize: 300 });
-    const run = createMonteCarloRun(scenario, settings());
-    while (!run.finished()) run.step(7);
-    expect(run.result()).toEqual(whole);
+  it('gives the sequential result bit for bit from blocks run apart and merged in any grouping', () => {
+    // Workers each run some blocks; the merge must not care how many ran or in which order they came back.
+    // 1 300 draws: five full blocks and a short sixth; yearly prices make draws use many numbers each.
+    for (const changes of [{}, { pricesPerYear: true }]) {
+      const split = settings({ draws: 5 * MONTE_CARLO_BLOCK_DRAWS + 50, ...changes });
+      const sequential = runMonteCarlo(scenario, split);
+      const prepared = prepareMonteCarlo(scenario, split);
+      expect(prepared.blocks).toBe(6);
+      const groupings = [
+        [[0, 6]],
+        [[0, 1], [1, 2], [2, 3], [3, 4], [4, 5], [5, 6]],
+        [[3, 6], [0, 2], [2, 3]],
+        [[5, 6], [1, 5], [0, 1]],
+      ];
+      for (const ranges of groupings) {
+        const parts = ranges.map(([from, to]) => runMonteCarloBlocks(prepared, from ?? 0, to ?? 0));
+        expect(mergeMonteCarloSamples(prepared, parts)).toStrictEqual(sequential);
+      }
+    }
   });
 
-  it('reports progress after every chunk up to the total', () => {
+  it('draws a block the same whatever the length of the run', () => {
+    const short = prepareMonteCarlo(scenario, settings({ draws: 2 * MONTE_CARLO_BLOCK_DRAWS }));
+    const long = prepareMonteCarlo(scenario, settings({ draws: 4 * MONTE_CARLO_BLOCK_DRAWS }));
+    expect(runMonteCarloBlocks(long, 1, 2)).toStrictEqual(runMonteCarloBlocks(short, 1, 2));
+    expect(runMonteCarloBlocks(long, 2, 3)).not.toStrictEqual(runMonteCarloBlocks(long, 1, 2));
+  });
+
+  it('reports progress after every block up to the total', () => {
     const seen: number[] = [];
-    runMonteCarlo(scenario, settings({ draws: 250 }), { chunkSize: 100, onProgress: (done, total) => seen.push(done, total) });
-    expect(seen).toEqual([100, 250, 200, 250, 250, 250]);
+    runMonteCarlo(scenario, settings({ draws: 600 }), { onProgress: (done, total) => seen.push(done, total) });
+    expect(seen).toEqual([250, 600, 500, 600, 600, 600]);
   });
 
   it('stops early when cancelled and says so', () => {
-    let chunks = 0;
+    let blocks = 0;
     const result = runMonteCarlo(scenario, settings({ draws: 1000 }), {
-      chunkSize: 100,
-      onProgress: () => (chunks += 1),
-      isCancelled: () => chunks >= 2,
+      onProgress: () => (blocks += 1),
+      isCancelled: () => blocks >= 2,
     });
     expect(result.cancelled).toBe(true);
-    expect(result.drawsDone).toBe(200);
+    expect(result.drawsDone).toBe(500);
     expect(result.drawsRequested).toBe(1000);
-    expect(result.options[1]?.npv.histogram.reduce((s, b) => s + b.count, 0)).toBe(200);
+    expect(result.options[1]?.npv.histogram.reduce((s, b) => s + b.count, 0)).toBe(500);
   });
 
   it('reproduces the deterministic NPV when no input is uncertain', () => {

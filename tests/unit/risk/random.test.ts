@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { createRandom } from '../../../shared/engine/risk/random';
 
-const draw = (seed: number, n: number): number[] => {
-  const random = createRandom(seed);
+const draw = (seed: number, n: number, stream = 0): number[] => {
+  const random = createRandom(seed, stream);
   return Array.from({ length: n }, () => random.next());
 };
 
@@ -11,7 +11,7 @@ const draw = (seed: number, n: number): number[] => {
  * "Scrambled linear pseudorandom number generators", 2018; the 2016 constants a=24, b=16, c=37 —
  * from memory). pure-rand runs it on 32-bit halves and returns the low 32 bits of s0 + s1.
  */
-function referenceSequence(seed: number, n: number): number[] {
+function referenceSequence(seed: number, n: number, stream = 0): number[] {
   const mask64 = (1n << 64n) - 1n;
   const rotl = (x: bigint, k: bigint): bigint => ((x << k) | (x >> (64n - k))) & mask64;
   const u32 = (x: number): bigint => BigInt(x >>> 0);
@@ -33,6 +33,24 @@ function referenceSequence(seed: number, n: number): number[] {
     return out;
   };
   for (let i = 0; i < 20; i += 1) nextRaw();
+  // The jump polynomial of xoroshiro128+ (Vigna's reference source, xoroshiro128plus.c — from
+  // memory): equivalent to 2⁶⁴ calls of next().
+  const JUMP = [0xdf900294d8f554a5n, 0x170865df4b3201fcn];
+  for (let k = 0; k < stream; k += 1) {
+    let t0 = 0n;
+    let t1 = 0n;
+    for (const word of JUMP) {
+      for (let b = 0n; b < 64n; b += 1n) {
+        if ((word >> b) & 1n) {
+          t0 ^= s0;
+          t1 ^= s1;
+        }
+        nextRaw();
+      }
+    }
+    s0 = t0;
+    s1 = t1;
+  }
   // 53-bit float from two 32-bit outputs: 26 + 27 bits.
   return Array.from({ length: n }, () => {
     const high = Number(nextRaw() & ((1n << 26n) - 1n));
@@ -57,6 +75,19 @@ describe('createRandom', () => {
     for (const seed of [0, 1, 42, -7, 2 ** 31 - 1]) {
       expect(draw(seed, 200)).toEqual(referenceSequence(seed, 200));
     }
+  });
+
+  it('jumps stream k of a seed 2⁶⁴·k outputs ahead, as the published jump function does', () => {
+    for (const seed of [1, 20261201]) {
+      for (const stream of [1, 2, 7]) expect(draw(seed, 50, stream)).toEqual(referenceSequence(seed, 50, stream));
+    }
+  });
+
+  it('gives each stream of one seed its own sequence', () => {
+    const streams = [0, 1, 2, 3].map((stream) => draw(99, 200, stream));
+    const values = new Set(streams.flat());
+    // 800 draws of 53 bits: a repeat would be a coincidence of chance about 800² / 2⁵⁴.
+    expect(values.size).toBe(800);
   });
 
   it('stays in [0, 1) with the uniform mean 1/2 and variance 1/12', () => {
