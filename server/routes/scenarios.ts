@@ -13,7 +13,7 @@ import {
 import type { AppDeps } from '../app.js';
 import { sendJsonText } from '../http/json-text.js';
 import { actorOf, idParam } from '../http/params.js';
-import { farmAccess, farmRouter } from '../auth/middleware.js';
+import { farmAccess, farmRouter, sessionScenarioHead } from '../auth/middleware.js';
 import { parseOrThrow } from '../errors.js';
 import { readBaseline, saveBaseline } from '../services/farm-baseline.js';
 import * as scenarios from '../services/scenarios.js';
@@ -48,13 +48,14 @@ export function scenarioRoutes({ db }: AppDeps): Router {
   });
 
   route('get', '/scenarios/:scenarioId', 'scenario:read', async (req, res) => {
-    sendJsonText(req, res, await scenarios.readScenario(db, actorOf(req), scenarioIdOf(req)));
+    const id = scenarioIdOf(req);
+    sendJsonText(req, res, await scenarios.readScenario(db, actorOf(req), id, sessionScenarioHead(req, id)));
   });
   // The yearly lines and loan payments, which GET S leaves out: the tables fetch them when shown.
   route('get', '/scenarios/:scenarioId/results/detail', 'scenario:read', async (req, res) => {
     const id = scenarioIdOf(req);
     const query = parseOrThrow(resultsDetailQuerySchema, req.query);
-    sendJsonText(req, res, await scenarios.readResultsDetail(db, actorOf(req), id, query.version));
+    sendJsonText(req, res, await scenarios.readResultsDetail(db, actorOf(req), id, query.version, sessionScenarioHead(req, id)));
   });
   route('put', '/scenarios/:scenarioId', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
