@@ -132,16 +132,17 @@ export const farmRouteRegistry: FarmRouteRecord[] = [];
 
 type Handler = (req: Request, res: Response, next: NextFunction) => unknown;
 
+/** Declares one farm route, guarded by a permission and recorded in the registry; extra handlers (e.g. an upload parser) run after the check. */
+export type FarmRoute = (method: Method, path: string, permission: Permission, ...handlers: Handler[]) => void;
+
 /**
- * A router for routes under /api/farms/:farmId. `route` declares one, guarded by a permission
- * and recorded in the registry; extra handlers (e.g. an upload parser) run after the check.
+ * The one router for routes under /api/farms/:farmId, and `route`, which declares one on it. Every
+ * farm area declares its routes on the same router, so a request is matched against one list
+ * (a router passed through without a match costs a turn of the event loop).
  */
-export function farmRouter(db: Database): {
-  router: Router;
-  route: (method: Method, path: string, permission: Permission, ...handlers: Handler[]) => void;
-} {
+export function farmRouter(db: Database): { router: Router; route: FarmRoute } {
   const router = Router({ mergeParams: true });
-  const route = (method: Method, path: string, permission: Permission, ...handlers: Handler[]) => {
+  const route: FarmRoute = (method, path, permission, ...handlers) => {
     const fullPath = `${FARM_MOUNT}${path}`.replace(/\/$/, "");
     if (!farmRouteRegistry.some((r) => r.method === method && r.path === fullPath)) {
       farmRouteRegistry.push({ method, path: fullPath, permission });

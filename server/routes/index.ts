@@ -1,7 +1,7 @@
 /** Every API router, mounted under /api. A new area adds one line here. */
 import { Router } from 'express';
 import type { AppDeps } from '../app.js';
-import { FARM_MOUNT, requireSignedIn } from '../auth/middleware.js';
+import { FARM_MOUNT, farmRouter, requireSignedIn, type FarmRoute } from '../auth/middleware.js';
 import { adminRoutes } from './admin.js';
 import { authRoutes } from './auth.js';
 import { invitationRoutes } from './invitations.js';
@@ -17,7 +17,7 @@ import { reviewNoteRoutes } from './review-notes.js';
 import { auditRoutes } from './audit.js';
 
 /** The routers under /api/farms/:farmId, in the order their routes are matched. */
-const FARM_AREAS: readonly ((deps: AppDeps) => Router)[] = [
+const FARM_AREAS: readonly ((deps: AppDeps, route: FarmRoute) => void)[] = [
   farmRoutes,
   memberRoutes,
   scenarioRoutes,
@@ -36,11 +36,11 @@ export function apiRoutes(deps: AppDeps): Router {
   router.use('/lender-shares', lenderShareLinkRoutes(deps));
   router.use('/admin', adminRoutes(deps));
   if (deps.mailer.outbox) router.use('/dev/outbox', outboxRoutes(deps.mailer.outbox));
-  // Every farm area in one router under one mount: a request matches the farm path and checks
-  // the session once, instead of once per area it passes on the way to its own.
-  const farm = Router({ mergeParams: true });
-  for (const area of FARM_AREAS) farm.use(area(deps));
-  router.use(FARM_MOUNT.replace(/^\/api/, ''), requireSignedIn, farm);
+  // Every farm area's routes on one router under one mount: a request matches the farm path and
+  // checks the session once, instead of once per area it passes on the way to its own.
+  const farm = farmRouter(deps.db);
+  for (const area of FARM_AREAS) area(deps, farm.route);
+  router.use(FARM_MOUNT.replace(/^\/api/, ''), requireSignedIn, farm.router);
   // After the farm routes, which are the most asked for: /farms itself would otherwise be a
   // prefix every farm request passes through.
   router.use('/farms', requireSignedIn, farmListRoutes(deps));

@@ -1,5 +1,5 @@
 /** /api/farms/:farmId/baseline and /api/farms/:farmId/scenarios/…: parse → service → respond. */
-import type { Request, Router } from 'express';
+import type { Request } from 'express';
 import {
   baselineBodySchema,
   compareQuerySchema,
@@ -13,7 +13,7 @@ import {
 import type { AppDeps } from '../app.js';
 import { sendJsonText } from '../http/json-text.js';
 import { actorOf, idParam } from '../http/params.js';
-import { farmAccess, farmRouter, sessionScenarioHead } from '../auth/middleware.js';
+import { farmAccess, sessionScenarioHead, type FarmRoute } from '../auth/middleware.js';
 import { parseOrThrow } from '../errors.js';
 import { readBaseline, saveBaseline } from '../services/farm-baseline.js';
 import * as scenarios from '../services/scenarios.js';
@@ -21,8 +21,7 @@ import * as scenarios from '../services/scenarios.js';
 const scenarioIdOf = (req: Request) => idParam(req, 'scenarioId', 'Scenario id');
 const versionOf = (req: Request) => idParam(req, 'version', 'Version');
 
-export function scenarioRoutes({ db }: AppDeps): Router {
-  const { router, route } = farmRouter(db);
+export function scenarioRoutes({ db }: AppDeps, route: FarmRoute): void {
 
   route('get', '/baseline', 'baseline:read', async (req, res) => {
     res.json(await readBaseline(db, farmAccess(req).farmId));
@@ -98,5 +97,4 @@ export function scenarioRoutes({ db }: AppDeps): Router {
     sendJsonText(req, res, await scenarios.restoreVersion(db, actorOf(req), id, version, input.version, input.note));
   });
 
-  return router;
 }
