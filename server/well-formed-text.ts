@@ -8,16 +8,32 @@ import { AppError } from './errors.js';
 
 const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
 
-/** The path ("scenario.options.0.name") of the first string or key with a lone surrogate, or null. */
-export function findMalformedText(value: unknown, path: string[] = []): string | null {
-  if (typeof value === 'string') return LONE_SURROGATE.test(value) ? path.join('.') || 'body' : null;
+/**
+ * The keys from `value` down to the first string or key with a lone surrogate, innermost first,
+ * or null. The path is built only for a hit: a saved document has thousands of strings and keys.
+ */
+function malformedPath(value: unknown): string[] | null {
+  if (typeof value === 'string') return LONE_SURROGATE.test(value) ? [] : null;
   if (value === null || typeof value !== 'object') return null;
-  for (const [key, inner] of Object.entries(value)) {
-    if (LONE_SURROGATE.test(key)) return [...path, key.replace(LONE_SURROGATE, '\uFFFD')].join('.');
-    const found = findMalformedText(inner, [...path, key]);
-    if (found !== null) return found;
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i += 1) {
+      const found = malformedPath(value[i]);
+      if (found) return [...found, String(i)];
+    }
+    return null;
+  }
+  for (const key of Object.keys(value)) {
+    if (LONE_SURROGATE.test(key)) return [key.replace(LONE_SURROGATE, '\uFFFD')];
+    const found = malformedPath((value as Record<string, unknown>)[key]);
+    if (found) return [...found, key];
   }
   return null;
+}
+
+/** The path ("scenario.options.0.name") of the first string or key with a lone surrogate, or null. */
+export function findMalformedText(value: unknown): string | null {
+  const found = malformedPath(value);
+  return found && (found.reverse().join('.') || 'body');
 }
 
 export const refuseMalformedText: RequestHandler = (req, _res, next) => {

@@ -10,9 +10,21 @@ import { farmAccess, requireUser } from '../auth/middleware.js';
 import { AppError } from '../errors.js';
 import type { Actor } from '../services/access.js';
 
+/** One schema per label, built once: building a zod schema costs far more than using it, on every request. */
+const schemas = new Map<string, ReturnType<typeof idParamSchema>>();
+
+function schemaFor(label: string): ReturnType<typeof idParamSchema> {
+  let schema = schemas.get(label);
+  if (!schema) {
+    schema = idParamSchema(label);
+    schemas.set(label, schema);
+  }
+  return schema;
+}
+
 /** A positive whole-number path parameter, or 400 `invalid_input` naming it. */
 export function idParam(req: Request, name: string, label: string): number {
-  const result = idParamSchema(label).safeParse(req.params[name]);
+  const result = schemaFor(label).safeParse(req.params[name]);
   if (result.success) return result.data;
   const message = result.error.issues[0]?.message ?? `${label} must be a whole number`;
   throw new AppError(400, 'invalid_input', `${name}: ${message}`, { [name]: message });

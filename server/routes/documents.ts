@@ -1,10 +1,10 @@
 /** /api/farms/:farmId/documents… and the quotes of a scenario's capital lines: parse → service → respond. */
 import { pipeline } from 'node:stream/promises';
-import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
+import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import multer from 'multer';
 import { documentListQuerySchema, documentPatchSchema, documentTargetSchema, MAX_DOCUMENT_BYTES } from '../../shared/schema/documents.js';
 import type { AppDeps } from '../app.js';
-import { farmRouter } from '../auth/middleware.js';
+import { type FarmRoute } from '../auth/middleware.js';
 import { AppError, parseOrThrow } from '../errors.js';
 import { documentStorageEngine, uploadedFile } from '../http/document-upload.js';
 import { actorOf, idParam } from '../http/params.js';
@@ -40,13 +40,12 @@ export function runUpload(upload: RequestHandler, maxBytes: number): RequestHand
   };
 }
 
-export function documentRoutes({ db, config }: AppDeps): Router {
+export function documentRoutes({ db, config }: AppDeps, route: FarmRoute): void {
   const storage = createFileStorage(config);
   const upload = multer({
     storage: documentStorageEngine((farmId) => remainingQuotaBytes(db, farmId, config.documentQuotaBytes), storage, config.documentQuotaBytes),
     limits: { fileSize: MAX_DOCUMENT_BYTES, files: 1, fields: 5, fieldSize: 200, parts: 6 },
   }).single('file');
-  const { router, route } = farmRouter(db);
 
   route('post', '/documents', 'document:write', runUpload(upload, MAX_DOCUMENT_BYTES), async (req, res) => {
     const stored = uploadedFile(req);
@@ -94,5 +93,4 @@ export function documentRoutes({ db, config }: AppDeps): Router {
     res.json({ lines: await scenarioQuotes(db, actorOf(req), idParam(req, 'scenarioId', 'Scenario id')) });
   });
 
-  return router;
 }

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { createFarmSchema } from '../../shared/schema/accounts.js';
 import type { AppDeps } from '../app.js';
-import { farmAccess, farmRouter, requireUser } from '../auth/middleware.js';
+import { farmAccess, requireUser, type FarmRoute } from '../auth/middleware.js';
 import { parseOrThrow } from '../errors.js';
 import { createFarm, farmDetail, farmsOf } from '../services/farms.js';
 
@@ -20,11 +20,9 @@ export function farmListRoutes({ db }: AppDeps): Router {
 }
 
 /** /api/farms/:farmId */
-export function farmRoutes({ db }: AppDeps): Router {
-  const { router, route } = farmRouter(db);
+export function farmRoutes({ db }: AppDeps, route: FarmRoute): void {
   route('get', '/', 'farm:read', async (req, res) => {
     const { farmId, role } = farmAccess(req);
     res.json(await farmDetail(db, farmId, role));
   });
-  return router;
 }

@@ -9,15 +9,14 @@ import { createShareSchema } from '../../shared/schema/lender.js';
 import { shareFilterQuerySchema, tokenParamsSchema } from '../../shared/schema/requests.js';
 import type { AppDeps } from '../app.js';
 import { actorOf, idParam } from '../http/params.js';
-import { farmAccess, farmRouter } from '../auth/middleware.js';
+import { farmAccess, type FarmRoute } from '../auth/middleware.js';
 import { issueSession } from '../auth/session.js';
 import { parseOrThrow } from '../errors.js';
 import { acceptShare, createShare, farmShares, mySharesOnFarm, previewShare, revokeFarmShare } from '../services/lender-shares.js';
 import { lenderWorkbook } from '../services/lender-workbook.js';
 import { sessionOf } from '../services/session.js';
 
-export function lenderShareRoutes({ db, mailer, config }: AppDeps): Router {
-  const { router, route } = farmRouter(db);
+export function lenderShareRoutes({ db, mailer, config }: AppDeps, route: FarmRoute): void {
   const ctx = { db, mailer, appOrigin: config.appOrigin };
 
   route('get', '/lender-shares', 'scenario:share', async (req, res) => {
@@ -45,7 +44,6 @@ export function lenderShareRoutes({ db, mailer, config }: AppDeps): Router {
     res.end();
   });
 
-  return router;
 }
 
 /** /api/lender-shares/:token — the lender's side of the e-mailed link. */

@@ -1,15 +1,13 @@
 /** /api/farms/:farmId/members and /invitations: who is on the farm, and the owner's invitations. */
-import type { Router } from 'express';
 import { changeRoleSchema, inviteSchema } from '../../shared/schema/accounts.js';
 import type { AppDeps } from '../app.js';
 import { idParam } from '../http/params.js';
-import { farmAccess, farmRouter, requireUser } from '../auth/middleware.js';
+import { farmAccess, requireUser, type FarmRoute } from '../auth/middleware.js';
 import { parseOrThrow } from '../errors.js';
 import { invitationJson, inviteToFarm, openInvitations, resendInvitation, withdrawInvitation } from '../services/invitations.js';
 import { changeMemberRole, farmMembers, removeMember } from '../services/members.js';
 
-export function memberRoutes({ db, mailer, config }: AppDeps): Router {
-  const { router, route } = farmRouter(db);
+export function memberRoutes({ db, mailer, config }: AppDeps, route: FarmRoute): void {
   const ctx = { db, mailer, appOrigin: config.appOrigin };
 
   route('get', '/members', 'members:read', async (req, res) => {
@@ -48,5 +46,4 @@ export function memberRoutes({ db, mailer, config }: AppDeps): Router {
     res.status(204).end();
   });
 
-  return router;
 }

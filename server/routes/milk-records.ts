@@ -1,21 +1,19 @@
 /** /api/farms/:farmId/milk-records…: preview an upload, confirm it into the baseline, list imports. */
-import type { Router } from 'express';
 import multer from 'multer';
 import { milkRecordConfirmSchema } from '../../shared/schema/milk-records.js';
 import type { AppDeps } from '../app.js';
-import { farmAccess, farmRouter } from '../auth/middleware.js';
+import { farmAccess, type FarmRoute } from '../auth/middleware.js';
 import { AppError, parseOrThrow } from '../errors.js';
 import { milkRecordEngine, parsedMilkUpload } from '../http/milk-record-upload.js';
 import { actorOf } from '../http/params.js';
 import { confirmMilkRecords, MAX_MILK_RECORD_BYTES, milkRecordHistory, previewMilkRecords } from '../services/milk-records.js';
 import { runUpload } from './documents.js';
 
-export function milkRecordRoutes({ db }: AppDeps): Router {
+export function milkRecordRoutes({ db }: AppDeps, route: FarmRoute): void {
   const upload = runUpload(
     multer({ storage: milkRecordEngine(), limits: { fileSize: MAX_MILK_RECORD_BYTES, files: 1, fields: 5, fieldSize: 200, parts: 6 } }).single('file'),
     MAX_MILK_RECORD_BYTES,
   );
-  const { router, route } = farmRouter(db);
 
   route('get', '/milk-records', 'baseline:read', async (req, res) => {
     res.json(await milkRecordHistory(db, farmAccess(req).farmId));
@@ -34,5 +32,4 @@ export function milkRecordRoutes({ db }: AppDeps): Router {
     res.status(201).json(await confirmMilkRecords(db, actorOf(req), source));
   });
 
-  return router;
 }

@@ -1,16 +1,15 @@
 /** /api/farms/:farmId/scenarios/:scenarioId/{preferences,decision,risk-result}: parse → service → respond. */
-import type { Request, Router } from 'express';
+import type { Request } from 'express';
 import { decisionBodySchema, preferenceBodySchema, riskResultBodySchema } from '../../shared/schema/requests.js';
 import type { AppDeps } from '../app.js';
 import { actorOf, idParam } from '../http/params.js';
-import { farmRouter } from '../auth/middleware.js';
+import { type FarmRoute } from '../auth/middleware.js';
 import { parseOrThrow } from '../errors.js';
 import * as preferences from '../services/preferences.js';
 
 const scenarioIdOf = (req: Request) => idParam(req, 'scenarioId', 'Scenario id');
 
-export function preferenceRoutes({ db }: AppDeps): Router {
-  const { router, route } = farmRouter(db);
+export function preferenceRoutes({ db }: AppDeps, route: FarmRoute): void {
   const base = '/scenarios/:scenarioId';
 
   route('get', `${base}/preferences`, 'preference:read', async (req, res) => {
@@ -37,5 +36,4 @@ export function preferenceRoutes({ db }: AppDeps): Router {
     const input = parseOrThrow(riskResultBodySchema, req.body);
     res.json(await preferences.keepRiskResult(db, actorOf(req), scenarioId, input));
   });
-  return router;
 }

@@ -1,14 +1,12 @@
 /** Review notes and status of lender shares, under /api/farms/:farmId: parse → service → respond. */
-import type { Router } from 'express';
 import { createNoteSchema, replySchema, reviewStatusSchema } from '../../shared/schema/lender.js';
 import type { AppDeps } from '../app.js';
-import { farmRouter } from '../auth/middleware.js';
+import { type FarmRoute } from '../auth/middleware.js';
 import { parseOrThrow } from '../errors.js';
 import { addLenderNote, replyToNote, scenarioReviews, setShareStatus } from '../services/review-notes.js';
 import { actorOf, idParam } from '../http/params.js';
 
-export function reviewNoteRoutes({ db, mailer, config }: AppDeps): Router {
-  const { router, route } = farmRouter(db);
+export function reviewNoteRoutes({ db, mailer, config }: AppDeps, route: FarmRoute): void {
   const ctx = { db, mailer, appOrigin: config.appOrigin };
 
   route('get', '/scenarios/:scenarioId/reviews', 'scenario:read', async (req, res) => {
@@ -31,5 +29,4 @@ export function reviewNoteRoutes({ db, mailer, config }: AppDeps): Router {
     res.json(await setShareStatus(ctx, actorOf(req), shareId, input.status));
   });
 
-  return router;
 }

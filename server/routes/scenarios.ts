@@ -1,5 +1,5 @@
 /** /api/farms/:farmId/baseline and /api/farms/:farmId/scenarios/…: parse → service → respond. */
-import type { Request, Router } from 'express';
+import type { Request } from 'express';
 import {
   baselineBodySchema,
   compareQuerySchema,
@@ -13,7 +13,7 @@ import {
 import type { AppDeps } from '../app.js';
 import { sendJsonText } from '../http/json-text.js';
 import { actorOf, idParam } from '../http/params.js';
-import { farmAccess, farmRouter } from '../auth/middleware.js';
+import { farmAccess, sessionScenarioHead, type FarmRoute } from '../auth/middleware.js';
 import { parseOrThrow } from '../errors.js';
 import { readBaseline, saveBaseline } from '../services/farm-baseline.js';
 import * as scenarios from '../services/scenarios.js';
@@ -21,8 +21,7 @@ import * as scenarios from '../services/scenarios.js';
 const scenarioIdOf = (req: Request) => idParam(req, 'scenarioId', 'Scenario id');
 const versionOf = (req: Request) => idParam(req, 'version', 'Version');
 
-export function scenarioRoutes({ db }: AppDeps): Router {
-  const { router, route } = farmRouter(db);
+export function scenarioRoutes({ db }: AppDeps, route: FarmRoute): void {
 
   route('get', '/baseline', 'baseline:read', async (req, res) => {
     res.json(await readBaseline(db, farmAccess(req).farmId));
@@ -48,13 +47,14 @@ export function scenarioRoutes({ db }: AppDeps): Router {
   });
 
   route('get', '/scenarios/:scenarioId', 'scenario:read', async (req, res) => {
-    sendJsonText(req, res, await scenarios.readScenario(db, actorOf(req), scenarioIdOf(req)));
+    const id = scenarioIdOf(req);
+    sendJsonText(req, res, await scenarios.readScenario(db, actorOf(req), id, sessionScenarioHead(req, id)));
   });
   // The yearly lines and loan payments, which GET S leaves out: the tables fetch them when shown.
   route('get', '/scenarios/:scenarioId/results/detail', 'scenario:read', async (req, res) => {
     const id = scenarioIdOf(req);
     const query = parseOrThrow(resultsDetailQuerySchema, req.query);
-    sendJsonText(req, res, await scenarios.readResultsDetail(db, actorOf(req), id, query.version));
+    sendJsonText(req, res, await scenarios.readResultsDetail(db, actorOf(req), id, query.version, sessionScenarioHead(req, id)));
   });
   route('put', '/scenarios/:scenarioId', 'scenario:write', async (req, res) => {
     const id = scenarioIdOf(req);
@@ -97,5 +97,4 @@ export function scenarioRoutes({ db }: AppDeps): Router {
     sendJsonText(req, res, await scenarios.restoreVersion(db, actorOf(req), id, version, input.version, input.note));
   });
 
-  return router;
 }

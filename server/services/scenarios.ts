@@ -113,10 +113,18 @@ export async function visibleRecord(db: Executor, actor: ScenarioActor, scenario
   return asSeenBy(db, access, record);
 }
 
-/** Like visibleRecord without reading the document: for a lender the shared version's number, time and author. */
-async function visibleHead(db: Executor, actor: ScenarioActor, scenarioId: number, access?: Access): Promise<ScenarioHead> {
+/** A scenario's head already read in this request (with the session): `head` null when the farm has no such scenario. */
+export interface KnownHead {
+  head: ScenarioHead | null;
+}
+
+/**
+ * Like visibleRecord without reading the document: for a lender the shared version's number, time
+ * and author. `known` is the scenario's head read earlier in the request, instead of reading it again.
+ */
+async function visibleHead(db: Executor, actor: ScenarioActor, scenarioId: number, access?: Access, known?: KnownHead): Promise<ScenarioHead> {
   const seen = access ?? (await accessOf(db, actor));
-  const head = canSeeScenario(seen, scenarioId) ? await findScenarioHead(db, actor.farmId, scenarioId) : null;
+  const head = canSeeScenario(seen, scenarioId) ? (known ? known.head : await findScenarioHead(db, actor.farmId, scenarioId)) : null;
   if (!head) throw notFound('Scenario not found');
   const versions = visibleVersions(seen, scenarioId);
   if (versions === null) return head;
@@ -162,15 +170,15 @@ export async function listFarmScenarios(db: Database, actor: ScenarioActor): Pro
 }
 
 /** The version of a scenario the caller sees, with the summary of its results, as JSON text: nothing is parsed or evaluated once its results are kept. */
-export async function readScenario(db: Executor, actor: ScenarioActor, scenarioId: number): Promise<JsonText<ScenarioView>> {
-  const head = await visibleHead(db, actor, scenarioId);
+export async function readScenario(db: Executor, actor: ScenarioActor, scenarioId: number, known?: KnownHead): Promise<JsonText<ScenarioView>> {
+  const head = await visibleHead(db, actor, scenarioId, undefined, known);
   return viewText(head, await keptResults(db, scenarioId, head.version));
 }
 
 /** The version the caller sees (or `version`, when they may see it): each option's yearly lines and loan payments. */
-export async function readResultsDetail(db: Database, actor: ScenarioActor, scenarioId: number, version?: number): Promise<JsonText<ResultsDetailView>> {
+export async function readResultsDetail(db: Database, actor: ScenarioActor, scenarioId: number, version?: number, known?: KnownHead): Promise<JsonText<ResultsDetailView>> {
   const access = await accessOf(db, actor);
-  const head = await visibleHead(db, actor, scenarioId, access);
+  const head = await visibleHead(db, actor, scenarioId, access, known);
   const at = version ?? head.version;
   assertVersionVisible(access, scenarioId, at);
   if (at > head.version) throw notFound(`Version ${at} not found`);

@@ -122,8 +122,16 @@ describe('accounts and sessions', () => {
   it('ends the session on sign-out so the old cookie no longer works', async () => {
     // docs/product.md (Accounts): sign-out then old cookie refused.
     const cookie = await signIn(t, 'partner@byrecast.test');
-    expect((await request(t.app).get('/api/auth/me').set('cookie', cookie)).status).toBe(200);
+    const me = await request(t.app).get('/api/auth/me').set('cookie', cookie);
+    expect(me.status).toBe(200);
+    // A scenario read checks the session in the same query as the scenario: it must end too.
+    const farmId = (me.body as { memberships: { farmId: number }[] }).memberships[0]!.farmId;
+    const [first] = (await request(t.app).get(`/api/farms/${farmId}/scenarios`).set('cookie', cookie)).body as { id: number }[];
+    const scenarioPath = `/api/farms/${farmId}/scenarios/${first!.id}`;
+    expect((await request(t.app).get(scenarioPath).set('cookie', cookie)).status).toBe(200);
     expect((await request(t.app).post('/api/auth/sign-out').set('cookie', cookie)).status).toBe(204);
+    expect((await request(t.app).get(scenarioPath).set('cookie', cookie)).status).toBe(401);
+    expect((await request(t.app).get(`${scenarioPath}/results/detail`).set('cookie', cookie)).status).toBe(401);
     // Signed out is an answer: 200 with null, never the user.
     const after = await request(t.app).get('/api/auth/me').set('cookie', cookie);
     expect(after.status).toBe(200);

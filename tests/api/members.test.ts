@@ -127,8 +127,14 @@ describe('farm members', () => {
     // docs/product.md (Accounts): owners remove members; the farm then answers 404 to them (DEVELOPERS.md: non-member → 404).
     const lender = await signIn(t, 'lender@byrecast.test');
     expect((await request(t.app).get(`/api/farms/${farmId}`).set('cookie', lender)).status).toBe(200);
+    // The scenario shared with the lender (the demo shares one): read with the membership in one query.
+    const [shared] = (await request(t.app).get(`/api/farms/${farmId}/scenarios`).set('cookie', lender)).body as { id: number }[];
+    const sharedPath = `/api/farms/${farmId}/scenarios/${shared!.id}`;
+    expect((await request(t.app).get(sharedPath).set('cookie', lender)).status).toBe(200);
     expect((await request(t.app).delete(`/api/farms/${farmId}/members/${ids['lender@byrecast.test']}`).set('cookie', owner)).status).toBe(204);
     expect((await request(t.app).get(`/api/farms/${farmId}`).set('cookie', lender)).status).toBe(404);
+    expect((await request(t.app).get(sharedPath).set('cookie', lender)).status).toBe(404);
+    expect((await request(t.app).get(`${sharedPath}/results/detail`).set('cookie', lender)).status).toBe(404);
     expect((await request(t.app).get('/api/farms').set('cookie', lender)).body).toEqual([]);
   });
 });

@@ -114,6 +114,7 @@ describe('scenario access and input checks', () => {
         ['post', '/duplicate', {}],
         ['post', '/archive', {}],
         ['get', '/export.json'],
+        ['get', '/results/detail'],
         ['get', '/versions'],
         ['get', '/versions/1'],
         ['get', '/versions/compare?from=1&to=1'],

@@ -104,21 +104,39 @@ export async function updateScenarioSummary(db: Executor, scenarioId: number, ve
 /** A scenario record without its document and summary: what a read needs when the results are kept. */
 export type ScenarioHead = Omit<ScenarioRecord, 'document' | 'summary'>;
 
+/** The columns of a scenario head, with its creator's and last saver's names (join `creator` and `updater`). */
+export const scenarioHeadColumns = {
+  id: scenariosTable.id,
+  farmId: scenariosTable.farmId,
+  name: scenariosTable.name,
+  status: scenariosTable.status,
+  version: scenariosTable.version,
+  createdById: scenariosTable.createdBy,
+  updatedById: scenariosTable.updatedBy,
+  createdAt: scenariosTable.createdAt,
+  updatedAt: scenariosTable.updatedAt,
+  creatorName: creator.name,
+  updaterName: updater.name,
+};
+
+/** The aliases `scenarioHeadColumns` reads the names from. */
+export { creator as scenarioCreator, updater as scenarioUpdater };
+
+export type ScenarioHeadRow = Omit<ScenarioHead, 'createdBy' | 'updatedBy'> & {
+  createdById: number | null;
+  updatedById: number | null;
+  creatorName: string | null;
+  updaterName: string | null;
+};
+
+/** A row of `scenarioHeadColumns` as a head. */
+export function toScenarioHead({ createdById, updatedById, creatorName, updaterName, ...row }: ScenarioHeadRow): ScenarioHead {
+  return { ...row, createdBy: person(createdById, creatorName), updatedBy: person(updatedById, updaterName) };
+}
+
 function prepareScenarioHead(db: Executor) {
   return db
-    .select({
-      id: scenariosTable.id,
-      farmId: scenariosTable.farmId,
-      name: scenariosTable.name,
-      status: scenariosTable.status,
-      version: scenariosTable.version,
-      createdById: scenariosTable.createdBy,
-      updatedById: scenariosTable.updatedBy,
-      createdAt: scenariosTable.createdAt,
-      updatedAt: scenariosTable.updatedAt,
-      creatorName: creator.name,
-      updaterName: updater.name,
-    })
+    .select(scenarioHeadColumns)
     .from(scenariosTable)
     .leftJoin(creator, eq(creator.id, scenariosTable.createdBy))
     .leftJoin(updater, eq(updater.id, scenariosTable.updatedBy))
@@ -137,9 +155,7 @@ export async function findScenarioHead(db: Executor, farmId: number, scenarioId:
     preparedHeads.set(db, prepared);
   }
   const [found] = await prepared.execute({ farmId, scenarioId });
-  if (!found) return null;
-  const { createdById, updatedById, creatorName, updaterName, ...row } = found;
-  return { ...row, createdBy: person(createdById, creatorName), updatedBy: person(updatedById, updaterName) };
+  return found ? toScenarioHead(found) : null;
 }
 
 /** One version without its document; null when there is none. */

@@ -1,7 +1,8 @@
 import { and, count, eq, isNull, sql } from 'drizzle-orm';
 import type { Database } from '../client.js';
 import type { Executor } from './farms.js';
-import { farmsTable, membershipsTable, passwordResetsTable, usersTable, type FarmRole } from '../schema/index.js';
+import { farmsTable, membershipsTable, passwordResetsTable, scenariosTable, usersTable, type FarmRole } from '../schema/index.js';
+import { scenarioCreator, scenarioHeadColumns, scenarioUpdater, toScenarioHead, type ScenarioHead, type ScenarioHeadRow } from './scenarios.js';
 
 export interface User {
   id: number;
@@ -25,15 +26,41 @@ const publicColumns = {
 
 /** Built once per pool: a session check runs on every request, so its SQL is not rebuilt each time. */
 const preparedSessionQueries = new WeakMap<Database, ReturnType<typeof prepareSessionQuery>>();
+const preparedScenarioSessionQueries = new WeakMap<Database, ReturnType<typeof prepareScenarioSessionQuery>>();
 
-function prepareSessionQuery(db: Database) {
+function sessionQuery(db: Database) {
   return db
     .select({ ...publicColumns, role: membershipsTable.role, farmId: farmsTable.id })
     .from(usersTable)
     .leftJoin(membershipsTable, and(eq(membershipsTable.userId, usersTable.id), eq(membershipsTable.farmId, sql.placeholder('farmId'))))
+    .leftJoin(farmsTable, eq(farmsTable.id, membershipsTable.farmId));
+}
+
+function prepareSessionQuery(db: Database) {
+  return sessionQuery(db).where(eq(usersTable.id, sql.placeholder('userId'))).prepare();
+}
+
+/** The session query with one scenario's head, joined only through the membership: never a farm the user is not on. */
+function prepareScenarioSessionQuery(db: Database) {
+  return db
+    .select({ ...publicColumns, role: membershipsTable.role, farmId: farmsTable.id, scenario: scenarioHeadColumns })
+    .from(usersTable)
+    .leftJoin(membershipsTable, and(eq(membershipsTable.userId, usersTable.id), eq(membershipsTable.farmId, sql.placeholder('farmId'))))
     .leftJoin(farmsTable, eq(farmsTable.id, membershipsTable.farmId))
+    .leftJoin(scenariosTable, and(eq(scenariosTable.farmId, farmsTable.id), eq(scenariosTable.id, sql.placeholder('scenarioId'))))
+    .leftJoin(scenarioCreator, eq(scenarioCreator.id, scenariosTable.createdBy))
+    .leftJoin(scenarioUpdater, eq(scenarioUpdater.id, scenariosTable.updatedBy))
     .where(eq(usersTable.id, sql.placeholder('userId')))
     .prepare();
+}
+
+function preparedIn<T>(cache: WeakMap<Database, T>, db: Database, prepare: (db: Database) => T): T {
+  let prepared = cache.get(db);
+  if (!prepared) {
+    prepared = prepare(db);
+    cache.set(db, prepared);
+  }
+  return prepared;
 }
 
 /**
@@ -41,15 +68,27 @@ function prepareSessionQuery(db: Database) {
  * farm route needs both, and this is most of what a read of kept results costs.
  */
 export async function findUserWithMembership(db: Database, userId: number, farmId: number): Promise<{ user: User; role: FarmRole | null } | null> {
-  let prepared = preparedSessionQueries.get(db);
-  if (!prepared) {
-    prepared = prepareSessionQuery(db);
-    preparedSessionQueries.set(db, prepared);
-  }
-  const [row] = await prepared.execute({ userId, farmId });
+  const [row] = await preparedIn(preparedSessionQueries, db, prepareSessionQuery).execute({ userId, farmId });
   if (!row) return null;
   const { role, farmId: foundFarm, ...user } = row;
   return { user, role: foundFarm === null ? null : role };
+}
+
+/**
+ * Like findUserWithMembership, with the head of one scenario of that farm (null when the user is
+ * not a member or the farm has no such scenario): a read of a scenario then needs no second query.
+ */
+export async function findUserWithScenario(
+  db: Database,
+  userId: number,
+  farmId: number,
+  scenarioId: number,
+): Promise<{ user: User; role: FarmRole | null; scenario: ScenarioHead | null } | null> {
+  const [row] = await preparedIn(preparedScenarioSessionQueries, db, prepareScenarioSessionQuery).execute({ userId, farmId, scenarioId });
+  if (!row) return null;
+  const { role, farmId: foundFarm, scenario, ...user } = row;
+  const member = foundFarm !== null;
+  return { user, role: member ? role : null, scenario: member && scenario?.id != null ? toScenarioHead(scenario as ScenarioHeadRow) : null };
 }
 
 export async function findUserById(db: Database, id: number): Promise<User | null> {
