@@ -14,7 +14,7 @@ import { K_TO_K2O, P_TO_P2O5 } from './manure';
 import { openMilkModel, optionYield, type MilkModel } from './milk-model';
 import type { OptionPlan } from './plan';
 import type { YearLine } from './results';
-import { grownRunningCosts, runningCostsByGrowth, type GrowthFactors } from './running-costs';
+import { grownRunningCosts, type GrowthFactors } from './running-costs';
 import { emptySettlement, noiseFreeCents, settleYear } from './settle-year';
 import { steadyLines, type SteadyLines } from './steady-lines';
 import { milkSoldKgPerYear } from './yield';
@@ -55,11 +55,11 @@ export function projectOption(
   const response = herd.lyingResponseKgPerHour;
 
   // Price-independent pieces of each line, per cow or per year in today's money.
-  const runningByGrowth = runningCostsByGrowth(option.runningCosts);
+  const work = steady?.work ?? housingWork(option, plan);
+  const fixed = steady ?? steadyLines(scenario, option, plan, work);
+  const runningByGrowth = fixed.runningByGrowth;
   // Maintenance and insurance fall on the new capital and on any existing housing the option keeps using.
   const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate + option.insuranceRate, plan.capitalTotal + option.existingHousingValue);
-  const work = housingWork(option, plan);
-  const fixed = steady ?? steadyLines(scenario, option, plan, work);
   const manure = fixed.manure;
   const { scrapingHours, bedCareHours, beddingTopUpHours, troughHours, grazingHours, beddingTonnes } = work;
 
