@@ -97,14 +97,14 @@ function depreciationSchedule(scenario: Scenario): DepreciationSchedule {
 const MACRS_TABLES = { 'macrs-10-200db': MACRS_10_YEAR_200DB, 'macrs-10-150db': MACRS_10_YEAR_150DB, 'macrs-20-150db': MACRS_20_YEAR_150DB } as const;
 
 /** A capital asset's own tax schedule when its tax class is not its economic life (else none: the scenario's method). */
-function taxClassSchedule(asset: CapitalAsset | undefined): Pick<PurchaseForTax, 'schedule'> {
-  if (!asset || asset.taxClass === 'economic-life') return {};
+function taxClassSchedule(asset: CapitalAsset): PurchaseForTax['schedule'] {
+  if (asset.taxClass === 'economic-life') return undefined;
   if (asset.taxClass === 'straight-line') {
     const life = asset.taxLifeYears;
-    return { schedule: (cost) => straightLineFast(cost, life) };
+    return (cost) => straightLineFast(cost, life);
   }
   const { percentages } = MACRS_TABLES[asset.taxClass];
-  return { schedule: (cost) => macrsFast(cost, percentages) };
+  return (cost) => macrsFast(cost, percentages);
 }
 
 /**
@@ -217,14 +217,12 @@ function capitalPlan(scenario: Scenario, option: Option, sized: HerdPlan): Capit
   const grants = Math.min(finance.grants, capital);
   // With grants reducing the depreciable base, each year-0 purchase carries its share of them.
   const year0Base = finance.grantsReduceDepreciableBase && capital > 0 ? 1 - grants / capital : 1;
-  const depreciation = taxDepreciation(
-    purchases.map((p) => {
-      const asset = assets[p.asset];
-      return { year: p.year, cost: p.year === 0 ? p.cost * year0Base : p.cost, lifeYears: asset?.lifeYears ?? 1, ...taxClassSchedule(asset) };
-    }),
-    horizon,
-    depreciationSchedule(scenario),
-  );
+  const schedules = assets.map(taxClassSchedule);
+  const forTax = new Array<PurchaseForTax>(purchases.length);
+  purchases.forEach((p, i) => {
+    forTax[i] = { year: p.year, cost: p.year === 0 ? p.cost * year0Base : p.cost, lifeYears: assets[p.asset]?.lifeYears ?? 1, schedule: schedules[p.asset] };
+  });
+  const depreciation = taxDepreciation(forTax, horizon, depreciationSchedule(scenario));
   return {
     assets,
     capitalTotal: capital,

@@ -40,11 +40,15 @@ export const emptySettlement = (): Settlement => ({ taxable: 0, tax: 0, net: 0, 
  */
 export function settleYear(out: Settlement, plan: OptionPlan, finance: Scenario['finance'], t: number, operatingMargin: number, lossCarried: number, round: Rounding, centsTotal: Rounding): void {
   const last = t === plan.horizon;
-  out.replacements = round(plan.replacementsByYear[t] ?? 0);
-  out.herdPurchases = round(plan.herdPurchasesByYear[t] ?? 0);
+  // Most years buy nothing; rounding ±0 gives it back as it is.
+  const replacements = plan.replacementsByYear[t] ?? 0;
+  const herdPurchases = plan.herdPurchasesByYear[t] ?? 0;
+  out.replacements = replacements === 0 ? replacements : round(replacements);
+  out.herdPurchases = herdPurchases === 0 ? herdPurchases : round(herdPurchases);
   out.salvage = last ? round(plan.salvage) : 0;
   out.herdValue = last ? round(plan.herdValueAtHorizon) : 0;
-  out.depreciation = round(plan.depreciationByYear[t] ?? 0);
+  // Tax depreciation is summed in whole cents (tax.ts), so rounding it again changes nothing.
+  out.depreciation = plan.depreciationByYear[t] ?? 0;
   const interest = plan.interestByYear[t] ?? 0;
   const disposalGain = last ? out.salvage - round(plan.taxBookValueAtHorizon) : 0;
   out.taxable = centsTotal(taxableIncome(operatingMargin, out.depreciation, interest, disposalGain));

@@ -52,12 +52,14 @@ export interface TaxDepreciation {
  * whole cents, so every year's total is exact.
  */
 export function taxDepreciation(purchases: readonly PurchaseForTax[], horizon: number, schedule: DepreciationSchedule): TaxDepreciation {
-  const cents = new Float64Array(horizon + 1);
-  // Straight-line amounts are level but for the last year: added as a run (start +, end −), summed once below.
-  const levelRuns = new Float64Array(horizon + 2);
+  // Whole cents per year as differences (an amount in year y is +a at y, −a at y + 1), summed once
+  // below: a straight-line purchase, level but for its last year, is then one run of two entries.
+  // Every entry is a whole number of cents, so the order of the sums changes no cent.
+  const steps = new Array<number>(horizon + 2).fill(0);
   let bookCents = 0;
   for (const purchase of purchases) {
     if (purchase.cost <= 0) continue;
+    const from = purchase.year + 1;
     const inHorizon = Math.max(0, Math.min(purchase.lifeYears, horizon - purchase.year));
     if (!purchase.schedule && schedule === straightLineFast) {
       // straightLineFast's amounts without building its array (this runs for every purchase of
@@ -67,26 +69,31 @@ export function taxDepreciation(purchases: readonly PurchaseForTax[], horizon: n
       const yearly = Math.round(base / life);
       const lastAmount = base - yearly * (life - 1);
       const levelYears = Math.min(life - 1, inHorizon);
-      levelRuns[purchase.year + 1] = (levelRuns[purchase.year + 1] ?? 0) + yearly;
-      levelRuns[purchase.year + 1 + levelYears] = (levelRuns[purchase.year + 1 + levelYears] ?? 0) - yearly;
+      steps[from] = (steps[from] as number) + yearly;
+      steps[from + levelYears] = (steps[from + levelYears] as number) - yearly;
       bookCents += yearly * (life - 1 - levelYears);
-      if (inHorizon === life) cents[purchase.year + life] = (cents[purchase.year + life] ?? 0) + lastAmount;
-      else bookCents += lastAmount;
+      if (inHorizon === life) {
+        steps[from + life - 1] = (steps[from + life - 1] as number) + lastAmount;
+        steps[from + life] = (steps[from + life] as number) - lastAmount;
+      } else bookCents += lastAmount;
       continue;
     }
     const amounts = purchase.schedule ? purchase.schedule(purchase.cost) : schedule(purchase.cost, purchase.lifeYears);
     const last = Math.min(amounts.length, inHorizon);
     for (let i = 0; i < amounts.length; i++) {
       const amount = Math.round((amounts[i] ?? 0) * 100);
-      if (i < last) cents[purchase.year + i + 1] = (cents[purchase.year + i + 1] ?? 0) + amount;
-      else bookCents += amount;
+      if (i < last) {
+        steps[from + i] = (steps[from + i] as number) + amount;
+        steps[from + i + 1] = (steps[from + i + 1] as number) - amount;
+      } else bookCents += amount;
     }
   }
-  const byYear = new Array<number>(horizon + 1).fill(0);
-  let level = 0;
+  const byYear = new Array<number>(horizon + 1);
+  byYear[0] = 0;
+  let cents = 0;
   for (let year = 1; year <= horizon; year++) {
-    level += levelRuns[year] ?? 0;
-    byYear[year] = ((cents[year] ?? 0) + level) / 100;
+    cents += steps[year] as number;
+    byYear[year] = cents / 100;
   }
   return { byYear, bookValueAtHorizon: bookCents / 100 };
 }
