@@ -13,7 +13,7 @@ const discountDivisor = powerTable();
  */
 export function presentValue(rate: number, flows: readonly number[]): number {
   let total = 0;
-  for (let t = 0; t < flows.length; t++) total += (flows[t] ?? 0) / discountDivisor(rate, t);
+  for (let t = 0; t < flows.length; t++) total += (flows[t] as number) / discountDivisor(rate, t);
   return total;
 }
 
@@ -33,7 +33,7 @@ export function presentValueSign(rate: number, flows: readonly number[]): number
   let total = 0;
   let magnitude = 0;
   for (let t = 0; t < flows.length; t++) {
-    const term = (flows[t] ?? 0) * power;
+    const term = (flows[t] as number) * power;
     total += term;
     magnitude += Math.abs(term);
     power *= v;

@@ -46,7 +46,7 @@ export function existingFarmOf(scenario: Scenario, currentCashForDebtService: re
 
 /** Debt service of an option's loan in year t (currency): interest + principal. */
 export function loanDueIn(plan: OptionPlan, t: number): number {
-  return (plan.interestByYear[t] ?? 0) + (plan.principalByYear[t] ?? 0);
+  return (plan.interestByYear[t] as number) + (plan.principalByYear[t] as number);
 }
 
 /** One option's cash for debt service and loan, and the current option's, as the ratios need them. */
@@ -68,11 +68,11 @@ export interface CoverageSides {
  *   current option's); null for the current option and when the change borrows nothing more.
  */
 export function coverageInYear(farm: ExistingFarm, sides: CoverageSides, t: number): { project: number | null; wholeFarm: number | null } {
-  const ownCash = sides.ownCash[t] ?? 0;
+  const ownCash = sides.ownCash[t] as number;
   const ownDue = loanDueIn(sides.ownPlan, t);
-  const wholeFarm = coverageRatio(farm.cashBesideHerd + ownCash, (farm.debtByYear[t] ?? 0) + ownDue);
+  const wholeFarm = coverageRatio(farm.cashBesideHerd + ownCash, (farm.debtByYear[t] as number) + ownDue);
   if (sides.isCurrent) return { project: null, wholeFarm };
-  const change = ownCash - (sides.currentCash[t] ?? 0);
+  const change = ownCash - (sides.currentCash[t] as number);
   return { project: coverageRatio(change, ownDue - loanDueIn(sides.currentPlan, t)), wholeFarm };
 }
 

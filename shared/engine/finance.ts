@@ -13,7 +13,8 @@ import { findRoot } from './root';
 // period t, flows[0] at t = 0 (today, not discounted) unless a function says otherwise.
 
 function requireFlows(flows: readonly number[]): void {
-  flows.forEach((cf, t) => requireFinite(`flows[${t}]`, cf));
+  // The field's name is only written for a flow that fails: every IRR, payback and MIRR checks its flows.
+  for (let t = 0; t < flows.length; t++) if (!Number.isFinite(flows[t])) requireFinite(`flows[${t}]`, flows[t] as number);
 }
 
 function requireNonEmptyFlows(flows: readonly number[]): void {

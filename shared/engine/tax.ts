@@ -21,11 +21,22 @@ export interface TaxStep {
  * set against the next years' taxable income, and any loss left at the horizon is lost.
  */
 export function taxForYear(taxable: number, rate: number, lossesOffsetOtherIncome: boolean, lossCarried: number): TaxStep {
-  if (rate === 0) return { tax: 0, lossCarried: 0 };
-  if (lossesOffsetOtherIncome) return { tax: rate * taxable, lossCarried: 0 };
-  if (taxable <= 0) return { tax: 0, lossCarried: lossCarried - taxable };
-  const used = Math.min(lossCarried, taxable);
-  return { tax: rate * (taxable - used), lossCarried: lossCarried - used };
+  return { tax: taxOfYear(taxable, rate, lossesOffsetOtherIncome, lossCarried), lossCarried: lossCarriedOn(taxable, rate, lossesOffsetOtherIncome, lossCarried) };
+}
+
+/** The tax of {@link taxForYear} alone (currency), without a record per year. */
+export function taxOfYear(taxable: number, rate: number, lossesOffsetOtherIncome: boolean, lossCarried: number): number {
+  if (rate === 0) return 0;
+  if (lossesOffsetOtherIncome) return rate * taxable;
+  if (taxable <= 0) return 0;
+  return rate * (taxable - Math.min(lossCarried, taxable));
+}
+
+/** The loss carried on by {@link taxForYear} alone (currency, ≥ 0). */
+export function lossCarriedOn(taxable: number, rate: number, lossesOffsetOtherIncome: boolean, lossCarried: number): number {
+  if (rate === 0 || lossesOffsetOtherIncome) return 0;
+  if (taxable <= 0) return lossCarried - taxable;
+  return lossCarried - Math.min(lossCarried, taxable);
 }
 
 /** Depreciation schedule for one purchase: cost and life → amounts in years 1..life after purchase (currency/yr). */

@@ -92,8 +92,8 @@ export function projectOption(
     grownMilk *= 1 + growth.milkPrice;
     grownFeed *= 1 + growth.feed;
     // A year's price index (a trough, a spike) scales that year alone; growth carries on from the grown path.
-    const gMilk = grownMilk * (milkIndex?.[t - 1] ?? 1);
-    const gFeed = grownFeed * (feedIndex?.[t - 1] ?? 1);
+    const gMilk = milkIndex ? grownMilk * (milkIndex[t - 1] ?? 1) : grownMilk;
+    const gFeed = feedIndex ? grownFeed * (feedIndex[t - 1] ?? 1) : grownFeed;
     gWage *= 1 + growth.wages;
     gBedding *= 1 + growth.bedding;
     gFert *= 1 + growth.fertiliser;
@@ -102,9 +102,9 @@ export function projectOption(
       milk.milkGrowth[t] = gMilk;
       milk.feedGrowth[t] = gFeed;
     }
-    const cows = plan.cows[t] ?? 0;
+    const cows = plan.cows[t] as number;
     const yieldKg = t === 1 ? yieldYear1 : yieldLater;
-    const milkKg = milkSoldKgPerYear(plan.milkCows[t] ?? cows, yieldKg);
+    const milkKg = milkSoldKgPerYear(plan.milkCows[t] as number, yieldKg);
     const extraMilkKg = milkKg - baselineMilkPerCow * cows;
 
     const milkIncome = round(milkKg * (milkPrice + option.milkQualityPricePerKg) * gMilk);
@@ -127,10 +127,10 @@ export function projectOption(
     const runningCosts = round(grownRunningCosts(runningByGrowth, factors));
     // Every term is in whole cents, so grouping the steady lines changes no cent of the total.
     const operatingMargin = centsTotal(
-      milkIncome - feed - labourScraping - labourBedCare - labourBeddingTopUp - labourTroughs - labourGrazing - labourMilking - maintenance - runningCosts + (fixed.net[t] ?? 0),
+      milkIncome - feed - labourScraping - labourBedCare - labourBeddingTopUp - labourTroughs - labourGrazing - labourMilking - maintenance - runningCosts + (fixed.net[t] as number),
     );
 
-    settleYear(settled, plan, finance, t, operatingMargin, lossCarried, round, centsTotal);
+    settleYear(settled, plan, finance, t, operatingMargin, lossCarried, true);
     lossCarried = settled.lossCarried;
     const { replacements, herdPurchases, salvage, herdValue, depreciation, taxable, tax, net } = settled;
     const interest = plan.interestByYear[t] ?? 0;
