@@ -43,6 +43,11 @@ export function roundCentsFast(amount: number): number {
   return roundCentsNearHalf(amount);
 }
 
+/** Each amount rounded to cents in place, as {@link roundCentsFast} rounds it. */
+export function roundCentsInPlace(amounts: Float64Array): void {
+  for (let i = 0; i < amounts.length; i++) amounts[i] = roundCentsFast(amounts[i] as number);
+}
+
 /** {@link roundCentsFast} near a half cent, for large amounts and for NaN. */
 function roundCentsNearHalf(amount: number): number {
   const magnitude = amount < 0 ? -amount : amount;
