@@ -13,7 +13,7 @@ import type { LoanSchedule } from './finance';
 import { milkCowEquivalents } from './herd-costs';
 import { cowsPerYear, herdPurchasesByYear, herdValueAtHorizon } from './herd-size';
 import { manureStorageVolumeM3, stallsFor } from './sizing';
-import { taxDepreciation, type DepreciationSchedule, type PurchaseForTax } from './tax';
+import { TaxDepreciationSum, type DepreciationSchedule, type PurchaseForTax } from './tax';
 
 /** Everything about an option that does not change with prices: herd, sizing, capital, tax depreciation, loan. */
 export interface OptionPlan {
@@ -218,11 +218,9 @@ function capitalPlan(scenario: Scenario, option: Option, sized: HerdPlan): Capit
   // With grants reducing the depreciable base, each year-0 purchase carries its share of them.
   const year0Base = finance.grantsReduceDepreciableBase && capital > 0 ? 1 - grants / capital : 1;
   const schedules = assets.map(taxClassSchedule);
-  const forTax = new Array<PurchaseForTax>(purchases.length);
-  purchases.forEach((p, i) => {
-    forTax[i] = { year: p.year, cost: p.year === 0 ? p.cost * year0Base : p.cost, lifeYears: assets[p.asset]?.lifeYears ?? 1, schedule: schedules[p.asset] };
-  });
-  const depreciation = taxDepreciation(forTax, horizon, depreciationSchedule(scenario));
+  const tax = new TaxDepreciationSum(horizon, depreciationSchedule(scenario));
+  for (const p of purchases) tax.add(p.year, p.year === 0 ? p.cost * year0Base : p.cost, assets[p.asset]?.lifeYears ?? 1, schedules[p.asset]);
+  const depreciation = tax.result();
   return {
     assets,
     capitalTotal: capital,

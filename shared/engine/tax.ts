@@ -63,48 +63,66 @@ export interface TaxDepreciation {
  * whole cents, so every year's total is exact.
  */
 export function taxDepreciation(purchases: readonly PurchaseForTax[], horizon: number, schedule: DepreciationSchedule): TaxDepreciation {
+  const sum = new TaxDepreciationSum(horizon, schedule);
+  for (const purchase of purchases) sum.add(purchase.year, purchase.cost, purchase.lifeYears, purchase.schedule);
+  return sum.result();
+}
+
+/** {@link taxDepreciation} summed one purchase at a time, without a record per purchase (the plan of every Monte Carlo draw). */
+export class TaxDepreciationSum {
   // Whole cents per year as differences (an amount in year y is +a at y, −a at y + 1), summed once
-  // below: a straight-line purchase, level but for its last year, is then one run of two entries.
-  // Every entry is a whole number of cents, so the order of the sums changes no cent.
-  const steps = new Array<number>(horizon + 2).fill(0);
-  let bookCents = 0;
-  for (const purchase of purchases) {
-    if (purchase.cost <= 0) continue;
-    const from = purchase.year + 1;
-    const inHorizon = Math.max(0, Math.min(purchase.lifeYears, horizon - purchase.year));
-    if (!purchase.schedule && schedule === straightLineFast) {
-      // straightLineFast's amounts without building its array (this runs for every purchase of
-      // every option of every Monte Carlo draw).
-      const life = purchase.lifeYears;
-      const base = wholeCents(purchase.cost);
-      const yearly = Math.round(base / life);
-      const lastAmount = base - yearly * (life - 1);
-      const levelYears = Math.min(life - 1, inHorizon);
+  // in result(): a straight-line purchase, level but for its last year, is then one run of two
+  // entries. Every entry is a whole number of cents, so the order of the sums changes no cent.
+  private readonly steps: number[];
+  private bookCents = 0;
+
+  constructor(
+    private readonly horizon: number,
+    private readonly schedule: DepreciationSchedule,
+  ) {
+    this.steps = new Array<number>(horizon + 2).fill(0);
+  }
+
+  /** A purchase in `year` at `cost` (currency) over `lifeYears`, on its own schedule when it has one (else the scenario's). */
+  add(year: number, cost: number, lifeYears: number, own?: (cost: number) => number[]): void {
+    if (cost <= 0) return;
+    const steps = this.steps;
+    const from = year + 1;
+    const inHorizon = Math.max(0, Math.min(lifeYears, this.horizon - year));
+    if (!own && this.schedule === straightLineFast) {
+      // straightLineFast's amounts without building its array.
+      const base = wholeCents(cost);
+      const yearly = Math.round(base / lifeYears);
+      const lastAmount = base - yearly * (lifeYears - 1);
+      const levelYears = Math.min(lifeYears - 1, inHorizon);
       steps[from] = (steps[from] as number) + yearly;
       steps[from + levelYears] = (steps[from + levelYears] as number) - yearly;
-      bookCents += yearly * (life - 1 - levelYears);
-      if (inHorizon === life) {
-        steps[from + life - 1] = (steps[from + life - 1] as number) + lastAmount;
-        steps[from + life] = (steps[from + life] as number) - lastAmount;
-      } else bookCents += lastAmount;
-      continue;
+      this.bookCents += yearly * (lifeYears - 1 - levelYears);
+      if (inHorizon === lifeYears) {
+        steps[from + lifeYears - 1] = (steps[from + lifeYears - 1] as number) + lastAmount;
+        steps[from + lifeYears] = (steps[from + lifeYears] as number) - lastAmount;
+      } else this.bookCents += lastAmount;
+      return;
     }
-    const amounts = purchase.schedule ? purchase.schedule(purchase.cost) : schedule(purchase.cost, purchase.lifeYears);
+    const amounts = own ? own(cost) : this.schedule(cost, lifeYears);
     const last = Math.min(amounts.length, inHorizon);
     for (let i = 0; i < amounts.length; i++) {
       const amount = Math.round((amounts[i] ?? 0) * 100);
       if (i < last) {
         steps[from + i] = (steps[from + i] as number) + amount;
         steps[from + i + 1] = (steps[from + i + 1] as number) - amount;
-      } else bookCents += amount;
+      } else this.bookCents += amount;
     }
   }
-  const byYear = new Array<number>(horizon + 1);
-  byYear[0] = 0;
-  let cents = 0;
-  for (let year = 1; year <= horizon; year++) {
-    cents += steps[year] as number;
-    byYear[year] = cents / 100;
+
+  result(): TaxDepreciation {
+    const byYear = new Array<number>(this.horizon + 1);
+    byYear[0] = 0;
+    let cents = 0;
+    for (let year = 1; year <= this.horizon; year++) {
+      cents += this.steps[year] as number;
+      byYear[year] = cents / 100;
+    }
+    return { byYear, bookValueAtHorizon: this.bookCents / 100 };
   }
-  return { byYear, bookValueAtHorizon: bookCents / 100 };
 }
