@@ -146,6 +146,22 @@ function ledgerInterest(balance: number, periodRate: Decimal): number {
   return new Money(balance).times(periodRate).toDecimalPlaces(0, Decimal.ROUND_HALF_UP).toNumber();
 }
 
+/**
+ * The ledger's period rate `new Money(annualRate).div(paymentsPerYear)`, remembered for the last
+ * rate asked: every loan of a Monte Carlo run shares it, and the division is most of what a tie
+ * costs. A decimal.js value never changes, so the answer is the same whatever was asked before.
+ */
+function ledgerPeriodRate(annualRate: number, paymentsPerYear: number): Decimal {
+  if (!Object.is(annualRate, remembered.annualRate) || paymentsPerYear !== remembered.paymentsPerYear || !remembered.rate) {
+    remembered.annualRate = annualRate;
+    remembered.paymentsPerYear = paymentsPerYear;
+    remembered.rate = new Money(annualRate).div(paymentsPerYear);
+  }
+  return remembered.rate;
+}
+
+const remembered: { annualRate: number; paymentsPerYear: number; rate: Decimal | null } = { annualRate: Number.NaN, paymentsPerYear: 0, rate: null };
+
 // The level payment's float formula errs by up to a few parts in 1e14 over 480 periods.
 const LEVEL_TIE_RELATIVE = 1e-12;
 const TINY_RATE = 1e-9;
@@ -190,7 +206,6 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
   // A product instead of a quotient in the loop: the two differ by an ulp or so, far inside the
   // tie window, so Math.round and the tie test decide every period alike.
   const periodRate = annualRate / paymentsPerYear;
-  let ledgerRate: Decimal | null = null;
   let number = 0;
   for (let year = 0; year < years; year++) {
     let yearInterest = 0;
@@ -203,7 +218,7 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
       const fraction = raw - whole;
       const periodInterest =
         fraction - 0.5 < window && 0.5 - fraction < window
-          ? ledgerInterest(balance, (ledgerRate ??= new Money(annualRate).div(paymentsPerYear)))
+          ? ledgerInterest(balance, ledgerPeriodRate(annualRate, paymentsPerYear))
           : fraction > 0.5
             ? whole + 1
             : whole;
