@@ -21,19 +21,7 @@ export function presentValue(rate: number, flows: readonly number[]): number {
 // (running power or pow, the division, the sum), far below this many ulps of the terms' size.
 const SIGN_SAFETY_ULPS = 8;
 
-/**
- * The sign (−1, 0 or 1) that {@link presentValue}(rate, flows) has, found with a running power of
- * 1/(1 + rate) instead of a power per term: where the quick sum lies within its rounding bound of
- * zero, presentValue itself decides, so the answer is always presentValue's sign. The IRR grid
- * scan only needs signs.
- */
-export function presentValueSign(rate: number, flows: readonly number[]): number {
-  const out: SignReach = { sign: 0, reach: 0 };
-  presentValueSignReach(rate, flows, out);
-  return out.sign;
-}
-
-/** The sign {@link presentValueSign} gives at a rate, and how far above that rate presentValue is sure to keep it. */
+/** The sign of presentValue at a rate, and how far above that rate it is sure to keep it. */
 export interface SignReach {
   sign: number;
   /** Rate step (≥ 0): at every rate in [rate, rate + reach] presentValue has `sign`. */
@@ -44,7 +32,10 @@ export interface SignReach {
 const REACH_SAFETY = 1e-6;
 
 /**
- * {@link presentValueSign} at `rate`, written into `out`, with the reach of that sign: above
+ * The sign (−1, 0 or 1) that {@link presentValue}(rate, flows) has, written into `out`, found with
+ * a running power of 1/(1 + rate) instead of a power per term: where the quick sum lies within its
+ * rounding bound of zero, presentValue itself decides, so the sign is always presentValue's. With
+ * it the reach of that sign: above
  * `rate` each term's slope |t·cf_t·(1 + r)^(−t−1)| only falls, so presentValue moves by at most
  * S = Σ t·|cf_t|·(1 + rate)^(−t−1) per unit of rate, and its rounding bound (which only falls
  * with the terms) stays under the one at `rate`; the sign therefore holds, in exact arithmetic

@@ -71,8 +71,8 @@ const ROOT_TOLERANCE = 1e-12;
 const SAME_ROOT = 1e-9;
 
 /**
- * Every root of NPV on the grid's brackets; signs are {@link presentValueSign}'s, each root from
- * a search on `f`. A rate inside the reach of the last rate evaluated has that rate's sign
+ * Every root of NPV on the grid's brackets; signs are presentValue's (presentValueSignReach), each
+ * root from a search on `f`. A rate inside the reach of the last rate evaluated has that rate's sign
  * (presentValueSignReach), so only the rates past it are evaluated: the same signs, brackets and
  * roots as evaluating every rate of the grid, at a fraction of the cost.
  */

@@ -13,7 +13,7 @@ import type { LoanSchedule } from './finance';
 import { milkCowEquivalents } from './herd-costs';
 import { cowsPerYear, herdPurchasesByYear, herdValueAtHorizon } from './herd-size';
 import { manureStorageVolumeM3, stallsFor } from './sizing';
-import { TaxDepreciationSum, type DepreciationSchedule, type PurchaseForTax } from './tax';
+import { TaxDepreciationSum, type DepreciationSchedule } from './tax';
 
 /** Everything about an option that does not change with prices: herd, sizing, capital, tax depreciation, loan. */
 export interface OptionPlan {
@@ -97,7 +97,7 @@ function depreciationSchedule(scenario: Scenario): DepreciationSchedule {
 const MACRS_TABLES = { 'macrs-10-200db': MACRS_10_YEAR_200DB, 'macrs-10-150db': MACRS_10_YEAR_150DB, 'macrs-20-150db': MACRS_20_YEAR_150DB } as const;
 
 /** A capital asset's own tax schedule when its tax class is not its economic life (else none: the scenario's method). */
-function taxClassSchedule(asset: CapitalAsset): PurchaseForTax['schedule'] {
+function taxClassSchedule(asset: CapitalAsset): ((cost: number) => number[]) | undefined {
   if (asset.taxClass === 'economic-life') return undefined;
   if (asset.taxClass === 'straight-line') {
     const life = asset.taxLifeYears;
@@ -168,9 +168,9 @@ export function withFinanceTerms(plan: OptionPlan, finance: Scenario['finance'])
 
 /**
  * A plan already built for the same herd, housing and general inflation (a Monte Carlo run's
- * unperturbed plan), with
- * the capital lines and finance terms it was built on: a draw that moves neither reuses its
- * capital, tax depreciation and loan as they are, and every draw its herd, sizing and storage.
+ * unperturbed plan), with the capital lines and finance terms it was built on: a draw that moves
+ * neither reuses its capital, tax depreciation and loan as they are, and every draw its herd,
+ * sizing and storage.
  */
 export interface PlanBasis {
   plan: OptionPlan;

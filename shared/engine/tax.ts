@@ -8,23 +8,13 @@ export function taxableIncome(operatingMargin: number, depreciation: number, int
   return operatingMargin - depreciation - interest + disposalGain;
 }
 
-export interface TaxStep {
-  /** Tax of the year (currency); negative = a tax saving against other farm income. */
-  tax: number;
-  /** Loss carried into the next year (currency, ≥ 0). */
-  lossCarried: number;
-}
-
 /**
- * Tax of one year (currency) at `rate`. When losses offset other income, a negative taxable
- * income gives a saving (negative tax) that year; otherwise the loss is carried forward and
- * set against the next years' taxable income, and any loss left at the horizon is lost.
+ * Tax of one year (currency; negative = a tax saving against other farm income) at `rate`, with
+ * `lossCarried` brought in from earlier years. When losses offset other income, a negative
+ * taxable income gives a saving that year; otherwise the loss is carried forward
+ * ({@link lossCarriedOn}) and set against the next years' taxable income, and any loss left at
+ * the horizon is lost.
  */
-export function taxForYear(taxable: number, rate: number, lossesOffsetOtherIncome: boolean, lossCarried: number): TaxStep {
-  return { tax: taxOfYear(taxable, rate, lossesOffsetOtherIncome, lossCarried), lossCarried: lossCarriedOn(taxable, rate, lossesOffsetOtherIncome, lossCarried) };
-}
-
-/** The tax of {@link taxForYear} alone (currency), without a record per year. */
 export function taxOfYear(taxable: number, rate: number, lossesOffsetOtherIncome: boolean, lossCarried: number): number {
   if (rate === 0) return 0;
   if (lossesOffsetOtherIncome) return rate * taxable;
@@ -32,7 +22,7 @@ export function taxOfYear(taxable: number, rate: number, lossesOffsetOtherIncome
   return rate * (taxable - Math.min(lossCarried, taxable));
 }
 
-/** The loss carried on by {@link taxForYear} alone (currency, ≥ 0). */
+/** The loss carried into the next year (currency, ≥ 0) after a year taxed by {@link taxOfYear}. */
 export function lossCarriedOn(taxable: number, rate: number, lossesOffsetOtherIncome: boolean, lossCarried: number): number {
   if (rate === 0 || lossesOffsetOtherIncome) return 0;
   if (taxable <= 0) return lossCarried - taxable;
@@ -42,14 +32,6 @@ export function lossCarriedOn(taxable: number, rate: number, lossesOffsetOtherIn
 /** Depreciation schedule for one purchase: cost and life → amounts in years 1..life after purchase (currency/yr). */
 export type DepreciationSchedule = (cost: number, lifeYears: number) => number[];
 
-export interface PurchaseForTax {
-  year: number;
-  cost: number;
-  lifeYears: number;
-  /** The purchase's own schedule (its tax class); absent = the scenario's schedule over lifeYears. */
-  schedule?: (cost: number) => number[];
-}
-
 export interface TaxDepreciation {
   /** Depreciation per year (currency), index = year (0 at year 0). */
   byYear: number[];
@@ -58,17 +40,11 @@ export interface TaxDepreciation {
 }
 
 /**
- * Tax depreciation per year (currency): each purchase depreciated over its life from the year
- * after it is bought; amounts falling after the horizon stay in the book value at H. Summed in
- * whole cents, so every year's total is exact.
+ * Tax depreciation per year (currency), added one purchase at a time: each purchase depreciated
+ * over its life from the year after it is bought; amounts falling after the horizon stay in the
+ * book value at H. Summed in whole cents, so every year's total is exact; no record is kept per
+ * purchase (this runs for the plan of every Monte Carlo draw).
  */
-export function taxDepreciation(purchases: readonly PurchaseForTax[], horizon: number, schedule: DepreciationSchedule): TaxDepreciation {
-  const sum = new TaxDepreciationSum(horizon, schedule);
-  for (const purchase of purchases) sum.add(purchase.year, purchase.cost, purchase.lifeYears, purchase.schedule);
-  return sum.result();
-}
-
-/** {@link taxDepreciation} summed one purchase at a time, without a record per purchase (the plan of every Monte Carlo draw). */
 export class TaxDepreciationSum {
   // Whole cents per year as differences (an amount in year y is +a at y, −a at y + 1), summed once
   // in result(): a straight-line purchase, level but for its last year, is then one run of two

@@ -1,13 +1,20 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { presentValue, presentValueSign, presentValueSignReach, type SignReach } from '@shared/engine/discounting';
+import { presentValue, presentValueSignReach, type SignReach } from '@shared/engine/discounting';
 import { irr } from '@shared/engine/finance';
+
+/** The sign alone, as the IRR grid scan reads it. */
+function presentValueSign(rate: number, flows: number[]): number {
+  const known: SignReach = { sign: 0, reach: 0 };
+  presentValueSignReach(rate, flows, known);
+  return known.sign;
+}
 
 const flowsArb = fc.array(fc.double({ min: -1e6, max: 1e6, noNaN: true }), { minLength: 1, maxLength: 41 });
 /** Rates over the IRR search range, −99 % to +1 000 % (docs/model.md "IRR"). */
 const rateArb = fc.double({ min: -0.99, max: 10, noNaN: true });
 
-describe('presentValueSign, the quick sign the IRR grid scan reads', () => {
+describe('presentValueSignReach, the quick sign the IRR grid scan reads', () => {
   it('has the sign of presentValue on any flows and rate', () => {
     fc.assert(
       fc.property(flowsArb, rateArb, (flows, rate) => {
