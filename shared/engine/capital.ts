@@ -102,16 +102,17 @@ export function residualValue(cost: number, lifeYears: number, ageYears: number)
  * latest purchase (earlier purchases are fully used by the time they are replaced).
  */
 export function salvageAtHorizon(assets: readonly CapitalAsset[], purchases: readonly Purchase[], horizon: number): number {
-  const latest = new Map<number, Purchase>();
+  const latest = new Array<Purchase | undefined>(assets.length);
   for (const purchase of purchases) {
-    const seen = latest.get(purchase.asset);
-    if (!seen || purchase.year > seen.year) latest.set(purchase.asset, purchase);
+    const seen = latest[purchase.asset];
+    if (!seen || purchase.year > seen.year) latest[purchase.asset] = purchase;
   }
+  // In asset order, as purchaseSchedule lists them.
   let salvage = 0;
-  for (const [index, purchase] of latest) {
+  latest.forEach((purchase, index) => {
     const asset = assets[index];
-    if (asset) salvage += residualValue(purchase.cost, asset.lifeYears, horizon - purchase.year);
-  }
+    if (asset && purchase) salvage += residualValue(purchase.cost, asset.lifeYears, horizon - purchase.year);
+  });
   return salvage;
 }
 

@@ -32,14 +32,25 @@ const NEAR_HALF_RELATIVE = 2 ** -48;
 
 /** A currency amount rounded to cents (currency), half-up with ties away from zero, in floating point; equals the decimal.js toCents (tests/oracles/cents.ts). */
 export function roundCentsFast(amount: number): number {
-  // The common case inline (this runs for every line of every year of every Monte Carlo draw):
-  // below 2³⁶ the product errs by under 0.005 cents, so an amount more than 0.025 cents away
-  // from a half cent rounds as Math.round says.
-  const magnitude = amount < 0 ? -amount : amount;
-  const scaled = magnitude * 100;
+  // The common case in as little code as can be inlined at every call (this runs for every line
+  // of every year of every Monte Carlo draw): below 2³⁶ the product errs by under 0.005 cents, so
+  // an amount more than 0.025 cents away from a half cent rounds as Math.round says, and the same
+  // away from zero on either side (a product and Math.round off a half are odd functions).
+  const scaled = amount * 100;
   const cents = Math.round(scaled);
   const off = scaled - cents;
-  if (magnitude < QUICK_BELOW && off < QUICK_MARGIN && off > -QUICK_MARGIN) return (amount < 0 ? -cents : cents) / 100;
+  if (off < QUICK_MARGIN && off > -QUICK_MARGIN && amount < QUICK_BELOW && amount > -QUICK_BELOW) return cents / 100;
+  return roundCentsNearHalf(amount);
+}
+
+/** Each amount rounded to cents in place, as {@link roundCentsFast} rounds it. */
+export function roundCentsInPlace(amounts: Float64Array): void {
+  for (let i = 0; i < amounts.length; i++) amounts[i] = roundCentsFast(amounts[i] as number);
+}
+
+/** {@link roundCentsFast} near a half cent, for large amounts and for NaN. */
+function roundCentsNearHalf(amount: number): number {
+  const magnitude = amount < 0 ? -amount : amount;
   // Past 2⁴² the cents themselves may pass 2⁵³, where a double no longer holds every whole number.
   return magnitude < EXACT_BELOW ? wholeCents(amount) / 100 : roundCents(amount).toNumber();
 }
@@ -125,10 +136,31 @@ export interface LoanYearsFast {
   closingBalance: number[];
 }
 
-// The decimal.js loanSchedule's interest for one period, in decimal.js (tie periods only).
-function ledgerInterest(balance: number, annualRate: number, paymentsPerYear: number): number {
-  return toWholeCents(roundCents(currency(balance).times(new Money(annualRate).div(paymentsPerYear))));
+/**
+ * The decimal.js loanSchedule's interest for one period, in decimal.js (tie periods only), on a
+ * balance in whole cents at the period rate `new Money(annualRate).div(paymentsPerYear)`: the
+ * balance in cents × the rate is the ledger's product in currency × 100 to the same 40
+ * significant digits, so rounding it to a whole number is the ledger's rounding to cents.
+ */
+function ledgerInterest(balance: number, periodRate: Decimal): number {
+  return new Money(balance).times(periodRate).toDecimalPlaces(0, Decimal.ROUND_HALF_UP).toNumber();
 }
+
+/**
+ * The ledger's period rate `new Money(annualRate).div(paymentsPerYear)`, remembered for the last
+ * rate asked: every loan of a Monte Carlo run shares it, and the division is most of what a tie
+ * costs. A decimal.js value never changes, so the answer is the same whatever was asked before.
+ */
+function ledgerPeriodRate(annualRate: number, paymentsPerYear: number): Decimal {
+  if (!Object.is(annualRate, remembered.annualRate) || paymentsPerYear !== remembered.paymentsPerYear || !remembered.rate) {
+    remembered.annualRate = annualRate;
+    remembered.paymentsPerYear = paymentsPerYear;
+    remembered.rate = new Money(annualRate).div(paymentsPerYear);
+  }
+  return remembered.rate;
+}
+
+const remembered: { annualRate: number; paymentsPerYear: number; rate: Decimal | null } = { annualRate: Number.NaN, paymentsPerYear: 0, rate: null };
 
 // The level payment's float formula errs by up to a few parts in 1e14 over 480 periods.
 const LEVEL_TIE_RELATIVE = 1e-12;
@@ -185,7 +217,11 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
       const whole = Math.floor(raw);
       const fraction = raw - whole;
       const periodInterest =
-        fraction - 0.5 < window && 0.5 - fraction < window ? ledgerInterest(balance, annualRate, paymentsPerYear) : fraction > 0.5 ? whole + 1 : whole;
+        fraction - 0.5 < window && 0.5 - fraction < window
+          ? ledgerInterest(balance, ledgerPeriodRate(annualRate, paymentsPerYear))
+          : fraction > 0.5
+            ? whole + 1
+            : whole;
       let periodPrincipal: number;
       if (number <= interestOnlyPeriods) periodPrincipal = 0;
       else if (number === totalPeriods) periodPrincipal = balance;

@@ -6,8 +6,12 @@ const NOTHING_DUE = 0.005;
  * interest; null when nothing is due (a ratio over zero debt service is undefined).
  */
 export function coverageRatio(cashAvailable: number, debtService: number): number | null {
-  if (!(debtService >= NOTHING_DUE)) return null;
-  return cashAvailable / debtService;
+  return somethingDue(debtService) ? cashAvailable / debtService : null;
+}
+
+/** True when a debt service (currency) is something to cover: the ratio over it is defined. */
+export function somethingDue(debtService: number): boolean {
+  return debtService >= NOTHING_DUE;
 }
 
 /**

@@ -13,7 +13,7 @@ const discountDivisor = powerTable();
  */
 export function presentValue(rate: number, flows: readonly number[]): number {
   let total = 0;
-  for (let t = 0; t < flows.length; t++) total += (flows[t] ?? 0) / discountDivisor(rate, t);
+  for (let t = 0; t < flows.length; t++) total += (flows[t] as number) / discountDivisor(rate, t);
   return total;
 }
 
@@ -21,26 +21,51 @@ export function presentValue(rate: number, flows: readonly number[]): number {
 // (running power or pow, the division, the sum), far below this many ulps of the terms' size.
 const SIGN_SAFETY_ULPS = 8;
 
+/** The sign of presentValue at a rate, and how far above that rate it is sure to keep it. */
+export interface SignReach {
+  sign: number;
+  /** Rate step (≥ 0): at every rate in [rate, rate + reach] presentValue has `sign`. */
+  reach: number;
+}
+
+// Slack on the reach for the rounding of the slope bound and the margin (far above their error).
+const REACH_SAFETY = 1e-6;
+
 /**
- * The sign (−1, 0 or 1) that {@link presentValue}(rate, flows) has, found with a running power of
- * 1/(1 + rate) instead of a power per term: where the quick sum lies within its rounding bound of
- * zero, presentValue itself decides, so the answer is always presentValue's sign. The IRR grid
- * scan only needs signs.
+ * The sign (−1, 0 or 1) that {@link presentValue}(rate, flows) has, written into `out`, found with
+ * a running power of 1/(1 + rate) instead of a power per term: where the quick sum lies within its
+ * rounding bound of zero, presentValue itself decides, so the sign is always presentValue's. With
+ * it the reach of that sign: above
+ * `rate` each term's slope |t·cf_t·(1 + r)^(−t−1)| only falls, so presentValue moves by at most
+ * S = Σ t·|cf_t|·(1 + rate)^(−t−1) per unit of rate, and its rounding bound (which only falls
+ * with the terms) stays under the one at `rate`; the sign therefore holds, in exact arithmetic
+ * and in presentValue's own, while the rate has moved less than (|quick sum| − 2 × bound) ÷ S.
+ * A scan of many rates need not evaluate the ones inside a reach: they have this sign.
  */
-export function presentValueSign(rate: number, flows: readonly number[]): number {
+export function presentValueSignReach(rate: number, flows: readonly number[], out: SignReach): void {
   const v = 1 / (1 + rate);
   let power = 1;
   let total = 0;
   let magnitude = 0;
+  let moment = 0;
   for (let t = 0; t < flows.length; t++) {
-    const term = (flows[t] ?? 0) * power;
+    const term = (flows[t] as number) * power;
+    const size = Math.abs(term);
     total += term;
-    magnitude += Math.abs(term);
+    magnitude += size;
+    moment += t * size;
     power *= v;
   }
   const bound = SIGN_SAFETY_ULPS * (flows.length + 4) * Number.EPSILON * magnitude;
-  if (Number.isFinite(magnitude) && Math.abs(total) > bound) return total > 0 ? 1 : -1;
-  return Math.sign(presentValue(rate, flows));
+  if (Number.isFinite(magnitude) && Math.abs(total) > bound) {
+    out.sign = total > 0 ? 1 : -1;
+    const margin = Math.abs(total) - 2 * bound;
+    const slope = moment * v * (1 + REACH_SAFETY);
+    out.reach = margin <= 0 || !Number.isFinite(slope) ? 0 : slope === 0 ? Number.POSITIVE_INFINITY : margin / slope;
+    return;
+  }
+  out.sign = Math.sign(presentValue(rate, flows));
+  out.reach = 0;
 }
 
 /** Each flow's present value flows[t] / (1 + rate)^t (currency), the terms {@link presentValue} adds. */

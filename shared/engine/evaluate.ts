@@ -306,7 +306,11 @@ export interface FastEvaluationOptions {
    * the unperturbed scenario for a Monte Carlo draw; null or absent = 10 %. Only speed depends on it.
    */
   irrStart?: readonly (number | null)[];
-  /** Each option's steady lines (index = option), when the scenario moves none of them; absent = built here. */
+  /**
+   * Each option's steady lines (index = option), when the scenario moves none of them nor the
+   * herd, housing or general inflation (see {@link steadyLinesOf}); absent = built here. Their
+   * plan also gives each option's herd and sizing, and its capital and loan when those are unmoved.
+   */
   steadyLines?: readonly (SteadyLines | null)[];
 }
 
@@ -320,8 +324,9 @@ export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOpti
   const { discountRate } = scenario.finance;
   const currentLying = milkingLyingHours(scenario.herd, current);
   const runs = scenario.options.map((option, index) => {
-    const { plan } = planOption(scenario, option, 'fast');
-    return { option, plan, projection: projectOption(scenario, option, plan, currentLying, false, false, settings.steadyLines?.[index] ?? null) };
+    const steady = settings.steadyLines?.[index] ?? null;
+    const { plan } = planOption(scenario, option, 'fast', steady?.basis);
+    return { option, plan, projection: projectOption(scenario, option, plan, currentLying, false, false, steady) };
   });
   const base = runs.find((run) => run.option === current) ?? runs[0];
   if (!base) return [];

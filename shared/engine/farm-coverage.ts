@@ -1,5 +1,5 @@
 import type { Herd, Scenario } from '../schema';
-import { coverageRatio } from './coverage';
+import { coverageRatio, somethingDue } from './coverage';
 import type { OptionPlan } from './projection';
 
 /**
@@ -46,7 +46,7 @@ export function existingFarmOf(scenario: Scenario, currentCashForDebtService: re
 
 /** Debt service of an option's loan in year t (currency): interest + principal. */
 export function loanDueIn(plan: OptionPlan, t: number): number {
-  return (plan.interestByYear[t] ?? 0) + (plan.principalByYear[t] ?? 0);
+  return (plan.interestByYear[t] as number) + (plan.principalByYear[t] as number);
 }
 
 /** One option's cash for debt service and loan, and the current option's, as the ratios need them. */
@@ -68,13 +68,16 @@ export interface CoverageSides {
  *   current option's); null for the current option and when the change borrows nothing more.
  */
 export function coverageInYear(farm: ExistingFarm, sides: CoverageSides, t: number): { project: number | null; wholeFarm: number | null } {
-  const ownCash = sides.ownCash[t] ?? 0;
-  const ownDue = loanDueIn(sides.ownPlan, t);
-  const wholeFarm = coverageRatio(farm.cashBesideHerd + ownCash, (farm.debtByYear[t] ?? 0) + ownDue);
+  const wholeFarm = coverageRatio(wholeFarmCash(farm, sides, t), wholeFarmDue(farm, sides, t));
   if (sides.isCurrent) return { project: null, wholeFarm };
-  const change = ownCash - (sides.currentCash[t] ?? 0);
-  return { project: coverageRatio(change, ownDue - loanDueIn(sides.currentPlan, t)), wholeFarm };
+  return { project: coverageRatio(changeInCash(sides, t), changeInDue(sides, t)), wholeFarm };
 }
+
+// The two ratios' numerators and denominators in year t (currency), as coverageInYear defines them.
+const wholeFarmCash = (farm: ExistingFarm, sides: CoverageSides, t: number): number => farm.cashBesideHerd + (sides.ownCash[t] as number);
+const wholeFarmDue = (farm: ExistingFarm, sides: CoverageSides, t: number): number => (farm.debtByYear[t] as number) + loanDueIn(sides.ownPlan, t);
+const changeInCash = (sides: CoverageSides, t: number): number => (sides.ownCash[t] as number) - (sides.currentCash[t] as number);
+const changeInDue = (sides: CoverageSides, t: number): number => loanDueIn(sides.ownPlan, t) - loanDueIn(sides.currentPlan, t);
 
 /** Lowest whole-farm and project coverage over years 1..H and the count of years below the threshold. */
 export interface CoverageSummary {
@@ -88,14 +91,26 @@ export function coverageSummary(farm: ExistingFarm, sides: CoverageSides, horizo
   let minCoverage: number | null = null;
   let minProjectCoverage: number | null = null;
   let yearsBelowThreshold = 0;
+  // coverageInYear's ratios without a record or a nullable number per year (this runs for every
+  // option of every Monte Carlo draw): the lowest so far is NaN until a year defines one.
+  let lowest = Number.NaN;
+  let lowestProject = Number.NaN;
   for (let t = 1; t <= horizon; t++) {
-    const { project, wholeFarm } = coverageInYear(farm, sides, t);
-    if (wholeFarm !== null) {
-      if (minCoverage === null || wholeFarm < minCoverage) minCoverage = wholeFarm;
+    const due = wholeFarmDue(farm, sides, t);
+    if (somethingDue(due)) {
+      const wholeFarm = wholeFarmCash(farm, sides, t) / due;
+      if (!(wholeFarm >= lowest)) lowest = wholeFarm;
       if (wholeFarm < threshold) yearsBelowThreshold += 1;
     }
-    if (project !== null && (minProjectCoverage === null || project < minProjectCoverage)) minProjectCoverage = project;
+    if (sides.isCurrent) continue;
+    const changeDue = changeInDue(sides, t);
+    if (somethingDue(changeDue)) {
+      const project = changeInCash(sides, t) / changeDue;
+      if (!(project >= lowestProject)) lowestProject = project;
+    }
   }
+  if (!Number.isNaN(lowest)) minCoverage = lowest;
+  if (!Number.isNaN(lowestProject)) minProjectCoverage = lowestProject;
   return { minCoverage, minProjectCoverage, yearsBelowThreshold };
 }
 

@@ -1,30 +1,42 @@
 import { signChanges } from './discounting';
 import { IRR_RANGE, irr, type IrrResult } from './finance';
 
-// NPV at rate r (returned) and its derivative d/dr (written to slopeOut[0]), flows[0] at t = 0:
+/** Where {@link npvAt} writes the derivative: one per search, not a pair per step. */
+interface Slope {
+  value: number;
+}
+
+// NPV at rate r (returned) and its derivative d/dr (written to slopeOut.value), flows[0] at t = 0:
 // no pair allocated per step, as this runs several times for every option of every Monte Carlo draw.
-function npvAt(flows: readonly number[], rate: number, slopeOut: Float64Array): number {
+function npvAt(flows: readonly number[], rate: number, slopeOut: Slope): number {
   const v = 1 / (1 + rate);
   let power = 1;
   let value = 0;
   let slope = 0;
   for (let t = 0; t < flows.length; t++) {
-    const cf = flows[t] ?? 0;
+    const cf = flows[t] as number;
     value += cf * power;
     slope -= t * cf * power * v;
     power *= v;
   }
-  slopeOut[0] = slope;
+  slopeOut.value = slope;
   return value;
 }
 
-/** Sign changes of the running sums of the flows, from the first flow onwards or from the last one backwards. */
+/** Sign changes of the running sums of the flows (zeros skipped, as signChanges counts), from the first flow onwards or from the last one backwards. */
 function runningSumSignChanges(flows: readonly number[], fromEnd: boolean): number {
   const n = flows.length;
-  const sums = new Array<number>(n);
+  let changes = 0;
+  let previous = 0;
   let sum = 0;
-  for (let i = 0; i < n; i++) sums[i] = sum += flows[fromEnd ? n - 1 - i : i] ?? 0;
-  return signChanges(sums);
+  for (let i = 0; i < n; i++) {
+    sum += flows[fromEnd ? n - 1 - i : i] as number;
+    if (sum === 0) continue;
+    const sign = sum > 0 ? 1 : -1;
+    if (previous !== 0 && sign !== previous) changes++;
+    previous = sign;
+  }
+  return changes;
 }
 
 /**
@@ -57,7 +69,7 @@ export function irrFast(flows: readonly number[], start = DEFAULT_START): IrrRes
   if (changes === 0 || (changes > 1 && !atMostOneIrr(flows))) return irr(flows);
   let lo: number = IRR_RANGE.lo;
   let hi: number = IRR_RANGE.hi;
-  const slopeOut = new Float64Array(1);
+  const slopeOut: Slope = { value: 0.5 };
   const fLo = npvAt(flows, lo, slopeOut);
   const fHi = npvAt(flows, hi, slopeOut);
   if (fLo === 0) return { value: lo };
@@ -69,7 +81,7 @@ export function irrFast(flows: readonly number[], start = DEFAULT_START): IrrRes
   let rate = Number.isFinite(start) && start > lo && start < hi ? start : DEFAULT_START;
   for (let i = 0; i < MAX_ITERATIONS; i++) {
     const value = npvAt(flows, rate, slopeOut);
-    const slope = slopeOut[0] as number;
+    const slope = slopeOut.value;
     if (value === 0) return { value: rate };
     if (value < 0) neg = rate;
     else pos = rate;

@@ -7,7 +7,7 @@ import type { Option, Scenario } from '../schema';
 import { presentValue } from './discounting';
 import { baseFeedCostPerYear, marginalFeedCostPerYear } from './feed';
 import type { OptionPlan } from './plan';
-import { emptySettlement, identity, settleYear } from './settle-year';
+import { emptySettlement, settleYear } from './settle-year';
 import { cappedLyingHours, lactatingShare, milkSoldKgPerYear, rampFraction, stockedLyingHours, yieldPerCowDay } from './yield';
 
 /**
@@ -87,12 +87,12 @@ export function openMilkModel(scenario: Scenario, option: Option, plan: OptionPl
 
 /** Operating margin of year t (currency, unrounded) from a milk model at a milk price and lying-time response. */
 function marginAtMilk(model: MilkModel, t: number, milkPrice: number, response: number): number {
-  const cows = model.cows[t] ?? 0;
+  const cows = model.cows[t] as number;
   const yieldKg = Math.max(0, model.yieldFixed + response * (t === 1 ? model.yieldPerResponseYear1 : model.yieldPerResponseLater));
-  const milkKg = milkSoldKgPerYear(model.milkCows[t] ?? cows, yieldKg);
-  const milkIncome = milkKg * (milkPrice + model.qualityPricePerKg) * (model.milkGrowth[t] ?? 1);
-  const feed = (model.feedPerCow * cows + marginalFeedCostPerYear(milkKg - model.baselineMilkPerCow * cows, model.marginalFeedCostPerKg)) * (model.feedGrowth[t] ?? 1);
-  return (model.otherMargin[t] ?? 0) + milkIncome - feed;
+  const milkKg = milkSoldKgPerYear(model.milkCows[t] as number, yieldKg);
+  const milkIncome = milkKg * (milkPrice + model.qualityPricePerKg) * (model.milkGrowth[t] as number);
+  const feed = (model.feedPerCow * cows + marginalFeedCostPerYear(milkKg - model.baselineMilkPerCow * cows, model.marginalFeedCostPerKg)) * (model.feedGrowth[t] as number);
+  return (model.otherMargin[t] as number) + milkIncome - feed;
 }
 
 /**
@@ -108,7 +108,7 @@ function flowsAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario['fina
   const out = emptySettlement();
   let lossCarried = 0;
   for (let t = 1; t <= plan.horizon; t++) {
-    settleYear(out, plan, finance, t, marginAtMilk(model, t, milkPrice, response), lossCarried, identity, identity);
+    settleYear(out, plan, finance, t, marginAtMilk(model, t, milkPrice, response), lossCarried, false);
     lossCarried = out.lossCarried;
     flows[t] = out.net;
     if (cashInto) cashInto[t] = out.cashForDebtService;

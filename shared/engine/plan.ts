@@ -2,7 +2,7 @@
  * An option's plan: what does not change with prices — herd per year, stalls, storage, capital,
  * replacements, salvage, tax depreciation and the loan.
  */
-import type { Option, Scenario } from '../schema';
+import type { CapitalLine, Option, Scenario } from '../schema';
 import { beddingToStorageM3PerYear, beddingTonnesPerYear } from './bedding';
 import { capitalAssets, capitalTotal, purchaseSchedule, replacementsByYear, salvageAtHorizon, type CapitalAsset } from './capital';
 import { decliningBalanceFast, loanScheduleFast, loanYearsFast, macrsFast, roundCentsFast, straightLineFast, type LoanYearsFast } from './cents';
@@ -13,7 +13,7 @@ import type { LoanSchedule } from './finance';
 import { milkCowEquivalents } from './herd-costs';
 import { cowsPerYear, herdPurchasesByYear, herdValueAtHorizon } from './herd-size';
 import { manureStorageVolumeM3, stallsFor } from './sizing';
-import { taxDepreciation, type DepreciationSchedule, type PurchaseForTax } from './tax';
+import { TaxDepreciationSum, type DepreciationSchedule } from './tax';
 
 /** Everything about an option that does not change with prices: herd, sizing, capital, tax depreciation, loan. */
 export interface OptionPlan {
@@ -97,14 +97,14 @@ function depreciationSchedule(scenario: Scenario): DepreciationSchedule {
 const MACRS_TABLES = { 'macrs-10-200db': MACRS_10_YEAR_200DB, 'macrs-10-150db': MACRS_10_YEAR_150DB, 'macrs-20-150db': MACRS_20_YEAR_150DB } as const;
 
 /** A capital asset's own tax schedule when its tax class is not its economic life (else none: the scenario's method). */
-function taxClassSchedule(asset: CapitalAsset | undefined): Pick<PurchaseForTax, 'schedule'> {
-  if (!asset || asset.taxClass === 'economic-life') return {};
+function taxClassSchedule(asset: CapitalAsset): ((cost: number) => number[]) | undefined {
+  if (asset.taxClass === 'economic-life') return undefined;
   if (asset.taxClass === 'straight-line') {
     const life = asset.taxLifeYears;
-    return { schedule: (cost) => straightLineFast(cost, life) };
+    return (cost) => straightLineFast(cost, life);
   }
   const { percentages } = MACRS_TABLES[asset.taxClass];
-  return { schedule: (cost) => macrsFast(cost, percentages) };
+  return (cost) => macrsFast(cost, percentages);
 }
 
 /**
@@ -166,57 +166,114 @@ export function withFinanceTerms(plan: OptionPlan, finance: Scenario['finance'])
   return { ...plan, ...loanLines };
 }
 
-/** Builds an option's plan; with mode 'ledger' it also returns the loan schedule in exact cents. */
-export function planOption(scenario: Scenario, option: Option, mode: PlanMode): { plan: OptionPlan; loan: LoanSchedule | null } {
-  const { herd, finance } = scenario;
+/**
+ * A plan already built for the same herd, housing and general inflation (a Monte Carlo run's
+ * unperturbed plan), with the capital lines and finance terms it was built on: a draw that moves
+ * neither reuses its capital, tax depreciation and loan as they are, and every draw its herd,
+ * sizing and storage.
+ */
+export interface PlanBasis {
+  plan: OptionPlan;
+  capitalLines: readonly CapitalLine[];
+  finance: Scenario['finance'];
+}
+
+/** The plan's herd, sizing and storage: what follows the herd and the housing alone. */
+type HerdPlan = Pick<OptionPlan, 'horizon' | 'cows' | 'milkCows' | 'designCows' | 'stalls' | 'housedDays' | 'grazingDays' | 'storageM3' | 'herdPurchasesByYear' | 'herdValueAtHorizon'>;
+
+function herdPlan(scenario: Scenario, option: Option): HerdPlan {
+  const { herd } = scenario;
   const horizon = scenario.horizonYears;
   const inflation = herd.growth.general;
   const cows = cowsPerYear(herd.cows, option.herdChange, horizon);
   let designCows = 0;
   for (let year = 1; year <= horizon; year++) designCows = Math.max(designCows, cows[year] ?? 0);
   const stalls = optionStalls(option, designCows);
-  const storageM3 = optionStorageM3(scenario, option, designCows, stalls);
-  const assets = capitalAssets(option.capitalLines, { stalls, storageM3, troughs: option.water.troughs });
-  const capital = capitalTotal(assets);
-  const purchases = purchaseSchedule(assets, horizon, inflation);
-  const grants = Math.min(finance.grants, capital);
-  // With grants reducing the depreciable base, each year-0 purchase carries its share of them.
-  const year0Base = finance.grantsReduceDepreciableBase && capital > 0 ? 1 - grants / capital : 1;
-  const depreciation = taxDepreciation(
-    purchases.map((p) => {
-      const asset = assets[p.asset];
-      return { year: p.year, cost: p.year === 0 ? p.cost * year0Base : p.cost, lifeYears: asset?.lifeYears ?? 1, ...taxClassSchedule(asset) };
-    }),
-    horizon,
-    depreciationSchedule(scenario),
-  );
-  const capitalLoan = loanAmountFor(capital, grants, finance.equity, finance.loanAmount);
-  const equity = Math.max(0, capital - grants - capitalLoan);
-  const { loan, ...loanLines } = loanPlan(capitalLoan, finance, horizon, mode);
-
   const addedCowCost = option.herdChange.addedCowCost ?? herd.replacementHeiferCost;
   const housedDays = effectiveHousedDays(option.housedDaysPerYear);
   return {
+    horizon,
+    cows,
+    milkCows: milkCowEquivalents(cows, herd.firstLactationYieldFactor),
+    designCows,
+    stalls,
+    housedDays,
+    grazingDays: grazingDaysPerYear(housedDays),
+    storageM3: optionStorageM3(scenario, option, designCows, stalls),
+    herdPurchasesByYear: herdPurchasesByYear(cows, addedCowCost, herd.cullCowValue, inflation),
+    herdValueAtHorizon: herdValueAtHorizon(cows, herd.cullCowValue, inflation),
+  };
+}
+
+/** The plan's capital: assets, replacements, salvage, grants and tax depreciation. */
+type CapitalPlan = Pick<OptionPlan, 'assets' | 'capitalTotal' | 'replacementsByYear' | 'salvage' | 'depreciationByYear' | 'taxBookValueAtHorizon' | 'grants'>;
+
+function capitalPlan(scenario: Scenario, option: Option, sized: HerdPlan): CapitalPlan {
+  const { finance } = scenario;
+  const { horizon } = sized;
+  const assets = capitalAssets(option.capitalLines, { stalls: sized.stalls, storageM3: sized.storageM3, troughs: option.water.troughs });
+  const capital = capitalTotal(assets);
+  const purchases = purchaseSchedule(assets, horizon, scenario.herd.growth.general);
+  const grants = Math.min(finance.grants, capital);
+  // With grants reducing the depreciable base, each year-0 purchase carries its share of them.
+  const year0Base = finance.grantsReduceDepreciableBase && capital > 0 ? 1 - grants / capital : 1;
+  const schedules = assets.map(taxClassSchedule);
+  const tax = new TaxDepreciationSum(horizon, depreciationSchedule(scenario));
+  for (const p of purchases) tax.add(p.year, p.year === 0 ? p.cost * year0Base : p.cost, assets[p.asset]?.lifeYears ?? 1, schedules[p.asset]);
+  const depreciation = tax.result();
+  return {
+    assets,
+    capitalTotal: capital,
+    replacementsByYear: replacementsByYear(purchases, horizon),
+    salvage: salvageAtHorizon(assets, purchases, horizon),
+    depreciationByYear: depreciation.byYear,
+    taxBookValueAtHorizon: depreciation.bookValueAtHorizon,
+    grants,
+  };
+}
+
+/** True when two finance terms give the same grants and tax depreciation on the same capital. */
+function sameTaxTerms(a: Scenario['finance'], b: Scenario['finance']): boolean {
+  return a === b || (a.grants === b.grants && a.grantsReduceDepreciableBase === b.grantsReduceDepreciableBase && a.depreciation === b.depreciation && a.decliningBalanceFactor === b.decliningBalanceFactor);
+}
+
+/**
+ * Builds an option's plan; with mode 'ledger' it also returns the loan schedule in exact cents.
+ * With a `basis` built for the same herd, housing and inflation it takes the herd, sizing and storage from
+ * it, and its capital and loan too when the capital lines (the same list) and the terms they
+ * depend on are the basis's own: the same inputs, so the same figures.
+ */
+export function planOption(scenario: Scenario, option: Option, mode: PlanMode, basis?: PlanBasis): { plan: OptionPlan; loan: LoanSchedule | null } {
+  const { finance } = scenario;
+  const base = basis?.plan;
+  const sized: HerdPlan = base ?? herdPlan(scenario, option);
+  const sameCapital = basis !== undefined && option.capitalLines === basis.capitalLines && sameTaxTerms(finance, basis.finance);
+  const capital: CapitalPlan = sameCapital && base ? base : capitalPlan(scenario, option, sized);
+  if (sameCapital && base && mode === 'fast' && finance === basis.finance) return { plan: base, loan: null };
+  const capitalLoan = loanAmountFor(capital.capitalTotal, capital.grants, finance.equity, finance.loanAmount);
+  const equity = Math.max(0, capital.capitalTotal - capital.grants - capitalLoan);
+  const { loan, ...loanLines } = loanPlan(capitalLoan, finance, sized.horizon, mode);
+  return {
     plan: {
-      horizon,
-      cows,
-      milkCows: milkCowEquivalents(cows, herd.firstLactationYieldFactor),
-      designCows,
-      stalls,
-      housedDays,
-      grazingDays: grazingDaysPerYear(housedDays),
-      storageM3,
-      assets,
-      capitalTotal: capital,
-      replacementsByYear: replacementsByYear(purchases, horizon),
-      salvage: salvageAtHorizon(assets, purchases, horizon),
-      depreciationByYear: depreciation.byYear,
-      taxBookValueAtHorizon: depreciation.bookValueAtHorizon,
-      grants,
+      horizon: sized.horizon,
+      cows: sized.cows,
+      milkCows: sized.milkCows,
+      designCows: sized.designCows,
+      stalls: sized.stalls,
+      housedDays: sized.housedDays,
+      grazingDays: sized.grazingDays,
+      storageM3: sized.storageM3,
+      assets: capital.assets,
+      capitalTotal: capital.capitalTotal,
+      replacementsByYear: capital.replacementsByYear,
+      salvage: capital.salvage,
+      depreciationByYear: capital.depreciationByYear,
+      taxBookValueAtHorizon: capital.taxBookValueAtHorizon,
+      grants: capital.grants,
       equity,
       ...loanLines,
-      herdPurchasesByYear: herdPurchasesByYear(cows, addedCowCost, herd.cullCowValue, inflation),
-      herdValueAtHorizon: herdValueAtHorizon(cows, herd.cullCowValue, inflation),
+      herdPurchasesByYear: sized.herdPurchasesByYear,
+      herdValueAtHorizon: sized.herdValueAtHorizon,
     },
     loan,
   };

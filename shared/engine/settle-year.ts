@@ -1,19 +1,14 @@
 /** Year t after its operating margin: tax with losses carried, the project's net flow, cash for debt service. */
 import type { Scenario } from '../schema';
 import type { OptionPlan } from './plan';
-import { taxableIncome, taxForYear } from './tax';
-
-/** How a money amount enters the year's totals: to cents on the ledger, unrounded in the milk model. */
-export type Rounding = (amount: number) => number;
-
-/** No rounding (the milk model: a smooth function of the price). */
-export const identity: Rounding = (amount) => amount;
+import { roundCentsFast } from './cents';
+import { lossCarriedOn, taxableIncome, taxOfYear } from './tax';
 
 /**
  * A sum of amounts already in whole cents, freed of binary noise (currency). No half-cent can
  * arise in such a sum, so this decides nothing that half-up rounding would.
  */
-export const noiseFreeCents: Rounding = (sum) => Math.round(sum * 100) / 100;
+export const noiseFreeCents = (sum: number): number => Math.round(sum * 100) / 100;
 
 /** Tax and net flows of one year, written into by {@link settleYear} (currency). */
 export interface Settlement {
@@ -36,25 +31,37 @@ export const emptySettlement = (): Settlement => ({ taxable: 0, tax: 0, net: 0, 
  * Year t after the operating margin: tax (with losses carried from earlier years), the project's
  * net cash flow and the cash available for debt service (currency). The disposal at the horizon
  * is a valuation, not an operating receipt: its salvage stays out of the cash available for debt
- * service, and so does the tax on its gain (the tax on the year's operations alone).
+ * service, and so does the tax on its gain (the tax on the year's operations alone). `inCents`:
+ * every line rounded to cents as the ledger does (roundCentsFast, sums by noiseFreeCents); false
+ * leaves them unrounded (the milk model: a smooth function of the price).
  */
-export function settleYear(out: Settlement, plan: OptionPlan, finance: Scenario['finance'], t: number, operatingMargin: number, lossCarried: number, round: Rounding, centsTotal: Rounding): void {
+export function settleYear(out: Settlement, plan: OptionPlan, finance: Scenario['finance'], t: number, operatingMargin: number, lossCarried: number, inCents: boolean): void {
   const last = t === plan.horizon;
-  out.replacements = round(plan.replacementsByYear[t] ?? 0);
-  out.herdPurchases = round(plan.herdPurchasesByYear[t] ?? 0);
-  out.salvage = last ? round(plan.salvage) : 0;
-  out.herdValue = last ? round(plan.herdValueAtHorizon) : 0;
-  out.depreciation = round(plan.depreciationByYear[t] ?? 0);
-  const interest = plan.interestByYear[t] ?? 0;
-  const disposalGain = last ? out.salvage - round(plan.taxBookValueAtHorizon) : 0;
-  out.taxable = centsTotal(taxableIncome(operatingMargin, out.depreciation, interest, disposalGain));
-  const step = taxForYear(out.taxable, finance.taxRate, finance.lossesOffsetOtherIncome, lossCarried);
-  out.lossCarried = step.lossCarried;
-  out.tax = round(step.tax);
-  out.net = centsTotal(operatingMargin - out.replacements - out.herdPurchases - out.tax + out.salvage + out.herdValue);
+  const { taxRate, lossesOffsetOtherIncome } = finance;
+  // Most years buy nothing; rounding ±0 gives it back as it is.
+  const replacements = plan.replacementsByYear[t] as number;
+  const herdPurchases = plan.herdPurchasesByYear[t] as number;
+  out.replacements = replacements === 0 || !inCents ? replacements : roundCentsFast(replacements);
+  out.herdPurchases = herdPurchases === 0 || !inCents ? herdPurchases : roundCentsFast(herdPurchases);
+  out.salvage = last ? (inCents ? roundCentsFast(plan.salvage) : plan.salvage) : 0;
+  out.herdValue = last ? (inCents ? roundCentsFast(plan.herdValueAtHorizon) : plan.herdValueAtHorizon) : 0;
+  // Tax depreciation is summed in whole cents (tax.ts), so rounding it again changes nothing.
+  out.depreciation = plan.depreciationByYear[t] as number;
+  const interest = plan.interestByYear[t] as number;
+  const disposalGain = last ? out.salvage - (inCents ? roundCentsFast(plan.taxBookValueAtHorizon) : plan.taxBookValueAtHorizon) : 0;
+  const taxable = taxableIncome(operatingMargin, out.depreciation, interest, disposalGain);
+  out.taxable = inCents ? noiseFreeCents(taxable) : taxable;
+  out.lossCarried = lossCarriedOn(out.taxable, taxRate, lossesOffsetOtherIncome, lossCarried);
+  const tax = taxOfYear(out.taxable, taxRate, lossesOffsetOtherIncome, lossCarried);
+  out.tax = inCents ? roundCentsFast(tax) : tax;
+  const net = operatingMargin - out.replacements - out.herdPurchases - out.tax + out.salvage + out.herdValue;
+  out.net = inCents ? noiseFreeCents(net) : net;
   let operatingTax = out.tax;
   if (disposalGain !== 0) {
-    operatingTax = round(taxForYear(centsTotal(out.taxable - disposalGain), finance.taxRate, finance.lossesOffsetOtherIncome, lossCarried).tax);
+    const taxableOperations = inCents ? noiseFreeCents(out.taxable - disposalGain) : out.taxable - disposalGain;
+    const tax = taxOfYear(taxableOperations, taxRate, lossesOffsetOtherIncome, lossCarried);
+    operatingTax = inCents ? roundCentsFast(tax) : tax;
   }
-  out.cashForDebtService = centsTotal(operatingMargin - operatingTax);
+  const cash = operatingMargin - operatingTax;
+  out.cashForDebtService = inCents ? noiseFreeCents(cash) : cash;
 }

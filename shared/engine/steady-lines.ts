@@ -11,7 +11,8 @@ import { cullingCostPerYear, extraCullsPer100Cows, healthCostPerYear } from './h
 import { herdReplacementCostPerYear, otherCowCostsPerYear } from './herd-costs';
 import type { HousingWork } from './housing-work';
 import { optionManure, type OptionManure } from './option-manure';
-import type { OptionPlan } from './plan';
+import type { OptionPlan, PlanBasis } from './plan';
+import { runningCostsByGrowth, type RunningCostsByGrowth } from './running-costs';
 import { roundCentsFast } from './cents';
 import { noiseFreeCents } from './settle-year';
 
@@ -29,6 +30,10 @@ export interface SteadyLines {
   /** Manure value less the seven costs (currency, whole cents). */
   net: Float64Array;
   manure: OptionManure;
+  /** What the ledger reads besides the lines, as unmoved: the housing's work, the running costs per price group and the plan with its inputs. */
+  work: HousingWork;
+  runningByGrowth: RunningCostsByGrowth;
+  basis: PlanBasis;
 }
 
 /** The steady lines of one option over years 0..H, each rounded to cents as the ledger rounds it. */
@@ -49,6 +54,9 @@ export function steadyLines(scenario: Scenario, option: Option, plan: OptionPlan
     storedM3: new Float64Array(size),
     net: new Float64Array(size),
     manure: optionManure(herd, option, plan, work.beddingStoredM3),
+    work,
+    runningByGrowth: runningCostsByGrowth(option.runningCosts),
+    basis: { plan, capitalLines: option.capitalLines, finance: scenario.finance },
   };
   const { manure } = lines;
   const energyToday = energyCostToday(option.energyLines);

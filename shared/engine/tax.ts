@@ -8,36 +8,29 @@ export function taxableIncome(operatingMargin: number, depreciation: number, int
   return operatingMargin - depreciation - interest + disposalGain;
 }
 
-export interface TaxStep {
-  /** Tax of the year (currency); negative = a tax saving against other farm income. */
-  tax: number;
-  /** Loss carried into the next year (currency, ≥ 0). */
-  lossCarried: number;
+/**
+ * Tax of one year (currency; negative = a tax saving against other farm income) at `rate`, with
+ * `lossCarried` brought in from earlier years. When losses offset other income, a negative
+ * taxable income gives a saving that year; otherwise the loss is carried forward
+ * ({@link lossCarriedOn}) and set against the next years' taxable income, and any loss left at
+ * the horizon is lost.
+ */
+export function taxOfYear(taxable: number, rate: number, lossesOffsetOtherIncome: boolean, lossCarried: number): number {
+  if (rate === 0) return 0;
+  if (lossesOffsetOtherIncome) return rate * taxable;
+  if (taxable <= 0) return 0;
+  return rate * (taxable - Math.min(lossCarried, taxable));
 }
 
-/**
- * Tax of one year (currency) at `rate`. When losses offset other income, a negative taxable
- * income gives a saving (negative tax) that year; otherwise the loss is carried forward and
- * set against the next years' taxable income, and any loss left at the horizon is lost.
- */
-export function taxForYear(taxable: number, rate: number, lossesOffsetOtherIncome: boolean, lossCarried: number): TaxStep {
-  if (rate === 0) return { tax: 0, lossCarried: 0 };
-  if (lossesOffsetOtherIncome) return { tax: rate * taxable, lossCarried: 0 };
-  if (taxable <= 0) return { tax: 0, lossCarried: lossCarried - taxable };
-  const used = Math.min(lossCarried, taxable);
-  return { tax: rate * (taxable - used), lossCarried: lossCarried - used };
+/** The loss carried into the next year (currency, ≥ 0) after a year taxed by {@link taxOfYear}. */
+export function lossCarriedOn(taxable: number, rate: number, lossesOffsetOtherIncome: boolean, lossCarried: number): number {
+  if (rate === 0 || lossesOffsetOtherIncome) return 0;
+  if (taxable <= 0) return lossCarried - taxable;
+  return lossCarried - Math.min(lossCarried, taxable);
 }
 
 /** Depreciation schedule for one purchase: cost and life → amounts in years 1..life after purchase (currency/yr). */
 export type DepreciationSchedule = (cost: number, lifeYears: number) => number[];
-
-export interface PurchaseForTax {
-  year: number;
-  cost: number;
-  lifeYears: number;
-  /** The purchase's own schedule (its tax class); absent = the scenario's schedule over lifeYears. */
-  schedule?: (cost: number) => number[];
-}
 
 export interface TaxDepreciation {
   /** Depreciation per year (currency), index = year (0 at year 0). */
@@ -47,46 +40,65 @@ export interface TaxDepreciation {
 }
 
 /**
- * Tax depreciation per year (currency): each purchase depreciated over its life from the year
- * after it is bought; amounts falling after the horizon stay in the book value at H. Summed in
- * whole cents, so every year's total is exact.
+ * Tax depreciation per year (currency), added one purchase at a time: each purchase depreciated
+ * over its life from the year after it is bought; amounts falling after the horizon stay in the
+ * book value at H. Summed in whole cents, so every year's total is exact; no record is kept per
+ * purchase (this runs for the plan of every Monte Carlo draw).
  */
-export function taxDepreciation(purchases: readonly PurchaseForTax[], horizon: number, schedule: DepreciationSchedule): TaxDepreciation {
-  const cents = new Float64Array(horizon + 1);
-  // Straight-line amounts are level but for the last year: added as a run (start +, end −), summed once below.
-  const levelRuns = new Float64Array(horizon + 2);
-  let bookCents = 0;
-  for (const purchase of purchases) {
-    if (purchase.cost <= 0) continue;
-    const inHorizon = Math.max(0, Math.min(purchase.lifeYears, horizon - purchase.year));
-    if (!purchase.schedule && schedule === straightLineFast) {
-      // straightLineFast's amounts without building its array (this runs for every purchase of
-      // every option of every Monte Carlo draw).
-      const life = purchase.lifeYears;
-      const base = wholeCents(purchase.cost);
-      const yearly = Math.round(base / life);
-      const lastAmount = base - yearly * (life - 1);
-      const levelYears = Math.min(life - 1, inHorizon);
-      levelRuns[purchase.year + 1] = (levelRuns[purchase.year + 1] ?? 0) + yearly;
-      levelRuns[purchase.year + 1 + levelYears] = (levelRuns[purchase.year + 1 + levelYears] ?? 0) - yearly;
-      bookCents += yearly * (life - 1 - levelYears);
-      if (inHorizon === life) cents[purchase.year + life] = (cents[purchase.year + life] ?? 0) + lastAmount;
-      else bookCents += lastAmount;
-      continue;
+export class TaxDepreciationSum {
+  // Whole cents per year as differences (an amount in year y is +a at y, −a at y + 1), summed once
+  // in result(): a straight-line purchase, level but for its last year, is then one run of two
+  // entries. Every entry is a whole number of cents, so the order of the sums changes no cent.
+  private readonly steps: number[];
+  private bookCents = 0;
+
+  constructor(
+    private readonly horizon: number,
+    private readonly schedule: DepreciationSchedule,
+  ) {
+    this.steps = new Array<number>(horizon + 2).fill(0);
+  }
+
+  /** A purchase in `year` at `cost` (currency) over `lifeYears`, on its own schedule when it has one (else the scenario's). */
+  add(year: number, cost: number, lifeYears: number, own?: (cost: number) => number[]): void {
+    if (cost <= 0) return;
+    const steps = this.steps;
+    const from = year + 1;
+    const inHorizon = Math.max(0, Math.min(lifeYears, this.horizon - year));
+    if (!own && this.schedule === straightLineFast) {
+      // straightLineFast's amounts without building its array.
+      const base = wholeCents(cost);
+      const yearly = Math.round(base / lifeYears);
+      const lastAmount = base - yearly * (lifeYears - 1);
+      const levelYears = Math.min(lifeYears - 1, inHorizon);
+      steps[from] = (steps[from] as number) + yearly;
+      steps[from + levelYears] = (steps[from + levelYears] as number) - yearly;
+      this.bookCents += yearly * (lifeYears - 1 - levelYears);
+      if (inHorizon === lifeYears) {
+        steps[from + lifeYears - 1] = (steps[from + lifeYears - 1] as number) + lastAmount;
+        steps[from + lifeYears] = (steps[from + lifeYears] as number) - lastAmount;
+      } else this.bookCents += lastAmount;
+      return;
     }
-    const amounts = purchase.schedule ? purchase.schedule(purchase.cost) : schedule(purchase.cost, purchase.lifeYears);
+    const amounts = own ? own(cost) : this.schedule(cost, lifeYears);
     const last = Math.min(amounts.length, inHorizon);
     for (let i = 0; i < amounts.length; i++) {
       const amount = Math.round((amounts[i] ?? 0) * 100);
-      if (i < last) cents[purchase.year + i + 1] = (cents[purchase.year + i + 1] ?? 0) + amount;
-      else bookCents += amount;
+      if (i < last) {
+        steps[from + i] = (steps[from + i] as number) + amount;
+        steps[from + i + 1] = (steps[from + i + 1] as number) - amount;
+      } else this.bookCents += amount;
     }
   }
-  const byYear = new Array<number>(horizon + 1).fill(0);
-  let level = 0;
-  for (let year = 1; year <= horizon; year++) {
-    level += levelRuns[year] ?? 0;
-    byYear[year] = ((cents[year] ?? 0) + level) / 100;
+
+  result(): TaxDepreciation {
+    const byYear = new Array<number>(this.horizon + 1);
+    byYear[0] = 0;
+    let cents = 0;
+    for (let year = 1; year <= this.horizon; year++) {
+      cents += this.steps[year] as number;
+      byYear[year] = cents / 100;
+    }
+    return { byYear, bookValueAtHorizon: this.bookCents / 100 };
   }
-  return { byYear, bookValueAtHorizon: bookCents / 100 };
 }

@@ -4,7 +4,7 @@
  */
 import type { Option, Scenario } from '../schema';
 import { maintenanceCostPerYear } from './capital';
-import { roundCentsFast } from './cents';
+import { roundCentsFast, roundCentsInPlace } from './cents';
 import { baseFeedCostPerYear, marginalFeedCostPerYear } from './feed';
 import { resolvedGrowth } from './growth';
 import { milkingHoursPerYear } from './herd-costs';
@@ -14,7 +14,7 @@ import { K_TO_K2O, P_TO_P2O5 } from './manure';
 import { openMilkModel, optionYield, type MilkModel } from './milk-model';
 import type { OptionPlan } from './plan';
 import type { YearLine } from './results';
-import { grownRunningCosts, runningCostsByGrowth, type GrowthFactors } from './running-costs';
+import { grownRunningCosts, type GrowthFactors } from './running-costs';
 import { emptySettlement, noiseFreeCents, settleYear } from './settle-year';
 import { steadyLines, type SteadyLines } from './steady-lines';
 import { milkSoldKgPerYear } from './yield';
@@ -29,6 +29,10 @@ export interface Projection {
   /** The flows with milk income and feed left open, when asked for. */
   milk: MilkModel | null;
 }
+
+// Where each of the year's rounded lines sits in the ledger's scratch array.
+const MILK = 0, FEED = 1, SCRAPING = 2, BED_CARE = 3, BEDDING_TOP_UP = 4, TROUGHS = 5, GRAZING = 6, MILKING = 7, MAINTENANCE = 8, RUNNING_COSTS = 9;
+const YEAR_LINES = 10;
 
 /**
  * The yearly flows of one option, t = 0..H (currency, nominal). Every money line is rounded to
@@ -55,11 +59,11 @@ export function projectOption(
   const response = herd.lyingResponseKgPerHour;
 
   // Price-independent pieces of each line, per cow or per year in today's money.
-  const runningByGrowth = runningCostsByGrowth(option.runningCosts);
+  const work = steady?.work ?? housingWork(option, plan);
+  const fixed = steady ?? steadyLines(scenario, option, plan, work);
+  const runningByGrowth = fixed.runningByGrowth;
   // Maintenance and insurance fall on the new capital and on any existing housing the option keeps using.
   const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate + option.insuranceRate, plan.capitalTotal + option.existingHousingValue);
-  const work = housingWork(option, plan);
-  const fixed = steady ?? steadyLines(scenario, option, plan, work);
   const manure = fixed.manure;
   const { scrapingHours, bedCareHours, beddingTopUpHours, troughHours, grazingHours, beddingTonnes } = work;
 
@@ -83,6 +87,7 @@ export function projectOption(
   const feedPerCow = baseFeedCostPerYear(1, plan.housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
 
   const settled = emptySettlement();
+  const year = new Float64Array(YEAR_LINES);
   // This year's growth factors per price group, updated in place year by year.
   const factors: GrowthFactors = { milkPrice: 1, feed: 1, wages: 1, bedding: 1, fertiliser: 1, general: 1 };
   let grownMilk = 1, grownFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
@@ -92,8 +97,8 @@ export function projectOption(
     grownMilk *= 1 + growth.milkPrice;
     grownFeed *= 1 + growth.feed;
     // A year's price index (a trough, a spike) scales that year alone; growth carries on from the grown path.
-    const gMilk = grownMilk * (milkIndex?.[t - 1] ?? 1);
-    const gFeed = grownFeed * (feedIndex?.[t - 1] ?? 1);
+    const gMilk = milkIndex ? grownMilk * (milkIndex[t - 1] ?? 1) : grownMilk;
+    const gFeed = feedIndex ? grownFeed * (feedIndex[t - 1] ?? 1) : grownFeed;
     gWage *= 1 + growth.wages;
     gBedding *= 1 + growth.bedding;
     gFert *= 1 + growth.fertiliser;
@@ -102,35 +107,48 @@ export function projectOption(
       milk.milkGrowth[t] = gMilk;
       milk.feedGrowth[t] = gFeed;
     }
-    const cows = plan.cows[t] ?? 0;
+    const cows = plan.cows[t] as number;
     const yieldKg = t === 1 ? yieldYear1 : yieldLater;
-    const milkKg = milkSoldKgPerYear(plan.milkCows[t] ?? cows, yieldKg);
+    const milkKg = milkSoldKgPerYear(plan.milkCows[t] as number, yieldKg);
     const extraMilkKg = milkKg - baselineMilkPerCow * cows;
 
-    const milkIncome = round(milkKg * (milkPrice + option.milkQualityPricePerKg) * gMilk);
-    const feed = round((feedPerCow * cows + marginalFeedCostPerYear(extraMilkKg, herd.marginalFeedCostPerKgMilk)) * gFeed);
+    // The year's lines before rounding, then rounded in one pass over the scratch array: no line
+    // passes through a call as a boxed double (this runs for every year of every Monte Carlo draw).
     const wage = herd.wagePerHour;
-    const labourScraping = round(labourCost(scrapingHours, wage, gWage));
-    const labourBedCare = round(labourCost(bedCareHours, wage, gWage));
-    const labourBeddingTopUp = round(labourCost(beddingTopUpHours, wage, gWage));
-    const labourTroughs = round(labourCost(troughHours, wage, gWage));
-    const labourGrazing = round(labourCost(grazingHours, wage, gWage));
     const milkingHours = milkingHoursPerYear(herd.milkingHoursPerCowYear, cows);
-    const labourMilking = round(labourCost(milkingHours, wage, gWage));
-    const maintenance = round(maintenanceToday * gGeneral);
     factors.milkPrice = gMilk;
     factors.feed = gFeed;
     factors.wages = gWage;
     factors.bedding = gBedding;
     factors.fertiliser = gFert;
     factors.general = gGeneral;
-    const runningCosts = round(grownRunningCosts(runningByGrowth, factors));
+    year[MILK] = milkKg * (milkPrice + option.milkQualityPricePerKg) * gMilk;
+    year[FEED] = (feedPerCow * cows + marginalFeedCostPerYear(extraMilkKg, herd.marginalFeedCostPerKgMilk)) * gFeed;
+    year[SCRAPING] = labourCost(scrapingHours, wage, gWage);
+    year[BED_CARE] = labourCost(bedCareHours, wage, gWage);
+    year[BEDDING_TOP_UP] = labourCost(beddingTopUpHours, wage, gWage);
+    year[TROUGHS] = labourCost(troughHours, wage, gWage);
+    year[GRAZING] = labourCost(grazingHours, wage, gWage);
+    year[MILKING] = labourCost(milkingHours, wage, gWage);
+    year[MAINTENANCE] = maintenanceToday * gGeneral;
+    year[RUNNING_COSTS] = grownRunningCosts(runningByGrowth, factors);
+    roundCentsInPlace(year);
+    const milkIncome = year[MILK] as number;
+    const feed = year[FEED] as number;
+    const labourScraping = year[SCRAPING] as number;
+    const labourBedCare = year[BED_CARE] as number;
+    const labourBeddingTopUp = year[BEDDING_TOP_UP] as number;
+    const labourTroughs = year[TROUGHS] as number;
+    const labourGrazing = year[GRAZING] as number;
+    const labourMilking = year[MILKING] as number;
+    const maintenance = year[MAINTENANCE] as number;
+    const runningCosts = year[RUNNING_COSTS] as number;
     // Every term is in whole cents, so grouping the steady lines changes no cent of the total.
     const operatingMargin = centsTotal(
-      milkIncome - feed - labourScraping - labourBedCare - labourBeddingTopUp - labourTroughs - labourGrazing - labourMilking - maintenance - runningCosts + (fixed.net[t] ?? 0),
+      milkIncome - feed - labourScraping - labourBedCare - labourBeddingTopUp - labourTroughs - labourGrazing - labourMilking - maintenance - runningCosts + (fixed.net[t] as number),
     );
 
-    settleYear(settled, plan, finance, t, operatingMargin, lossCarried, round, centsTotal);
+    settleYear(settled, plan, finance, t, operatingMargin, lossCarried, true);
     lossCarried = settled.lossCarried;
     const { replacements, herdPurchases, salvage, herdValue, depreciation, taxable, tax, net } = settled;
     const interest = plan.interestByYear[t] ?? 0;

@@ -4,7 +4,17 @@ import { coverageRatio, lowestByYear } from '../../../shared/engine/coverage';
 import { MACRS_10_YEAR_150DB, MACRS_10_YEAR_200DB, MACRS_20_YEAR_150DB } from '../../../shared/engine/depreciation';
 import { decliningBalance, macrsSchedule, straightLine } from '../../oracles/depreciation';
 import { evaluateScenario } from '../../../shared/engine/evaluate';
-import { taxableIncome, taxDepreciation, taxForYear } from '../../../shared/engine/tax';
+import { lossCarriedOn, taxableIncome, TaxDepreciationSum, taxOfYear, type DepreciationSchedule } from '../../../shared/engine/tax';
+
+/** One year's tax and the loss it carries on, as the ledger settles them. */
+const taxForYear = (taxable: number, rate: number, offset: boolean, carried: number) => ({ tax: taxOfYear(taxable, rate, offset, carried), lossCarried: lossCarriedOn(taxable, rate, offset, carried) });
+
+/** Tax depreciation of a list of purchases over the horizon. */
+function taxDepreciation(purchases: { year: number; cost: number; lifeYears: number }[], horizon: number, schedule: DepreciationSchedule) {
+  const sum = new TaxDepreciationSum(horizon, schedule);
+  for (const p of purchases) sum.add(p.year, p.cost, p.lifeYears);
+  return sum.result();
+}
 import { handScenario } from './hand-scenario';
 
 describe('taxable income (docs/model.md: operating margin − depreciation − loan interest)', () => {
