@@ -11,6 +11,7 @@ import { createApp } from 'vue';
 import App from './App.vue';
 import { router } from './router';
 import { ByrecastPreset } from './theme';
+import './primevue-styles';
 
 if (localStorage.getItem('byrecast-theme') === 'dark') document.documentElement.classList.add('dark');
 

@@ -72,6 +72,10 @@ export const useScenarioStore = defineStore('scenario', () => {
   );
   const selectedIndex = computed(() => (selectedOption.value ? options.value.indexOf(selectedOption.value) : -1));
 
+  /** The live evaluation waits LIVE_DELAY_MS after the last edit; `lastJson` is the copy last seen. */
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  let lastJson = '';
+
   function adopt(scenario: Scenario, version: number, nextMeta: ScenarioMeta | undefined): void {
     working.value = clone(scenario);
     savedJson.value = JSON.stringify(working.value);
@@ -83,6 +87,9 @@ export const useScenarioStore = defineStore('scenario', () => {
     if (!scenario.options.some((option) => option.id === selectedOptionId.value)) {
       selectedOptionId.value = scenario.options.find((option) => !option.current)?.id ?? scenario.options[0]?.id ?? null;
     }
+    // Evaluated here, once: the edit watcher is told this copy is not an edit, so it does not evaluate it again.
+    clearTimeout(timer);
+    lastJson = savedJson.value;
     evaluateNow();
   }
 
@@ -143,8 +150,6 @@ export const useScenarioStore = defineStore('scenario', () => {
     }
   }
 
-  let timer: ReturnType<typeof setTimeout> | undefined;
-  let lastJson = '';
   watch(
     working,
     (scenario) => {

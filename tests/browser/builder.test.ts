@@ -224,4 +224,50 @@ describe('scenario builder in Chromium', () => {
     await until(() => page.locator('tr[data-version]').count()).toBeGreaterThan(0);
     await harness.screenshot(page, 'builder-history-tablet');
   });
+  it('moves between the build sections with the keyboard as a tab list does, each tab naming its panel', async () => {
+    const context = await harness.newContext(DESKTOP);
+    const page = await context.newPage();
+    await signInThroughForm(page, 'owner@byrecast.test');
+    const farmId = await demoFarmId(page);
+    const list = (await (await page.request.get(`/api/farms/${farmId}/scenarios`)).json()) as { id: number; name: string }[];
+    await page.goto(`/farms/${farmId}/scenarios/${list.find((s) => s.name === SCENARIO)!.id}`);
+    const tabs = page.getByRole('tablist').getByRole('tab');
+    await until(() => tabs.count()).toBe(5);
+    const options = page.getByRole('tab', { name: 'Options' });
+    // WAI-ARIA Authoring Practices, Tabs pattern: only the selected tab is in the Tab order, and it controls a tabpanel labelled by it.
+    expect(await options.getAttribute('aria-selected')).toBe('true');
+    expect(await options.getAttribute('tabindex')).toBe('0');
+    expect(await page.getByRole('tab', { name: 'Capital' }).getAttribute('tabindex')).toBe('-1');
+    const panel = page.locator(`#${await options.getAttribute('aria-controls')}`);
+    expect(await panel.getAttribute('role')).toBe('tabpanel');
+    expect(await panel.getAttribute('aria-labelledby')).toBe(await options.getAttribute('id'));
+    expect(await panel.isVisible()).toBe(true);
+
+    // Same pattern: the arrow keys move the focus (wrapping at the ends), Home and End jump; Enter opens the focused tab.
+    await options.focus();
+    await page.keyboard.press('ArrowRight');
+    await until(() => page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Capital');
+    expect(await options.getAttribute('aria-selected')).toBe('true');
+    await page.keyboard.press('End');
+    await until(() => page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Finance');
+    await page.keyboard.press('ArrowRight');
+    await until(() => page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Herd and markets');
+    await page.keyboard.press('ArrowLeft');
+    await until(() => page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Finance');
+    await page.keyboard.press('Enter');
+    await until(() => page.getByRole('tab', { name: 'Finance' }).getAttribute('aria-selected')).toBe('true');
+    await until(() => page.url()).toContain('section=finance');
+    expect(await panel.isVisible()).toBe(false);
+    expect(await page.locator(`#${await page.getByRole('tab', { name: 'Finance' }).getAttribute('aria-controls')}`).isVisible()).toBe(true);
+
+    // What is typed in a section stays there when the user goes to another and comes back.
+    await page.keyboard.press('Home');
+    await page.keyboard.press('Enter');
+    const milkPrice = page.locator('#field-herd-milkPricePerKg');
+    await milkPrice.fill('0.4x');
+    await page.getByRole('tab', { name: 'Options' }).click();
+    await page.getByRole('tab', { name: 'Herd and markets' }).click();
+    expect(await milkPrice.inputValue()).toBe('0.4x');
+    await context.close();
+  });
 });
