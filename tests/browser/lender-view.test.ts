@@ -184,7 +184,16 @@ describe('the lender sees what the share promises', () => {
     // The phone reads the same page without sideways scrolling.
     await page.setViewportSize(PHONE);
     await fitsPhone(page, 'the lender view');
+    // The lender reads the figures first; the review follows them, a link away (docs/design.md, Flow).
+    const summaryTop = await page.locator('.card.summary').evaluate((el) => el.getBoundingClientRect().top);
+    const reviewTop = await page.locator('#your-review').evaluate((el) => el.getBoundingClientRect().top);
+    const compareTop = await page.getByTestId('shared-risk').evaluate((el) => el.getBoundingClientRect().top);
+    expect(summaryTop).toBeLessThan(reviewTop);
+    expect(compareTop).toBeLessThan(reviewTop);
+    expect(await page.locator('a[data-action="to-review"]').isVisible()).toBe(true);
     await harness.screenshot(page, 'lender-view-phone');
+    await page.setViewportSize(DESKTOP);
+    expect(await page.locator('a[data-action="to-review"]').isVisible()).toBe(false);
 
     // The print view, a click away, carries the kept run too.
     await page.setViewportSize(DESKTOP);

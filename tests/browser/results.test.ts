@@ -173,6 +173,10 @@ describe('results and comparison in Chromium', () => {
     await expect.poll(() => page.locator('[data-testid="stress-table"] tbody tr').count()).toBe(7);
     expect(await page.getByTestId('stress-table').innerText()).toContain('1.25');
     expect(await page.getByTestId('sources-and-uses').innerText()).toMatch(/Total uses[\s\S]*Total sources/);
+    // The cautions the option's choices raise sit beside its figures, as on the Build screen and in
+    // print (shared/cautions.ts): sand bedding in slurry, moving a pasture herd indoors, permits, bought-in cows.
+    const cautions = page.getByTestId('results-cautions').locator('[data-caution]');
+    expect(await cautions.evaluateAll((items) => items.map((li) => li.getAttribute('data-caution')))).toEqual(['sandInSlurry', 'movingIndoors', 'permits', 'biosecurity']);
     // docs/model.md "Housing and expansion": the barn with today's 190 cows apart from the 40 cows it adds, the engine's figures.
     const split = sand?.incremental?.split;
     expect(split).toBeTruthy();
