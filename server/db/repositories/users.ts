@@ -1,4 +1,5 @@
 import { and, count, eq, isNull, sql } from 'drizzle-orm';
+import type { SelectedFields } from 'drizzle-orm/mysql-core';
 import type { Database } from '../client.js';
 import type { Executor } from './farms.js';
 import { farmsTable, membershipsTable, passwordResetsTable, scenariosTable, usersTable, type FarmRole } from '../schema/index.js';
@@ -28,25 +29,22 @@ const publicColumns = {
 const preparedSessionQueries = new WeakMap<Database, ReturnType<typeof prepareSessionQuery>>();
 const preparedScenarioSessionQueries = new WeakMap<Database, ReturnType<typeof prepareScenarioSessionQuery>>();
 
-function sessionQuery(db: Database) {
+/** The user with their membership of one farm (the placeholder `farmId`), and any more columns a query wants. */
+function withMembership<Extra extends SelectedFields>(db: Database, extra: Extra) {
   return db
-    .select({ ...publicColumns, role: membershipsTable.role, farmId: farmsTable.id })
+    .select({ ...publicColumns, role: membershipsTable.role, farmId: farmsTable.id, ...extra })
     .from(usersTable)
     .leftJoin(membershipsTable, and(eq(membershipsTable.userId, usersTable.id), eq(membershipsTable.farmId, sql.placeholder('farmId'))))
     .leftJoin(farmsTable, eq(farmsTable.id, membershipsTable.farmId));
 }
 
 function prepareSessionQuery(db: Database) {
-  return sessionQuery(db).where(eq(usersTable.id, sql.placeholder('userId'))).prepare();
+  return withMembership(db, {}).where(eq(usersTable.id, sql.placeholder('userId'))).prepare();
 }
 
 /** The session query with one scenario's head, joined only through the membership: never a farm the user is not on. */
 function prepareScenarioSessionQuery(db: Database) {
-  return db
-    .select({ ...publicColumns, role: membershipsTable.role, farmId: farmsTable.id, scenario: scenarioHeadColumns })
-    .from(usersTable)
-    .leftJoin(membershipsTable, and(eq(membershipsTable.userId, usersTable.id), eq(membershipsTable.farmId, sql.placeholder('farmId'))))
-    .leftJoin(farmsTable, eq(farmsTable.id, membershipsTable.farmId))
+  return withMembership(db, { scenario: scenarioHeadColumns })
     .leftJoin(scenariosTable, and(eq(scenariosTable.farmId, farmsTable.id), eq(scenariosTable.id, sql.placeholder('scenarioId'))))
     .leftJoin(scenarioCreator, eq(scenarioCreator.id, scenariosTable.createdBy))
     .leftJoin(scenarioUpdater, eq(scenarioUpdater.id, scenariosTable.updatedBy))
