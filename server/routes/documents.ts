@@ -92,5 +92,4 @@ export function documentRoutes({ db, config }: AppDeps, route: FarmRoute): void 
   route('get', '/scenarios/:scenarioId/quotes', 'document:read', async (req, res) => {
     res.json({ lines: await scenarioQuotes(db, actorOf(req), idParam(req, 'scenarioId', 'Scenario id')) });
   });
-
 }

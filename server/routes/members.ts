@@ -45,5 +45,4 @@ export function memberRoutes({ db, mailer, config }: AppDeps, route: FarmRoute):
     await withdrawInvitation(db, farmAccess(req).farmId, idParam(req, 'invitationId', 'Invitation id'));
     res.status(204).end();
   });
-
 }

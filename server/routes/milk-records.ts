@@ -31,5 +31,4 @@ export function milkRecordRoutes({ db }: AppDeps, route: FarmRoute): void {
     const source = parsed ? { upload: parsed } : parseOrThrow(milkRecordConfirmSchema, req.body);
     res.status(201).json(await confirmMilkRecords(db, actorOf(req), source));
   });
-
 }

@@ -28,5 +28,4 @@ export function reviewNoteRoutes({ db, mailer, config }: AppDeps, route: FarmRou
     const input = parseOrThrow(reviewStatusSchema, req.body);
     res.json(await setShareStatus(ctx, actorOf(req), shareId, input.status));
   });
-
 }

@@ -22,7 +22,6 @@ const scenarioIdOf = (req: Request) => idParam(req, 'scenarioId', 'Scenario id')
 const versionOf = (req: Request) => idParam(req, 'version', 'Version');
 
 export function scenarioRoutes({ db }: AppDeps, route: FarmRoute): void {
-
   route('get', '/baseline', 'baseline:read', async (req, res) => {
     res.json(await readBaseline(db, farmAccess(req).farmId));
   });
@@ -96,5 +95,4 @@ export function scenarioRoutes({ db }: AppDeps, route: FarmRoute): void {
     const input = parseOrThrow(restoreVersionBodySchema, req.body ?? {});
     sendJsonText(req, res, await scenarios.restoreVersion(db, actorOf(req), id, version, input.version, input.note));
   });
-
 }
