@@ -215,21 +215,29 @@ describe('the screens a family and a bank read', () => {
     await context.close();
   });
 
-  it('shows the administrator’s users as cards on a phone, every e-mail address on one line', async () => {
+  it('shows the administrator’s users and the owner’s members as cards on a phone, every e-mail address on one line', async () => {
     // docs/design.md (Habits, Phone): a table of records becomes a card a row, label beside value.
-    const context = await harness.newContext(PHONE);
-    const page = await context.newPage();
-    await signInThroughForm(page, 'admin@byrecast.test');
-    await page.goto('/admin/users');
-    const cells = page.locator('td[data-label="E-mail"]');
-    await expect.poll(() => cells.count()).toBe(5);
-    expect(await page.locator('.record-table thead').isVisible()).toBe(false);
-    for (const cell of await cells.all()) {
-      const read = await cell.evaluate((td) => ({ height: td.getBoundingClientRect().height, line: parseFloat(getComputedStyle(td).lineHeight) || parseFloat(getComputedStyle(td).fontSize) * 1.5, text: td.textContent ?? '' }));
-      expect(read.height, `${read.text} wraps`).toBeLessThan(read.line * 2);
+    for (const { user, path, rows } of [
+      { user: 'owner@byrecast.test', path: (farm: string) => `${farm}/members`, rows: 4 },
+      { user: 'admin@byrecast.test', path: () => '/admin/users', rows: 5 },
+    ]) {
+      const context = await harness.newContext(PHONE);
+      const page = await context.newPage();
+      await signInThroughForm(page, user);
+      // The owner comes first: their farm's address is known before the administrator, who has none.
+      if (!base) base = await demoScenarioBase(page);
+      await page.goto(path(base.replace(/\/scenarios\/\d+$/, '')));
+      const cells = page.locator('td[data-label="E-mail"]');
+      await expect.poll(() => cells.count(), { message: user }).toBe(rows);
+      expect(await page.locator('.record-table thead').first().isVisible()).toBe(false);
+      for (const cell of await cells.all()) {
+        const read = await cell.evaluate((td) => ({ height: td.getBoundingClientRect().height, line: parseFloat(getComputedStyle(td).lineHeight) || parseFloat(getComputedStyle(td).fontSize) * 1.5, text: td.textContent ?? '' }));
+        expect(read.height, `${read.text} wraps`).toBeLessThan(read.line * 2);
+      }
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+      await harness.screenshot(page, user.startsWith('admin') ? 'admin-users-phone' : 'members-phone');
+      await context.close();
     }
-    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
-    await harness.screenshot(page, 'admin-users-phone');
   });
 
   it('keeps every role’s whole name on one line in the phone’s top bar', async () => {
