@@ -9,7 +9,7 @@ import { count } from 'drizzle-orm';
 import { evaluateScenario } from '../../shared/engine/index.js';
 import { herdSchema } from '../../shared/schema/index.js';
 import { readScenarioDocument } from '../../shared/schema/stored-scenario.js';
-import { keep } from '../services/scenario-results.js';
+import { keepSaved } from '../services/scenario-results.js';
 import { summarise } from '../services/scenarios.js';
 import type { Database } from '../db/client.js';
 import { insertScenario } from '../db/repositories/scenarios.js';
@@ -99,17 +99,18 @@ export async function seedDemoData(db: Database, options: { bcryptCost?: number 
     const scenarioIds: number[] = [];
     for (const document of scenarios) {
       const results = evaluateScenario(document);
+      const documentText = JSON.stringify(document);
       const id = await insertScenario(tx, {
         farmId: farm.insertId,
         name: document.name,
-        document,
+        documentText,
         summary: summarise(results),
         userId: ownerId as number,
         note: 'Demo scenario',
         now,
       });
       // Kept with the version, so even the first read of a demo scenario evaluates nothing.
-      await keep(tx, id, 1, document, results);
+      await keepSaved(tx, id, document, documentText, results);
       scenarioIds.push(id);
     }
     await seedLenderShare(tx, farm.insertId, scenarioIds[0], lenderId, ownerId, now);

@@ -2,11 +2,13 @@
  * Results kept per scenario version. They are a pure function of the version's document and the
  * engine, so each version is evaluated once (at save, or at the first read of a version saved
  * before its results were kept, or under another engine key) and every read after that sends
- * the kept JSON text: no parsing, no validating, no evaluating.
+ * the kept JSON text: no parsing, no validating, no evaluating. A save keeps the summary; the
+ * yearly lines and loan payments stay in this process's memory and are written at the first read
+ * of them that misses it (after a restart, or in another process), evaluated again then.
  */
 import { evaluateScenario, splitResults, type ScenarioResults, resultsCacheKey } from '../../shared/engine/index.js';
 import type { Scenario } from '../../shared/schema/index.js';
-import { findKeptResults, keepResults, type KeptResults } from '../db/repositories/scenario-results.js';
+import { findKeptResults, keepDetail, keepResults, keepSavedResults, type KeptResults } from '../db/repositories/scenario-results.js';
 import { findVersion, type Executor } from '../db/repositories/scenarios.js';
 import { notFound } from '../errors.js';
 
@@ -23,14 +25,22 @@ export function evaluateForKeeping(document: Scenario): ScenarioResults {
   return evaluateScenario(document);
 }
 
-/**
- * Keeps `results` of `document` as scenario `scenarioId` version `version`, under today's engine
- * key; `newVersion` when the version is written in the same transaction (nothing older to drop).
- */
-export async function keep(db: Executor, scenarioId: number, version: number, document: Scenario, results: ScenarioResults, newVersion = false): Promise<KeptResults> {
+/** Keeps `results` of `document` as scenario `scenarioId` version `version` (a version read back), whole, under today's engine key. */
+export async function keep(db: Executor, scenarioId: number, version: number, document: Scenario, results: ScenarioResults): Promise<KeptResults> {
   const { summary, detail } = splitResults(results);
   const kept: KeptResults = { name: document.name, document: JSON.stringify(document), summary: JSON.stringify(summary), detail: JSON.stringify(detail) };
-  await keepResults(db, { ...kept, scenarioId, version, engineKey: resultsCacheKey() }, newVersion);
+  await keepResults(db, { ...kept, scenarioId, version, engineKey: resultsCacheKey() });
+  return kept;
+}
+
+/**
+ * Keeps the results of the version the scenario row holds, written in this same transaction from
+ * `documentText` (keepSavedResults); returns the texts whole, to remember once committed.
+ */
+export async function keepSaved(tx: Executor, scenarioId: number, document: Scenario, documentText: string, results: ScenarioResults): Promise<KeptResults> {
+  const { summary, detail } = splitResults(results);
+  const kept: KeptResults = { name: document.name, document: documentText, summary: JSON.stringify(summary), detail: JSON.stringify(detail) };
+  await keepSavedResults(tx, scenarioId, resultsCacheKey(), kept.summary);
   return kept;
 }
 
@@ -68,18 +78,42 @@ export function forgetRememberedResults(): void {
   rememberedBy = new WeakMap();
 }
 
-const ALL_COLUMNS = ['name', 'document', 'summary', 'detail'] as const;
+const VIEW_COLUMNS = ['name', 'document', 'summary'] as const;
 
-/** The kept texts of one committed version, evaluated and kept first when missing; 404 for a version that does not exist. */
-export async function keptResults(db: Executor, scenarioId: number, version: number): Promise<KeptResults> {
+/** A version's document and summary texts, as committed; evaluated and kept first when missing; 404 for a version that does not exist. */
+export async function keptResults(db: Executor, scenarioId: number, version: number): Promise<Omit<KeptResults, 'detail'>> {
   const remembered = rememberedIn(db);
   const key = `${scenarioId}:${version}`;
   const known = remembered.get(key);
   if (known) return remember(remembered, key, known);
-  const found = await findKeptResults(db, scenarioId, version, resultsCacheKey(), ALL_COLUMNS);
-  if (found) return remember(remembered, key, found);
-  const stored = await findVersion(db, scenarioId, version);
-  if (!stored) throw notFound(`Version ${version} not found`);
-  return remember(remembered, key, await keep(db, scenarioId, version, stored.document, evaluateForKeeping(stored.document)));
+  const found = await findKeptResults(db, scenarioId, version, resultsCacheKey(), VIEW_COLUMNS);
+  if (found) return remember(remembered, key, { ...found, detail: null });
+  return remember(remembered, key, await keepWhole(db, scenarioId, version));
 }
 
+/** A version's yearly lines and loan payments as JSON text, evaluated and kept at the first read that finds them missing. */
+export async function keptDetail(db: Executor, scenarioId: number, version: number): Promise<string> {
+  const remembered = rememberedIn(db);
+  const key = `${scenarioId}:${version}`;
+  const known = remembered.get(key);
+  if (known?.detail) return remember(remembered, key, known).detail as string;
+  const found = await findKeptResults(db, scenarioId, version, resultsCacheKey(), [...VIEW_COLUMNS, 'detail']);
+  if (!found) return remember(remembered, key, await keepWhole(db, scenarioId, version)).detail as string;
+  if (found.detail !== null) return remember(remembered, key, found).detail as string;
+  const { detail } = splitResults(evaluateForKeeping(await storedDocument(db, scenarioId, version)));
+  const text = JSON.stringify(detail);
+  await keepDetail(db, scenarioId, version, resultsCacheKey(), text);
+  return remember(remembered, key, { ...found, detail: text }).detail as string;
+}
+
+async function storedDocument(db: Executor, scenarioId: number, version: number): Promise<Scenario> {
+  const stored = await findVersion(db, scenarioId, version);
+  if (!stored) throw notFound(`Version ${version} not found`);
+  return stored.document;
+}
+
+/** Evaluates a stored version kept under no (or another) engine key, and keeps its results whole. */
+async function keepWhole(db: Executor, scenarioId: number, version: number): Promise<KeptResults> {
+  const document = await storedDocument(db, scenarioId, version);
+  return keep(db, scenarioId, version, document, evaluateForKeeping(document));
+}

@@ -39,7 +39,7 @@ import type { ScenarioStatus } from '../db/schema/index.js';
 import type { KeptResults } from '../db/repositories/scenario-results.js';
 import { AppError, fieldErrors, notFound } from '../errors.js';
 import { accessOf, canSeeScenario, canSeeVersion, visibleVersions, type Access, type Actor } from './access.js';
-import { evaluateForKeeping, keep, keptResults, rememberCommitted } from './scenario-results.js';
+import { evaluateForKeeping, keepSaved, keptDetail, keptResults, rememberCommitted } from './scenario-results.js';
 
 export type { ResultsDetailView, ScenarioListItem, ScenarioView, VersionListItem };
 
@@ -182,8 +182,7 @@ export async function readResultsDetail(db: Database, actor: ScenarioActor, scen
   const at = version ?? head.version;
   assertVersionVisible(access, scenarioId, at);
   if (at > head.version) throw notFound(`Version ${at} not found`);
-  const kept = await keptResults(db, scenarioId, at);
-  return { key: `detail:${scenarioId}:${at}:${resultsCacheKey()}`, text: `{"version":${at},"options":${kept.detail}}` };
+  return { key: `detail:${scenarioId}:${at}:${resultsCacheKey()}`, text: `{"version":${at},"options":${await keptDetail(db, scenarioId, at)}}` };
 }
 
 /** The version the caller sees with its whole results (yearly lines and loan payments too), for the lender workbook. */
@@ -194,17 +193,18 @@ export async function readScenarioWhole(db: Database, actor: ScenarioActor, scen
 
 async function createScenario(db: Database, actor: ScenarioActor, document: Scenario, note: string): Promise<JsonText<ScenarioView>> {
   const results = evaluateForKeeping(document);
+  const documentText = JSON.stringify(document);
   const { id, kept } = await db.transaction(async (tx) => {
     const created = await insertScenario(tx, {
       farmId: actor.farmId,
       name: document.name,
-      document,
+      documentText,
       summary: summarise(results),
       userId: actor.userId,
       note,
       now: new Date(),
     });
-    return { id: created, kept: await keep(tx, created, 1, document, results, true) };
+    return { id: created, kept: await keepSaved(tx, created, document, documentText, results) };
   });
   rememberCommitted(db, id, 1, kept);
   return readScenario(db, actor, id);
@@ -274,17 +274,18 @@ async function saveChange(
     }
     const results = evaluateForKeeping(document);
     const version = locked.version + 1;
+    const documentText = JSON.stringify(document);
     await updateScenarioVersion(tx, {
       scenarioId,
       version,
       name: document.name,
-      document,
+      documentText,
       summary: summarise(results),
       userId: actor.userId,
       note,
       now: new Date(),
     });
-    return { version, kept: await keep(tx, scenarioId, version, document, results, true) };
+    return { version, kept: await keepSaved(tx, scenarioId, document, documentText, results) };
   });
   rememberCommitted(db, scenarioId, saved.version, saved.kept);
   return readScenario(db, actor, scenarioId);

@@ -159,6 +159,41 @@ describe('kept results', () => {
     expect(joined).toEqual(asJson(evaluateScenario(read.body.scenario as Scenario).options));
   });
 
+  it('keeps a saved version\'s document once per copy from the head row, and its yearly lines at the first read that misses them', async () => {
+    const seen = await owner.get(path());
+    const edited = structuredClone(seen.body.scenario as Scenario);
+    edited.finance.interestRate = 0.066;
+    const saved = await owner.put(path()).send({ version: seen.body.version, scenario: edited });
+    expect(saved.status).toBe(200);
+    const version = saved.body.version as number;
+    const where = and(eq(scenarioResultsTable.scenarioId, scenarioId), eq(scenarioResultsTable.version, version));
+    const keptRow = async () => (await t.database.db.select({ document: scenarioResultsTable.document, detail: scenarioResultsTable.detail }).from(scenarioResultsTable).where(where))[0]!;
+    // The save keeps the summary and the document (copied in the database from the scenario row, so
+    // it is the version row's document too); the detail is left for its first read.
+    expect(JSON.parse((await keptRow()).document)).toEqual(saved.body.scenario);
+    expect((await owner.get(`${path()}/versions/${version}`)).body.scenario).toEqual(saved.body.scenario);
+    expect((await keptRow()).detail).toBeNull();
+
+    // While this process remembers the save, the detail read evaluates nothing.
+    const before = keptEvaluationCount();
+    const remembered = await owner.get(`${path()}/results/detail`);
+    expect(remembered.status).toBe(200);
+    expect(keptEvaluationCount()).toBe(before);
+
+    // After a restart (nothing remembered) the first detail read evaluates once and keeps it.
+    forgetKept();
+    forgetEncodedTexts();
+    const first = await owner.get(`${path()}/results/detail`);
+    expect(first.status).toBe(200);
+    expect(first.body).toEqual(remembered.body);
+    expect(keptEvaluationCount()).toBe(before + 1);
+    expect(JSON.parse((await keptRow()).detail!)).toEqual(first.body.options);
+    forgetKept();
+    forgetEncodedTexts();
+    expect((await owner.get(`${path()}/results/detail`)).body).toEqual(first.body);
+    expect(keptEvaluationCount()).toBe(before + 1);
+  });
+
   it('answers the detail of a past version, and 404 for a version that does not exist', async () => {
     const v1 = await owner.get(`${path()}/results/detail?version=1`);
     expect(v1.status).toBe(200);

@@ -187,7 +187,8 @@ export async function lockScenario(tx: Executor, farmId: number, scenarioId: num
 export interface NewScenario {
   farmId: number;
   name: string;
-  document: unknown;
+  /** The validated document as JSON text: written once, to the scenario row (see copyHeadToVersion). */
+  documentText: string;
   summary: ScenarioSummary;
   userId: number;
   note: string;
@@ -200,14 +201,14 @@ export async function insertScenario(tx: Executor, input: NewScenario): Promise<
     farmId: input.farmId,
     name: input.name,
     version: 1,
-    document: input.document,
+    document: sql`${input.documentText}`,
     summary: input.summary,
     createdBy: input.userId,
     updatedBy: input.userId,
     createdAt: input.now,
     updatedAt: input.now,
   });
-  await insertVersion(tx, { scenarioId: result.insertId, version: 1, document: input.document, userId: input.userId, note: input.note, now: input.now });
+  await copyHeadToVersion(tx, result.insertId, input.note);
   return result.insertId;
 }
 
@@ -215,7 +216,8 @@ export interface SavedVersion {
   scenarioId: number;
   version: number;
   name: string;
-  document: unknown;
+  /** The validated document as JSON text. */
+  documentText: string;
   summary: ScenarioSummary;
   userId: number;
   note: string;
@@ -229,27 +231,35 @@ export async function updateScenarioVersion(tx: Executor, input: SavedVersion): 
     .set({
       name: input.name,
       version: input.version,
-      document: input.document,
+      document: sql`${input.documentText}`,
       summary: input.summary,
       updatedBy: input.userId,
       updatedAt: input.now,
     })
     .where(eq(scenariosTable.id, input.scenarioId));
-  await insertVersion(tx, input);
+  await copyHeadToVersion(tx, input.scenarioId, input.note);
 }
 
-async function insertVersion(
-  tx: Executor,
-  input: { scenarioId: number; version: number; document: unknown; userId: number; note: string; now: Date },
-): Promise<void> {
-  await tx.insert(scenarioVersionsTable).values({
-    scenarioId: input.scenarioId,
-    version: input.version,
-    document: input.document,
-    authorId: input.userId,
-    note: input.note,
-    createdAt: input.now,
-  });
+/**
+ * The version row of the scenario row as just written (its version, document, author and time),
+ * copied inside the database: a document of ~100 KB then crosses the wire and is escaped once
+ * per save, not once per copy.
+ */
+async function copyHeadToVersion(tx: Executor, scenarioId: number, note: string): Promise<void> {
+  await tx.insert(scenarioVersionsTable).select(
+    tx
+      .select({
+        id: sql`null`.as('id'),
+        scenarioId: scenariosTable.id,
+        version: scenariosTable.version,
+        document: scenariosTable.document,
+        authorId: scenariosTable.updatedBy,
+        note: sql`${note}`.as('note'),
+        createdAt: scenariosTable.updatedAt,
+      })
+      .from(scenariosTable)
+      .where(eq(scenariosTable.id, scenarioId)),
+  );
 }
 
 export async function setScenarioStatus(db: Executor, farmId: number, scenarioId: number, status: ScenarioStatus): Promise<void> {

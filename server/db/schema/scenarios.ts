@@ -71,8 +71,8 @@ export const scenarioResultsTable = mysqlTable(
     document: longtext('document').notNull(),
     /** shared/engine/result-parts.ts ScenarioResultsSummary, as JSON text. */
     summary: longtext('summary').notNull(),
-    /** OptionDetail[] (yearly lines and loan payments), as JSON text. */
-    detail: longtext('detail').notNull(),
+    /** OptionDetail[] (yearly lines and loan payments), as JSON text; null until first read for a version kept at save. */
+    detail: longtext('detail'),
     createdAt: createdAt(),
   },
   (t) => [primaryKey({ name: 'scenario_results_pk', columns: [t.scenarioId, t.version, t.engineKey] })],

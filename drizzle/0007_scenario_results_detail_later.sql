@@ -1,0 +1,1 @@
+ALTER TABLE `scenario_results` MODIFY COLUMN `detail` longtext;
