@@ -4,4 +4,4 @@
  */
 export { loanAmountFor, optionStalls, optionStorageM3, planOption, withFinanceTerms, type OptionPlan, type PlanMode } from './plan';
 export { projectOption, type Projection } from './year-ledger';
-export { cashAtMilk, milkingLyingHours, npvAtMilk, type MilkModel } from './milk-model';
+export { flowsAtPrice, milkAtResponse, milkingLyingHours, npvAtMilk, npvAtPrice, type MilkAtResponse, type MilkModel } from './milk-model';
