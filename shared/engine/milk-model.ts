@@ -7,7 +7,7 @@ import type { Option, Scenario } from '../schema';
 import { presentValue } from './discounting';
 import { baseFeedCostPerYear, marginalFeedCostPerYear } from './feed';
 import type { OptionPlan } from './plan';
-import { emptySettlement, settleYear } from './settle-year';
+import { lossCarriedOn, taxableIncome, taxOfYear } from './tax';
 import { cappedLyingHours, lactatingShare, milkSoldKgPerYear, rampFraction, stockedLyingHours, yieldPerCowDay } from './yield';
 
 /**
@@ -127,17 +127,26 @@ export function flowsAtPrice(
   cashInto: number[] | null,
 ): void {
   const { model, milkKg, feed } = milk;
+  const { otherMargin, milkGrowth } = model;
+  const { taxRate, lossesOffsetOtherIncome } = finance;
+  const { horizon, depreciationByYear, interestByYear, replacementsByYear, herdPurchasesByYear } = plan;
   const price = milkPrice + model.qualityPricePerKg;
   if (flowsInto) flowsInto[0] = yearZero;
   if (cashInto) cashInto[0] = 0;
-  const out = emptySettlement();
   let lossCarried = 0;
-  for (let t = 1; t <= plan.horizon; t++) {
-    const margin = (model.otherMargin[t] as number) + (milkKg[t] as number) * price * (model.milkGrowth[t] as number) - (feed[t] as number);
-    settleYear(out, plan, finance, t, margin, lossCarried, false);
-    lossCarried = out.lossCarried;
-    if (flowsInto) flowsInto[t] = out.net;
-    if (cashInto) cashInto[t] = out.cashForDebtService;
+  for (let t = 1; t <= horizon; t++) {
+    const margin = (otherMargin[t] as number) + (milkKg[t] as number) * price * (milkGrowth[t] as number) - (feed[t] as number);
+    // The year settled as settle-year.ts settles the ledger's, term for term but unrounded (a
+    // smooth function of the price), inline for speed: the searches run this ~100 times an evaluation.
+    // The disposal at H is taxed in the net flow and left out of the cash for debt service.
+    const last = t === horizon;
+    const salvage = last ? plan.salvage : 0;
+    const disposalGain = last ? salvage - plan.taxBookValueAtHorizon : 0;
+    const taxable = taxableIncome(margin, depreciationByYear[t] as number, interestByYear[t] as number, disposalGain);
+    const tax = taxOfYear(taxable, taxRate, lossesOffsetOtherIncome, lossCarried);
+    if (flowsInto) flowsInto[t] = margin - (replacementsByYear[t] as number) - (herdPurchasesByYear[t] as number) - tax + salvage + (last ? plan.herdValueAtHorizon : 0);
+    if (cashInto) cashInto[t] = margin - (disposalGain !== 0 ? taxOfYear(taxable - disposalGain, taxRate, lossesOffsetOtherIncome, lossCarried) : tax);
+    lossCarried = lossCarriedOn(taxable, taxRate, lossesOffsetOtherIncome, lossCarried);
   }
 }
 
