@@ -9,7 +9,7 @@ import { stressTables, stressYears, type StressYears } from './stress';
 import { presentValue } from './discounting';
 import { expansionSplitFlows, type SplitSide } from './expansion-split';
 import { discount, equivalentAnnualCost, mirr, paybackYears } from './finance';
-import { milkAtResponse, milkingLyingHours, npvAtMilk, npvAtPrice, planOption, projectOption, type MilkAtResponse, type MilkModel, type OptionPlan } from './projection';
+import { milkAtResponse, milkingLyingHours, npvAtMilk, npvAtPrice, planOption, projectOption, type MilkAtResponse, type MilkModel, type OptionPlan, type Projection } from './projection';
 import type { CoreOptionResult, CoreScenarioResults, CoverageYear, DecisionFigures, ExpansionSplit, FastOptionResult, IncrementalResult, Metrics, ScenarioResults } from './results';
 import { irrFast } from './irr-fast';
 import { findRoot } from './root';
@@ -116,9 +116,9 @@ interface SearchInput {
  */
 function breakEvens(scenario: Scenario, option: SearchInput, current: SearchInput, sameLyingTime: boolean): BreakEvens {
   const { finance, herd } = scenario;
-  const npvAt = (input: SearchInput, price: number): number => npvAtPrice(input.milk, input.plan, finance, input.yearZero, price);
+  const flows = new Array<number>(option.plan.horizon + 1);
+  const npvAt = (input: SearchInput, price: number): number => npvAtPrice(input.milk, input.plan, finance, input.yearZero, price, flows);
   const priceHi = milkPriceSearchMax(scenario);
-  const g = herd.lyingResponseKgPerHour;
   const price = findRoot((p) => npvAt(option, p) - npvAt(current, p), 0, priceHi, { tolerance: priceHi * 1e-10 });
   const result: BreakEvens = {
     breakEvenMilkPrice: price.value,
@@ -152,7 +152,7 @@ interface Evaluated {
   results: CoreScenarioResults;
   farm: ExistingFarm;
   baseCash: number[];
-  entries: { option: Option; plan: OptionPlan; steady: SteadyLines; search: SearchInput }[];
+  entries: { option: Option; plan: OptionPlan; steady: SteadyLines; projection: Projection; search: SearchInput }[];
   currentIndex: number;
 }
 
@@ -259,7 +259,7 @@ function stressInputs(scenario: Scenario, parts: Evaluated): Parameters<typeof s
   return [
     withExistingCashAnchored(scenario, parts.baseCash),
     parts.farm,
-    parts.entries.map(({ option, plan, steady, search }) => ({ option, plan, milk: search.milk, yearZero: search.yearZero, steady })),
+    parts.entries.map(({ option, plan, steady, projection, search }) => ({ option, plan, milk: search.milk, yearZero: search.yearZero, lines: projection.lines ?? [], steady })),
     parts.currentIndex,
   ];
 }

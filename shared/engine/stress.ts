@@ -1,7 +1,8 @@
 import type { Option, Scenario } from '../schema';
 import { coverageSummary, loanDueIn, type ExistingFarm } from './farm-coverage';
 import { presentValue } from './discounting';
-import { flowsAtPrice, milkAtResponse, milkingLyingHours, planOption, projectOption, withFinanceTerms, type MilkAtResponse, type OptionPlan } from './projection';
+import { flowsAtPrice, milkAtResponse, planOption, withCapitalOf, withFinanceTerms, type MilkAtResponse, type OptionPlan } from './projection';
+import type { YearLine } from './results';
 import type { SteadyLines } from './steady-lines';
 import { scaleCapitalCost, scaleGrazingFeedCost, scaleHousedFeedCost, scaleMarginalFeedCost, scaleMilkPrice } from './risk/perturb';
 
@@ -62,13 +63,14 @@ export function shockScenario(scenario: Scenario, test: StressTest): Scenario {
 
 /**
  * One option as the stress table re-evaluates it: its plan, its milk model at the herd's
- * lying-time response, its year-0 flow and its steady lines (no shock here moves them).
+ * lying-time response, its year-0 flow, its yearly lines and its steady lines (no shock here moves them).
  */
 export interface StressOption {
   option: Option;
   plan: OptionPlan;
   milk: MilkAtResponse;
   yearZero: number;
+  lines: readonly YearLine[];
   steady: SteadyLines;
 }
 
@@ -78,7 +80,6 @@ function underShock(
   test: StressTest,
   entry: StressOption,
   index: number,
-  currentLyingHours: number,
   plans: Map<string, OptionPlan>,
 ): { cash: number[]; net: number[]; plan: OptionPlan; npv: number } {
   let { plan, yearZero } = entry;
@@ -93,11 +94,7 @@ function underShock(
     plan = plans.get(key) ?? (test.capital === 1 ? withFinanceTerms(plan, shocked.finance) : planOption(shocked, option, 'fast', entry.steady.basis).plan);
     plans.set(key, plan);
   }
-  if (buysCapital && test.capital !== 1) {
-    const projection = projectOption(shocked, option, plan, currentLyingHours, false, true, entry.steady);
-    model = projection.milk ?? model;
-    yearZero = projection.cashFlows[0] ?? 0;
-  }
+  if (buysCapital && test.capital !== 1) ({ model, yearZero } = withCapitalOf(shocked, option, plan, entry.lines, model));
   // Feed per cow and per extra kg of milk are linear in the feed prices.
   if (test.feed !== 1) model = { ...model, feedPerCow: model.feedPerCow * test.feed, marginalFeedCostPerKg: model.marginalFeedCostPerKg * test.feed };
   const { finance, herd } = shocked;
@@ -113,9 +110,10 @@ function underShock(
  * The lender's stress table, per option (index = option) and shock (STRESS_TESTS order): the
  * scenario, with the existing farm's figure anchored at its own prices, shocked and evaluated
  * again. Each option is re-evaluated from its milk model (milk, feed and tax unrounded, as the
- * break-even searches), re-planned when the interest rate or the capital moves and re-projected
- * when the capital moves, so the figures agree with a full evaluation of the shocked scenario
- * within the cents of rounding.
+ * break-even searches), re-planned when the interest rate or the capital moves and, when the
+ * capital moves, with the maintenance on the new capital in its margins (year-ledger.ts
+ * withCapitalOf), so the figures agree with a full evaluation of the shocked scenario within the
+ * cents of rounding.
  */
 export function stressTables(anchored: Scenario, farm: ExistingFarm, entries: readonly StressOption[], currentIndex: number): StressResult[][] {
   return stressRuns(anchored, farm, entries, currentIndex).tables;
@@ -133,16 +131,13 @@ function stressRuns(
   currentIndex: number,
   withYears = false,
 ): { tables: StressResult[][]; years: StressYears[][] } {
-  // The same lying hours the full evaluation measures against: stocking and the cap applied.
-  const currentEntry = entries[currentIndex];
-  const currentLyingHours = currentEntry ? milkingLyingHours(anchored.herd, currentEntry.option) : 0;
   const threshold = anchored.finance.coverageThreshold;
   const tables = entries.map((): StressResult[] => []);
   const years = entries.map((): StressYears[] => []);
   const plans = new Map<string, OptionPlan>();
   for (const test of STRESS_TESTS) {
     const shocked = shockScenario(anchored, test);
-    const runs = entries.map((entry, index) => underShock(shocked, test, entry, index, currentLyingHours, plans));
+    const runs = entries.map((entry, index) => underShock(shocked, test, entry, index, plans));
     const current = runs[currentIndex];
     if (!current) continue;
     runs.forEach((run, index) => {
