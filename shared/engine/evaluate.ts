@@ -82,7 +82,9 @@ function coverageOf(farm: ExistingFarm, sides: CoverageSides, horizon: number): 
  */
 function equivalentAnnualCostPerStall(plan: OptionPlan, discountRate: number): number | null {
   if (plan.stalls <= 0) return null;
-  const capitalFlows = Array.from({ length: plan.horizon + 1 }, (_, t) => (t === 0 ? plan.capitalTotal : (plan.replacementsByYear[t] ?? 0)));
+  const capitalFlows = new Array<number>(plan.horizon + 1);
+  capitalFlows[0] = plan.capitalTotal;
+  for (let t = 1; t <= plan.horizon; t++) capitalFlows[t] = plan.replacementsByYear[t] ?? 0;
   capitalFlows[plan.horizon] = (capitalFlows[plan.horizon] ?? 0) - plan.salvage;
   return roundCentsFast(equivalentAnnualCost(presentValue(discountRate, capitalFlows), discountRate, plan.horizon) / plan.stalls);
 }
