@@ -1,7 +1,7 @@
 import type { Scenario } from '../schema';
 import { coverageRatio } from './coverage';
 import { loanDueIn, type ExistingFarm } from './farm-coverage';
-import { cashAtMilk, type MilkModel, type OptionPlan } from './projection';
+import { flowsAtPrice, type MilkAtResponse, type OptionPlan } from './projection';
 import { findRoot } from './root';
 
 // A price to a millionth of the search range: far below a cent per tonne of milk.
@@ -26,24 +26,23 @@ export interface CoverageBreakEven {
  * price) ÷ (existing debt + its loan), lowest over the years with something due. The existing
  * farm takes the same price (its herd margin is the current option's), so only the option's own
  * cash moves against the fixed figure beside the herd. The lowest ratio rises with the price, so
- * a root is unique.
+ * a root is unique. `milk` is the option's milk model at the herd's lying-time response.
  */
 export function breakEvenMilkPriceForCoverage(
   scenario: Scenario,
   farm: ExistingFarm,
-  model: MilkModel,
+  milk: MilkAtResponse,
   plan: OptionPlan,
   priceHi: number,
 ): CoverageBreakEven {
   const cash = new Array<number>(plan.horizon + 1).fill(0);
-  const response = scenario.herd.lyingResponseKgPerHour;
   // Each price is evaluated once: both searches start from the ends of the range, and the second
   // may start at the first one's root.
   const seen = new Map<number, number | null>();
   const lowestAt = (price: number): number | null => {
     const known = seen.get(price);
     if (known !== undefined) return known;
-    cashAtMilk(model, plan, scenario.finance, 0, price, response, cash);
+    flowsAtPrice(milk, plan, scenario.finance, 0, price, null, cash);
     let lowest: number | null = null;
     for (let t = 1; t <= plan.horizon; t++) {
       const ratio = coverageRatio(farm.cashBesideHerd + (cash[t] ?? 0), (farm.debtByYear[t] ?? 0) + loanDueIn(plan, t));

@@ -9,7 +9,7 @@ import { stressTables, stressYears, type StressYears } from './stress';
 import { presentValue } from './discounting';
 import { expansionSplitFlows, type SplitSide } from './expansion-split';
 import { discount, equivalentAnnualCost, mirr, paybackYears } from './finance';
-import { milkingLyingHours, npvAtMilk, planOption, projectOption, type MilkModel, type OptionPlan } from './projection';
+import { milkAtResponse, milkingLyingHours, npvAtMilk, npvAtPrice, planOption, projectOption, type MilkAtResponse, type MilkModel, type OptionPlan, type Projection } from './projection';
 import type { CoreOptionResult, CoreScenarioResults, CoverageYear, DecisionFigures, ExpansionSplit, FastOptionResult, IncrementalResult, Metrics, ScenarioResults } from './results';
 import { irrFast } from './irr-fast';
 import { findRoot } from './root';
@@ -82,7 +82,9 @@ function coverageOf(farm: ExistingFarm, sides: CoverageSides, horizon: number): 
  */
 function equivalentAnnualCostPerStall(plan: OptionPlan, discountRate: number): number | null {
   if (plan.stalls <= 0) return null;
-  const capitalFlows = Array.from({ length: plan.horizon + 1 }, (_, t) => (t === 0 ? plan.capitalTotal : (plan.replacementsByYear[t] ?? 0)));
+  const capitalFlows = new Array<number>(plan.horizon + 1);
+  capitalFlows[0] = plan.capitalTotal;
+  for (let t = 1; t <= plan.horizon; t++) capitalFlows[t] = plan.replacementsByYear[t] ?? 0;
   capitalFlows[plan.horizon] = (capitalFlows[plan.horizon] ?? 0) - plan.salvage;
   return roundCentsFast(equivalentAnnualCost(presentValue(discountRate, capitalFlows), discountRate, plan.horizon) / plan.stalls);
 }
@@ -100,10 +102,11 @@ function milkPriceSearchMax(scenario: Scenario): number {
 
 type BreakEvens = Pick<IncrementalResult, 'breakEvenMilkPrice' | 'breakEvenMilkPriceReason' | 'breakEvenLyingResponse' | 'breakEvenLyingResponseReason'>;
 
-/** One option as the break-even searches see it: its plan, its milk model and its year-0 flow. */
+/** One option as the break-even searches see it: its plan, its milk model (also at the herd's lying-time response) and its year-0 flow. */
 interface SearchInput {
   plan: OptionPlan;
   model: MilkModel;
+  milk: MilkAtResponse;
   yearZero: number;
 }
 
@@ -115,11 +118,10 @@ interface SearchInput {
  */
 function breakEvens(scenario: Scenario, option: SearchInput, current: SearchInput, sameLyingTime: boolean): BreakEvens {
   const { finance, herd } = scenario;
-  const npvOf = (input: SearchInput, price: number, response: number): number =>
-    npvAtMilk(input.model, input.plan, finance, input.yearZero, price, response);
+  const flows = new Array<number>(option.plan.horizon + 1);
+  const npvAt = (input: SearchInput, price: number): number => npvAtPrice(input.milk, input.plan, finance, input.yearZero, price, flows);
   const priceHi = milkPriceSearchMax(scenario);
-  const g = herd.lyingResponseKgPerHour;
-  const price = findRoot((p) => npvOf(option, p, g) - npvOf(current, p, g), 0, priceHi, { tolerance: priceHi * 1e-10 });
+  const price = findRoot((p) => npvAt(option, p) - npvAt(current, p), 0, priceHi, { tolerance: priceHi * 1e-10 });
   const result: BreakEvens = {
     breakEvenMilkPrice: price.value,
     ...(price.value === null ? { breakEvenMilkPriceReason: 'none-in-range' as const } : {}),
@@ -127,8 +129,8 @@ function breakEvens(scenario: Scenario, option: SearchInput, current: SearchInpu
   };
   if (sameLyingTime) return { ...result, breakEvenLyingResponseReason: 'same-lying-time' };
   // The current option's yield does not depend on the response (its lying time is the reference).
-  const currentNpv = npvOf(current, herd.milkPricePerKg, g);
-  const response = findRoot((r) => npvOf(option, herd.milkPricePerKg, r) - currentNpv, 0, LYING_RESPONSE_SEARCH_MAX, { tolerance: 1e-9 });
+  const currentNpv = npvAt(current, herd.milkPricePerKg);
+  const response = findRoot((r) => npvAtMilk(option.model, option.plan, finance, option.yearZero, herd.milkPricePerKg, r) - currentNpv, 0, LYING_RESPONSE_SEARCH_MAX, { tolerance: 1e-9 });
   return {
     ...result,
     breakEvenLyingResponse: response.value,
@@ -152,7 +154,7 @@ interface Evaluated {
   results: CoreScenarioResults;
   farm: ExistingFarm;
   baseCash: number[];
-  entries: { option: Option; plan: OptionPlan; search: SearchInput }[];
+  entries: { option: Option; plan: OptionPlan; steady: SteadyLines; projection: Projection; search: SearchInput }[];
   currentIndex: number;
 }
 
@@ -166,10 +168,13 @@ function evaluateParts(scenario: Scenario): Evaluated {
   const currentLying = milkingLyingHours(scenario.herd, current);
   const evaluated = scenario.options.map((option) => {
     const { plan, loan } = planOption(scenario, option, 'ledger');
-    const projection = projectOption(scenario, option, plan, currentLying, true, true);
+    // Built here (as projectOption would) so the capital shock re-projects without rebuilding them.
+    const steady = steadyLines(scenario, option, plan, housingWork(option, plan));
+    const projection = projectOption(scenario, option, plan, currentLying, true, true, steady);
     // withMilkModel = true always returns the model.
-    const search: SearchInput = { plan, model: projection.milk as MilkModel, yearZero: projection.cashFlows[0] ?? 0 };
-    return { option, plan, loan, projection, search };
+    const model = projection.milk as MilkModel;
+    const search: SearchInput = { plan, model, milk: milkAtResponse(model, plan.horizon, scenario.herd.lyingResponseKgPerHour), yearZero: projection.cashFlows[0] ?? 0 };
+    return { option, plan, loan, steady, projection, search };
   });
   const base = evaluated.find((entry) => entry.option === current) ?? evaluated[0];
   if (!base) throw new RangeError('options must hold at least one option');
@@ -256,7 +261,7 @@ function stressInputs(scenario: Scenario, parts: Evaluated): Parameters<typeof s
   return [
     withExistingCashAnchored(scenario, parts.baseCash),
     parts.farm,
-    parts.entries.map(({ option, plan, search }) => ({ option, plan, model: search.model, yearZero: search.yearZero })),
+    parts.entries.map(({ option, plan, steady, projection, search }) => ({ option, plan, milk: search.milk, yearZero: search.yearZero, lines: projection.lines ?? [], steady })),
     parts.currentIndex,
   ];
 }
@@ -268,7 +273,7 @@ function decisionFiguresOf(scenario: Scenario, parts: Evaluated): DecisionFigure
   const priceHi = milkPriceSearchMax(scenario);
   return entries.map(({ plan, search }, index) => ({
     stress: stress[index] ?? [],
-    breakEvenMilkPriceForCoverage: breakEvenMilkPriceForCoverage(scenario, farm, search.model, plan, priceHi),
+    breakEvenMilkPriceForCoverage: breakEvenMilkPriceForCoverage(scenario, farm, search.milk, plan, priceHi),
   }));
 }
 

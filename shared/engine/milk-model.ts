@@ -7,7 +7,7 @@ import type { Option, Scenario } from '../schema';
 import { presentValue } from './discounting';
 import { baseFeedCostPerYear, marginalFeedCostPerYear } from './feed';
 import type { OptionPlan } from './plan';
-import { emptySettlement, settleYear } from './settle-year';
+import { lossCarriedOn, taxableIncome, taxOfYear } from './tax';
 import { cappedLyingHours, lactatingShare, milkSoldKgPerYear, rampFraction, stockedLyingHours, yieldPerCowDay } from './yield';
 
 /**
@@ -85,62 +85,84 @@ export function openMilkModel(scenario: Scenario, option: Option, plan: OptionPl
   };
 }
 
-/** Operating margin of year t (currency, unrounded) from a milk model at a milk price and lying-time response. */
-function marginAtMilk(model: MilkModel, t: number, milkPrice: number, response: number): number {
-  const cows = model.cows[t] as number;
-  const yieldKg = Math.max(0, model.yieldFixed + response * (t === 1 ? model.yieldPerResponseYear1 : model.yieldPerResponseLater));
-  const milkKg = milkSoldKgPerYear(model.milkCows[t] as number, yieldKg);
-  const milkIncome = milkKg * (milkPrice + model.qualityPricePerKg) * (model.milkGrowth[t] as number);
-  const feed = (model.feedPerCow * cows + marginalFeedCostPerYear(milkKg - model.baselineMilkPerCow * cows, model.marginalFeedCostPerKg)) * (model.feedGrowth[t] as number);
-  return (model.otherMargin[t] as number) + milkIncome - feed;
+/**
+ * A milk model at one lying-time response (kg/cow/day per hour): each year's milk sold (kg) and
+ * feed (currency, unrounded), which no milk price moves, so a search over the price or the
+ * stress table's price shocks work them out once instead of at every price (index = year).
+ */
+export interface MilkAtResponse {
+  model: MilkModel;
+  response: number;
+  milkKg: Float64Array;
+  feed: Float64Array;
 }
 
-/**
- * Project flows (currency, index = year, flows[0] = yearZero) of an option at another milk price
- * (currency per kg) and lying-time response (kg/cow/day per hour), from its milk model: the same
- * sums as the ledger without rounding, one pass over the years. With `cashInto` it also writes
- * the cash available for debt service per year there ([0] = 0).
- */
-function flowsAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario['finance'], yearZero: number, milkPrice: number, response: number, cashInto?: number[]): number[] {
-  const flows = new Array<number>(plan.horizon + 1);
-  flows[0] = yearZero;
-  if (cashInto) cashInto[0] = 0;
-  const out = emptySettlement();
-  let lossCarried = 0;
-  for (let t = 1; t <= plan.horizon; t++) {
-    settleYear(out, plan, finance, t, marginAtMilk(model, t, milkPrice, response), lossCarried, false);
-    lossCarried = out.lossCarried;
-    flows[t] = out.net;
-    if (cashInto) cashInto[t] = out.cashForDebtService;
+/** A milk model's milk sold and feed per year at a lying-time response, for years 1..H. */
+export function milkAtResponse(model: MilkModel, horizon: number, response: number): MilkAtResponse {
+  const milkKg = new Float64Array(horizon + 1);
+  const feed = new Float64Array(horizon + 1);
+  for (let t = 1; t <= horizon; t++) {
+    const cows = model.cows[t] as number;
+    const yieldKg = Math.max(0, model.yieldFixed + response * (t === 1 ? model.yieldPerResponseYear1 : model.yieldPerResponseLater));
+    const kg = milkSoldKgPerYear(model.milkCows[t] as number, yieldKg);
+    milkKg[t] = kg;
+    feed[t] = (model.feedPerCow * cows + marginalFeedCostPerYear(kg - model.baselineMilkPerCow * cows, model.marginalFeedCostPerKg)) * (model.feedGrowth[t] as number);
   }
-  return flows;
+  return { model, response, milkKg, feed };
 }
 
 /**
- * NPV (currency, flows[0] at t = 0) of an option's project flows at another milk price (currency
- * per kg) and lying-time response (kg/cow/day per hour), from its milk model (the break-even searches).
+ * Project flows (currency, index = year, [0] = yearZero; into `flowsInto`) and cash available for
+ * debt service per year ([0] = 0; into `cashInto`) of an option at another milk price (currency
+ * per kg), from its milk model at a response: the same sums as the ledger without rounding, one
+ * pass over the years. Either target may be null when not wanted.
  */
-export function npvAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario['finance'], yearZero: number, milkPrice: number, response: number): number {
-  return presentValue(finance.discountRate, flowsAtMilk(model, plan, finance, yearZero, milkPrice, response));
-}
-
-/**
- * Cash available for debt service per year (currency, index = year, [0] = 0; written into `into`)
- * of an option at another milk price and lying-time response, from its milk model, and the NPV
- * of its project flows (returned; flows[0] = yearZero at t = 0; each year's flow into `netInto`
- * when given): the stress table and the coverage break-evens.
- */
-export function cashAtMilk(
-  model: MilkModel,
+export function flowsAtPrice(
+  milk: MilkAtResponse,
   plan: OptionPlan,
   finance: Scenario['finance'],
   yearZero: number,
   milkPrice: number,
-  response: number,
-  into: number[],
-  netInto?: number[],
-): number {
-  const flows = flowsAtMilk(model, plan, finance, yearZero, milkPrice, response, into);
-  if (netInto) flows.forEach((net, t) => (netInto[t] = net));
+  flowsInto: number[] | null,
+  cashInto: number[] | null,
+): void {
+  const { model, milkKg, feed } = milk;
+  const { otherMargin, milkGrowth } = model;
+  const { taxRate, lossesOffsetOtherIncome } = finance;
+  const { horizon, depreciationByYear, interestByYear, replacementsByYear, herdPurchasesByYear } = plan;
+  const price = milkPrice + model.qualityPricePerKg;
+  if (flowsInto) flowsInto[0] = yearZero;
+  if (cashInto) cashInto[0] = 0;
+  let lossCarried = 0;
+  for (let t = 1; t <= horizon; t++) {
+    const margin = (otherMargin[t] as number) + (milkKg[t] as number) * price * (milkGrowth[t] as number) - (feed[t] as number);
+    // The year settled as settle-year.ts settles the ledger's, term for term but unrounded (a
+    // smooth function of the price), inline for speed: the searches run this ~100 times an evaluation.
+    // The disposal at H is taxed in the net flow and left out of the cash for debt service.
+    const last = t === horizon;
+    const salvage = last ? plan.salvage : 0;
+    const disposalGain = last ? salvage - plan.taxBookValueAtHorizon : 0;
+    const taxable = taxableIncome(margin, depreciationByYear[t] as number, interestByYear[t] as number, disposalGain);
+    const tax = taxOfYear(taxable, taxRate, lossesOffsetOtherIncome, lossCarried);
+    if (flowsInto) flowsInto[t] = margin - (replacementsByYear[t] as number) - (herdPurchasesByYear[t] as number) - tax + salvage + (last ? plan.herdValueAtHorizon : 0);
+    if (cashInto) cashInto[t] = margin - (disposalGain !== 0 ? taxOfYear(taxable - disposalGain, taxRate, lossesOffsetOtherIncome, lossCarried) : tax);
+    lossCarried = lossCarriedOn(taxable, taxRate, lossesOffsetOtherIncome, lossCarried);
+  }
+}
+
+/**
+ * NPV (currency, flows[0] at t = 0) of an option's project flows at another milk price (currency
+ * per kg), from its milk model at a response (the break-even searches); `flows` is scratch of H + 1 years.
+ */
+export function npvAtPrice(milk: MilkAtResponse, plan: OptionPlan, finance: Scenario['finance'], yearZero: number, milkPrice: number, flows: number[] = new Array<number>(plan.horizon + 1)): number {
+  flowsAtPrice(milk, plan, finance, yearZero, milkPrice, flows, null);
   return presentValue(finance.discountRate, flows);
+}
+
+/**
+ * NPV (currency, flows[0] at t = 0) of an option's project flows at another milk price (currency
+ * per kg) and lying-time response (kg/cow/day per hour), from its milk model.
+ */
+export function npvAtMilk(model: MilkModel, plan: OptionPlan, finance: Scenario['finance'], yearZero: number, milkPrice: number, response: number): number {
+  return npvAtPrice(milkAtResponse(model, plan.horizon, response), plan, finance, yearZero, milkPrice);
 }

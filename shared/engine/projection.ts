@@ -3,5 +3,5 @@
  * and its milk model (milk-model.ts). Engine modules import the parts from here.
  */
 export { loanAmountFor, optionStalls, optionStorageM3, planOption, withFinanceTerms, type OptionPlan, type PlanMode } from './plan';
-export { projectOption, type Projection } from './year-ledger';
-export { cashAtMilk, milkingLyingHours, npvAtMilk, type MilkModel } from './milk-model';
+export { projectOption, withCapitalOf, type Projection } from './year-ledger';
+export { flowsAtPrice, milkAtResponse, milkingLyingHours, npvAtMilk, npvAtPrice, type MilkAtResponse, type MilkModel } from './milk-model';

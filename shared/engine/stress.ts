@@ -1,6 +1,9 @@
 import type { Option, Scenario } from '../schema';
 import { coverageSummary, loanDueIn, type ExistingFarm } from './farm-coverage';
-import { cashAtMilk, milkingLyingHours, planOption, projectOption, withFinanceTerms, type MilkModel, type OptionPlan } from './projection';
+import { presentValue } from './discounting';
+import { flowsAtPrice, milkAtResponse, planOption, withCapitalOf, withFinanceTerms, type MilkAtResponse, type OptionPlan } from './projection';
+import type { YearLine } from './results';
+import type { SteadyLines } from './steady-lines';
 import { scaleCapitalCost, scaleGrazingFeedCost, scaleHousedFeedCost, scaleMarginalFeedCost, scaleMilkPrice } from './risk/perturb';
 
 /** The lender's shocks, each applied to the inputs as entered. */
@@ -58,12 +61,17 @@ export function shockScenario(scenario: Scenario, test: StressTest): Scenario {
   return shocked;
 }
 
-/** One option as the stress table re-evaluates it: its plan, its milk model and its year-0 flow. */
+/**
+ * One option as the stress table re-evaluates it: its plan, its milk model at the herd's
+ * lying-time response, its year-0 flow, its yearly lines and its steady lines (no shock here moves them).
+ */
 export interface StressOption {
   option: Option;
   plan: OptionPlan;
-  model: MilkModel;
+  milk: MilkAtResponse;
   yearZero: number;
+  lines: readonly YearLine[];
+  steady: SteadyLines;
 }
 
 /** Cash for debt service per year and NPV (currency) of one option under a shocked scenario. */
@@ -72,41 +80,40 @@ function underShock(
   test: StressTest,
   entry: StressOption,
   index: number,
-  currentLyingHours: number,
   plans: Map<string, OptionPlan>,
 ): { cash: number[]; net: number[]; plan: OptionPlan; npv: number } {
-  let { plan, model, yearZero } = entry;
+  let { plan, yearZero } = entry;
+  let model = entry.milk.model;
   const option = shocked.options[index] ?? entry.option;
   // Interest and capital change the plan (loan, depreciation); capital also the maintenance inside the margin.
   const buysCapital = entry.plan.capitalTotal > 0;
   if (buysCapital && (test.ratePoints !== 0 || test.capital !== 1)) {
     // The plan does not depend on the milk price: shocks with the same rate and capital share it;
-    // a rate alone moves only the loan.
+    // a rate alone moves only the loan, capital not the herd, sizing or storage.
     const key = `${index}|${test.ratePoints}|${test.capital}`;
-    plan = plans.get(key) ?? (test.capital === 1 ? withFinanceTerms(plan, shocked.finance) : planOption(shocked, option, 'fast').plan);
+    plan = plans.get(key) ?? (test.capital === 1 ? withFinanceTerms(plan, shocked.finance) : planOption(shocked, option, 'fast', entry.steady.basis).plan);
     plans.set(key, plan);
   }
-  if (buysCapital && test.capital !== 1) {
-    const projection = projectOption(shocked, option, plan, currentLyingHours, false, true);
-    model = projection.milk ?? model;
-    yearZero = projection.cashFlows[0] ?? 0;
-  }
+  if (buysCapital && test.capital !== 1) ({ model, yearZero } = withCapitalOf(shocked, option, plan, entry.lines, model));
   // Feed per cow and per extra kg of milk are linear in the feed prices.
   if (test.feed !== 1) model = { ...model, feedPerCow: model.feedPerCow * test.feed, marginalFeedCostPerKg: model.marginalFeedCostPerKg * test.feed };
   const { finance, herd } = shocked;
+  const response = herd.lyingResponseKgPerHour;
+  const milk = model === entry.milk.model && response === entry.milk.response ? entry.milk : milkAtResponse(model, plan.horizon, response);
   const cash = new Array<number>(plan.horizon + 1);
   const net = new Array<number>(plan.horizon + 1);
-  const npv = cashAtMilk(model, plan, finance, yearZero, herd.milkPricePerKg, herd.lyingResponseKgPerHour, cash, net);
-  return { cash, net, plan, npv };
+  flowsAtPrice(milk, plan, finance, yearZero, herd.milkPricePerKg, net, cash);
+  return { cash, net, plan, npv: presentValue(finance.discountRate, net) };
 }
 
 /**
  * The lender's stress table, per option (index = option) and shock (STRESS_TESTS order): the
  * scenario, with the existing farm's figure anchored at its own prices, shocked and evaluated
  * again. Each option is re-evaluated from its milk model (milk, feed and tax unrounded, as the
- * break-even searches), re-planned when the interest rate or the capital moves and re-projected
- * when the capital moves, so the figures agree with a full evaluation of the shocked scenario
- * within the cents of rounding.
+ * break-even searches), re-planned when the interest rate or the capital moves and, when the
+ * capital moves, with the maintenance on the new capital in its margins (year-ledger.ts
+ * withCapitalOf), so the figures agree with a full evaluation of the shocked scenario within the
+ * cents of rounding.
  */
 export function stressTables(anchored: Scenario, farm: ExistingFarm, entries: readonly StressOption[], currentIndex: number): StressResult[][] {
   return stressRuns(anchored, farm, entries, currentIndex).tables;
@@ -124,16 +131,13 @@ function stressRuns(
   currentIndex: number,
   withYears = false,
 ): { tables: StressResult[][]; years: StressYears[][] } {
-  // The same lying hours the full evaluation measures against: stocking and the cap applied.
-  const currentEntry = entries[currentIndex];
-  const currentLyingHours = currentEntry ? milkingLyingHours(anchored.herd, currentEntry.option) : 0;
   const threshold = anchored.finance.coverageThreshold;
   const tables = entries.map((): StressResult[] => []);
   const years = entries.map((): StressYears[] => []);
   const plans = new Map<string, OptionPlan>();
   for (const test of STRESS_TESTS) {
     const shocked = shockScenario(anchored, test);
-    const runs = entries.map((entry, index) => underShock(shocked, test, entry, index, currentLyingHours, plans));
+    const runs = entries.map((entry, index) => underShock(shocked, test, entry, index, plans));
     const current = runs[currentIndex];
     if (!current) continue;
     runs.forEach((run, index) => {

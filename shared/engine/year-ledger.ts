@@ -62,8 +62,7 @@ export function projectOption(
   const work = steady?.work ?? housingWork(option, plan);
   const fixed = steady ?? steadyLines(scenario, option, plan, work);
   const runningByGrowth = fixed.runningByGrowth;
-  // Maintenance and insurance fall on the new capital and on any existing housing the option keeps using.
-  const maintenanceToday = maintenanceCostPerYear(option.maintenanceRate + option.insuranceRate, plan.capitalTotal + option.existingHousingValue);
+  const maintenanceToday = maintenanceTodayOf(option, plan);
   const manure = fixed.manure;
   const { scrapingHours, bedCareHours, beddingTopUpHours, troughHours, grazingHours, beddingTonnes } = work;
 
@@ -218,6 +217,35 @@ export function projectOption(
     }
   }
   return { cashFlows, cashForDebtService, lines, milk };
+}
+
+/** Maintenance and insurance in today's money (currency per year): on the new capital and on any existing housing the option keeps using. */
+function maintenanceTodayOf(option: Option, plan: OptionPlan): number {
+  return maintenanceCostPerYear(option.maintenanceRate + option.insuranceRate, plan.capitalTotal + option.existingHousingValue);
+}
+
+/**
+ * The milk model and year-0 flow of an option on `plan`, from its projection (`lines`, `model`)
+ * on a plan that differs from it in the capital alone (a capital shock: same herd, housing and
+ * steady lines). In the ledger only year 0 and the maintenance line follow the capital, and every
+ * line is in whole cents, so each year's margin is the old one with the maintenance's cents
+ * swapped: exactly the cents projectOption would sum, without projecting the option again.
+ */
+export function withCapitalOf(scenario: Scenario, option: Option, plan: OptionPlan, lines: readonly YearLine[], model: MilkModel): { model: MilkModel; yearZero: number } {
+  const growth = resolvedGrowth(scenario.herd.growth);
+  const maintenanceToday = maintenanceTodayOf(option, plan);
+  const otherMargin = new Array<number>(plan.horizon + 1).fill(0);
+  // The general growth factor built year by year as projectOption builds it.
+  let gGeneral = 1;
+  for (let t = 1; t <= plan.horizon; t++) {
+    gGeneral *= 1 + growth.general;
+    const line = lines[t] as YearLine;
+    const operatingMargin = noiseFreeCents(line.operatingMargin + line.maintenance - roundCentsFast(maintenanceToday * gGeneral));
+    otherMargin[t] = operatingMargin - line.milkIncome + line.feed;
+  }
+  // Year 0 as projectOption's: grants − capital − cows bought, each in cents.
+  const yearZero = noiseFreeCents(roundCentsFast(plan.grants) - roundCentsFast(plan.capitalTotal) - roundCentsFast(plan.herdPurchasesByYear[0] ?? 0));
+  return { model: { ...model, otherMargin }, yearZero };
 }
 
 function yearZeroLine(plan: OptionPlan, net: number, capital: number, grants: number, herdPurchases: number, financed: number): YearLine {

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { scenarioSchema } from '../../../shared/schema';
 import { anchoredForShocks, evaluateCore, evaluateScenario, evaluateStressYears } from '../../../shared/engine/evaluate';
-import { planOption, withFinanceTerms } from '../../../shared/engine/projection';
+import { milkingLyingHours, planOption, projectOption, withCapitalOf, withFinanceTerms, type MilkModel } from '../../../shared/engine/projection';
 import { shockScenario, STRESS_TESTS } from '../../../shared/engine/stress';
 import { handScenario } from './hand-scenario';
 
@@ -270,5 +270,36 @@ describe('a plan at other finance terms', () => {
     const sand = scenario.options.find((o) => o.id === 'sand-freestall');
     if (!sand) throw new Error('no sand option');
     expect(withFinanceTerms(planOption(scenario, sand, 'fast').plan, shocked.finance).interestByYear[1]).toBeGreaterThan(planOption(scenario, sand, 'fast').plan.interestByYear[1] ?? Infinity);
+  });
+});
+
+describe('a projection at other capital', () => {
+  // Consistency with the ledger itself (year-ledger.ts projectOption), no outside source: the
+  // stress table's capital shock must read the very figures a re-projection gives.
+  it('gives the milk model and year-0 flow of the option projected again with the capital 15 % higher, to the bit', () => {
+    const demo = scenarioSchema.parse(JSON.parse(readFileSync(new URL('../../../scenarios/cairnbrook-five-systems.json', import.meta.url), 'utf8')));
+    // Grants of 150 000, so a shock also moves grants capped at a cheap option's capital.
+    const scenario = { ...demo, finance: { ...demo.finance, grants: 150_000 } };
+    const test = STRESS_TESTS.find((t) => t.id === 'capital+15');
+    if (!test) throw new Error('no capital+15 shock');
+    const shocked = shockScenario(scenario, test);
+    const current = scenario.options.find((o) => o.current);
+    if (!current) throw new Error('no current option');
+    const lying = milkingLyingHours(scenario.herd, current);
+    let moved = 0;
+    scenario.options.forEach((option, i) => {
+      const shockedOption = shocked.options[i];
+      if (!shockedOption) throw new Error('options lost under the shock');
+      const { plan } = planOption(scenario, option, 'ledger');
+      const before = projectOption(scenario, option, plan, lying, true, true);
+      const shockedPlan = planOption(shocked, shockedOption, 'fast').plan;
+      const again = projectOption(shocked, shockedOption, shockedPlan, lying, false, true);
+      const swapped = withCapitalOf(shocked, shockedOption, shockedPlan, before.lines ?? [], before.milk as MilkModel);
+      expect(swapped.model, option.id).toEqual(again.milk);
+      expect(swapped.yearZero, option.id).toBe(again.cashFlows[0]);
+      if (swapped.yearZero !== before.cashFlows[0] && swapped.model.otherMargin.some((m, t) => m !== before.milk?.otherMargin[t])) moved += 1;
+    });
+    // The shock moved something: the demo's barns carry capital and its maintenance.
+    expect(moved).toBeGreaterThan(0);
   });
 });
