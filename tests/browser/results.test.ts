@@ -193,6 +193,15 @@ describe('results and comparison in Chromium', () => {
     // The yearly and loan tables are drawn when they come near the screen, as the reader scrolls to them.
     await page.locator('.results-view .tables').scrollIntoViewIfNeeded();
     await page.getByRole('row', { name: /Milk income/ }).first().waitFor();
+    // The long tables grow with the page: no box of their own scrolls up and down, so the cash
+    // flow lines at the bottom and the loan's later years are read by scrolling the page.
+    const tables = page.locator('.results-view .tables');
+    const innerScrollers = await tables.evaluate((root) =>
+      [...root.querySelectorAll('*')].filter((e) => /(auto|scroll)/.test(getComputedStyle(e).overflowY) && e.scrollHeight > e.clientHeight + 1).map((e) => e.className),
+    );
+    expect(innerScrollers).toEqual([]);
+    expect(await tables.getByRole('row', { name: /Cash flow after the loan/ }).first().isVisible()).toBe(true);
+    expect(await tables.locator('.loan-table tbody tr').last().isVisible()).toBe(true);
     await expectNoBrokenNumbers(page);
     await harness.screenshot(page, 'results-desktop');
 
