@@ -165,6 +165,7 @@ const remembered: { annualRate: number; paymentsPerYear: number; rate: Decimal |
 // The level payment's float formula errs by up to a few parts in 1e14 over 480 periods.
 const LEVEL_TIE_RELATIVE = 1e-12;
 const TINY_RATE = 1e-9;
+const TWO_TO_52 = 2 ** 52;
 
 /** The decimal.js loanSchedule's level payment (whole cents) on `balance` cents over `periods`. */
 function levelPaymentCents(balance: number, annualRate: number, paymentsPerYear: number, periods: number): number {
@@ -212,21 +213,23 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
     let yearPrincipal = 0;
     for (let k = 0; k < paymentsPerYear; k++) {
       number++;
-      // isTie inlined: this loop runs for every period of every loan of every Monte Carlo draw.
+      // This loop runs for every period of every loan of every Monte Carlo draw, each period
+      // waiting on the last: the nearest whole cent by adding and taking away 2⁵² (exact below
+      // 2⁵², where a double's spacing is 1; above it the product is whole already) and no
+      // Math.floor or unpredictable branch on that path. Off a tie the nearest cent is the
+      // half-up one; the tie test is isTie's, |fraction − ½| < window, on the distance to it.
       const raw = balance * periodRate;
-      const whole = Math.floor(raw);
-      const fraction = raw - whole;
-      const periodInterest =
-        fraction - 0.5 < window && 0.5 - fraction < window
-          ? ledgerInterest(balance, ledgerPeriodRate(annualRate, paymentsPerYear))
-          : fraction > 0.5
-            ? whole + 1
-            : whole;
+      let periodInterest = raw < TWO_TO_52 ? raw + TWO_TO_52 - TWO_TO_52 : raw;
+      const off = raw - periodInterest;
+      if (0.5 - (off < 0 ? -off : off) < window) periodInterest = ledgerInterest(balance, ledgerPeriodRate(annualRate, paymentsPerYear));
       let periodPrincipal: number;
       if (number <= interestOnlyPeriods) periodPrincipal = 0;
       else if (number === totalPeriods) periodPrincipal = balance;
-      // A rounded-up level payment on a tiny loan could overpay before the last period.
-      else periodPrincipal = Math.min(level - periodInterest, balance);
+      else {
+        periodPrincipal = level - periodInterest;
+        // A rounded-up level payment on a tiny loan could overpay before the last period.
+        if (periodPrincipal > balance) periodPrincipal = balance;
+      }
       balance -= periodPrincipal;
       yearInterest += periodInterest;
       yearPrincipal += periodPrincipal;
