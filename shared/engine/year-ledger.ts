@@ -33,6 +33,9 @@ export interface Projection {
 // Where each of the year's rounded lines sits in the ledger's scratch array.
 const MILK = 0, FEED = 1, SCRAPING = 2, BED_CARE = 3, BEDDING_TOP_UP = 4, TROUGHS = 5, GRAZING = 6, MILKING = 7, MAINTENANCE = 8, RUNNING_COSTS = 9;
 const YEAR_LINES = 10;
+// One scratch array for every projection: a typed array costs more to allocate than a year's lines
+// to fill, and nothing the year loop calls projects another option.
+const year = new Float64Array(YEAR_LINES);
 
 /**
  * The yearly flows of one option, t = 0..H (currency, nominal). Every money line is rounded to
@@ -87,7 +90,6 @@ export function projectOption(
   const feedPerCow = baseFeedCostPerYear(1, plan.housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
 
   const settled = emptySettlement();
-  const year = new Float64Array(YEAR_LINES);
   // This year's growth factors per price group, updated in place year by year.
   const factors: GrowthFactors = { milkPrice: 1, feed: 1, wages: 1, bedding: 1, fertiliser: 1, general: 1 };
   let grownMilk = 1, grownFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
