@@ -177,35 +177,63 @@ function levelPaymentCents(balance: number, annualRate: number, paymentsPerYear:
   return toWholeCents(roundCents(decimalLevelPayment(currency(balance), new Money(annualRate).div(paymentsPerYear), periods)));
 }
 
-/** One loan walked period by period in whole cents; payments only when asked for. */
+/**
+ * The decimal.js loanSchedule's interest for one period (whole cents) on `balance` cents. Every
+ * period of a loan waits on the last, so the walk is latency-bound: the nearest whole cent by
+ * adding and taking away 2⁵² (exact below 2⁵², where a double's spacing is 1), with no
+ * Math.floor or unpredictable branch on that path. Off a tie the nearest cent is the half-up
+ * one; the tie test is isTie's, |fraction − ½| < window. From 2⁵² cents of interest up the
+ * window (from the first, largest balance) is over 45 cents, so every period goes to decimal.js.
+ */
+function periodInterestCents(balance: number, periodRate: number, window: number, annualRate: number, paymentsPerYear: number): number {
+  // A product instead of the ledger's quotient: the two differ by an ulp or so, far inside the
+  // tie window, so the rounding and the tie test decide every period alike.
+  const raw = balance * periodRate;
+  const nearest = raw + TWO_TO_52 - TWO_TO_52;
+  const off = raw - nearest;
+  return 0.5 - Math.abs(off) < window ? ledgerInterest(balance, ledgerPeriodRate(annualRate, paymentsPerYear)) : nearest;
+}
+
+/** Principal repaid in payment `number` (1-based, whole cents): none while interest only, the whole balance at the last. */
+function periodPrincipalCents(number: number, balance: number, interest: number, level: number, interestOnlyPeriods: number, totalPeriods: number): number {
+  if (number <= interestOnlyPeriods) return 0;
+  if (number === totalPeriods) return balance;
+  // A rounded-up level payment on a tiny loan could overpay before the last period.
+  const principal = level - interest;
+  return principal > balance ? balance : principal;
+}
+
+/** The first period's tie window: the balance only falls, so it covers every later one. */
+function tieWindowOf(balance: number, annualRate: number, paymentsPerYear: number): number {
+  return Math.max(TIE_WINDOW, ((balance * annualRate) / paymentsPerYear) * TIE_RELATIVE);
+}
+
+/** One loan walked period by period in whole cents, with its payment table. */
 interface CentsSchedule {
   /** Per loan year, index = year − 1 (currency, whole cents). */
   interest: number[];
   principal: number[];
   payment: number[];
   closingBalance: number[];
-  payments: LoanPayment[] | null;
+  payments: LoanPayment[];
   /** Whole cents. */
   totalInterest: number;
   loan: number;
 }
 
-function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPeriods: number, withPayments: boolean): CentsSchedule {
+function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPeriods: number): CentsSchedule {
   const { annualRate, years, paymentsPerYear } = input;
   const interest = new Array<number>(years).fill(0);
   const principal = new Array<number>(years).fill(0);
   const payment = new Array<number>(years).fill(0);
   const closingBalance = new Array<number>(years).fill(0);
-  const payments: LoanPayment[] | null = withPayments ? [] : null;
+  const payments: LoanPayment[] = [];
   const loan = wholeCents(input.principal);
   let balance = loan;
   let totalInterest = 0;
   if (balance === 0) return { interest, principal, payment, closingBalance, payments, totalInterest, loan };
   const level = levelPaymentCents(balance, annualRate, paymentsPerYear, totalPeriods - interestOnlyPeriods);
-  // The balance only falls, so the first period's window covers every later one.
-  const window = Math.max(TIE_WINDOW, ((balance * annualRate) / paymentsPerYear) * TIE_RELATIVE);
-  // A product instead of a quotient in the loop: the two differ by an ulp or so, far inside the
-  // tie window, so Math.round and the tie test decide every period alike.
+  const window = tieWindowOf(balance, annualRate, paymentsPerYear);
   const periodRate = annualRate / paymentsPerYear;
   let number = 0;
   for (let year = 0; year < years; year++) {
@@ -213,36 +241,19 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
     let yearPrincipal = 0;
     for (let k = 0; k < paymentsPerYear; k++) {
       number++;
-      // This loop runs for every period of every loan of every Monte Carlo draw, each period
-      // waiting on the last: the nearest whole cent by adding and taking away 2⁵² (exact below
-      // 2⁵², where a double's spacing is 1; above it the product is whole already) and no
-      // Math.floor or unpredictable branch on that path. Off a tie the nearest cent is the
-      // half-up one; the tie test is isTie's, |fraction − ½| < window, on the distance to it.
-      const raw = balance * periodRate;
-      let periodInterest = raw < TWO_TO_52 ? raw + TWO_TO_52 - TWO_TO_52 : raw;
-      const off = raw - periodInterest;
-      if (0.5 - (off < 0 ? -off : off) < window) periodInterest = ledgerInterest(balance, ledgerPeriodRate(annualRate, paymentsPerYear));
-      let periodPrincipal: number;
-      if (number <= interestOnlyPeriods) periodPrincipal = 0;
-      else if (number === totalPeriods) periodPrincipal = balance;
-      else {
-        periodPrincipal = level - periodInterest;
-        // A rounded-up level payment on a tiny loan could overpay before the last period.
-        if (periodPrincipal > balance) periodPrincipal = balance;
-      }
+      const periodInterest = periodInterestCents(balance, periodRate, window, annualRate, paymentsPerYear);
+      const periodPrincipal = periodPrincipalCents(number, balance, periodInterest, level, interestOnlyPeriods, totalPeriods);
       balance -= periodPrincipal;
       yearInterest += periodInterest;
       yearPrincipal += periodPrincipal;
-      if (payments) {
-        payments.push({
-          number,
-          year: year + 1,
-          payment: (periodInterest + periodPrincipal) / 100,
-          interest: periodInterest / 100,
-          principal: periodPrincipal / 100,
-          balance: balance / 100,
-        });
-      }
+      payments.push({
+        number,
+        year: year + 1,
+        payment: (periodInterest + periodPrincipal) / 100,
+        interest: periodInterest / 100,
+        principal: periodPrincipal / 100,
+        balance: balance / 100,
+      });
     }
     interest[year] = yearInterest / 100;
     principal[year] = yearPrincipal / 100;
@@ -258,10 +269,59 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
  * gives them, without the payment table; inputs as the scenario schema allows them.
  */
 export function loanYearsFast(principal: number, annualRate: number, years: number, paymentsPerYear: 1 | 2 | 4 | 12, interestOnlyMonths: number): LoanYearsFast {
-  const input = { principal, annualRate, years, paymentsPerYear, interestOnlyMonths };
-  const { totalPeriods, interestOnlyPeriods } = loanPeriods(input);
-  const { interest, principal: repaid, closingBalance } = scheduleInCents(input, totalPeriods, interestOnlyPeriods, false);
-  return { interest, principal: repaid, closingBalance };
+  return loanYearsSideBySide([principal], annualRate, years, paymentsPerYear, interestOnlyMonths)[0] as LoanYearsFast;
+}
+
+/**
+ * {@link loanYearsFast} of several loans on the same terms (index = loan), the same cents, walked
+ * side by side: each loan's periods wait on one another, the loans' do not, so the processor
+ * works on them together (a Monte Carlo draw walks every option's loan at its terms).
+ */
+export function loanYearsSideBySide(principals: readonly number[], annualRate: number, years: number, paymentsPerYear: 1 | 2 | 4 | 12, interestOnlyMonths: number): LoanYearsFast[] {
+  const loans = principals.length;
+  let totalPeriods = 0;
+  let interestOnlyPeriods = 0;
+  for (const principal of principals) ({ totalPeriods, interestOnlyPeriods } = loanPeriods({ principal, annualRate, years, paymentsPerYear, interestOnlyMonths }));
+  const results = principals.map((): LoanYearsFast => ({ interest: new Array<number>(years).fill(0), principal: new Array<number>(years).fill(0), closingBalance: new Array<number>(years).fill(0) }));
+  // Only the loans that borrow something are walked (a loan of 0 owes nothing any year).
+  const walked: number[] = [];
+  const balance = new Float64Array(loans);
+  const level = new Float64Array(loans);
+  const window = new Float64Array(loans);
+  for (let j = 0; j < loans; j++) {
+    const cents = wholeCents(principals[j] as number);
+    if (cents === 0) continue;
+    walked.push(j);
+    balance[j] = cents;
+    level[j] = levelPaymentCents(cents, annualRate, paymentsPerYear, totalPeriods - interestOnlyPeriods);
+    window[j] = tieWindowOf(cents, annualRate, paymentsPerYear);
+  }
+  const periodRate = annualRate / paymentsPerYear;
+  const yearInterest = new Float64Array(loans);
+  const yearPrincipal = new Float64Array(loans);
+  let number = 0;
+  for (let year = 0; year < years; year++) {
+    yearInterest.fill(0);
+    yearPrincipal.fill(0);
+    for (let k = 0; k < paymentsPerYear; k++) {
+      number++;
+      for (const j of walked) {
+        const owed = balance[j] as number;
+        const interest = periodInterestCents(owed, periodRate, window[j] as number, annualRate, paymentsPerYear);
+        const principal = periodPrincipalCents(number, owed, interest, level[j] as number, interestOnlyPeriods, totalPeriods);
+        balance[j] = owed - principal;
+        yearInterest[j] = (yearInterest[j] as number) + interest;
+        yearPrincipal[j] = (yearPrincipal[j] as number) + principal;
+      }
+    }
+    for (const j of walked) {
+      const result = results[j] as LoanYearsFast;
+      result.interest[year] = (yearInterest[j] as number) / 100;
+      result.principal[year] = (yearPrincipal[j] as number) / 100;
+      result.closingBalance[year] = (balance[j] as number) / 100;
+    }
+  }
+  return results;
 }
 
 /**
@@ -272,10 +332,10 @@ export function loanYearsFast(principal: number, annualRate: number, years: numb
  */
 export function loanScheduleFast(input: LoanInput): LoanSchedule {
   const { totalPeriods, interestOnlyPeriods } = loanPeriods(input);
-  const cents = scheduleInCents(input, totalPeriods, interestOnlyPeriods, true);
+  const cents = scheduleInCents(input, totalPeriods, interestOnlyPeriods);
   if (cents.loan === 0) return { payments: [], years: [], totalInterest: 0, totalPrincipal: 0 };
   return {
-    payments: cents.payments ?? [],
+    payments: cents.payments,
     years: cents.interest.map((interest, i) => ({
       year: i + 1,
       payment: cents.payment[i] ?? 0,
