@@ -313,7 +313,8 @@ export function planOptionsFast(scenario: Scenario, bases?: readonly (PlanBasis 
   const reused = scenario.options.map((option, i) => reusedPlan(scenario, option, bases?.[i]));
   const unfinanced = scenario.options.map((option, i) => (reused[i] ? null : unfinancedPlan(scenario, option, bases?.[i])));
   const loans = unfinanced.map((plan) => (plan ? loanWithConstruction(plan.capitalLoan, finance) : null));
-  const walked = loans.flatMap((loan) => (loan ? [loan.loanAmount] : []));
+  const walked: number[] = [];
+  for (const loan of loans) if (loan) walked.push(loan.loanAmount);
   const years = loanYearsSideBySide(walked, finance.interestRate, finance.termYears, finance.paymentsPerYear, finance.interestOnlyMonths);
   let next = 0;
   return unfinanced.map((plan, i) => {

@@ -153,13 +153,13 @@ export function projectOption(
     settleYear(settled, plan, finance, t, operatingMargin, lossCarried, true);
     lossCarried = settled.lossCarried;
     const { replacements, herdPurchases, salvage, herdValue, depreciation, taxable, tax, net } = settled;
-    const interest = plan.interestByYear[t] ?? 0;
-    const principal = plan.principalByYear[t] ?? 0;
     cashFlows[t] = net;
     cashForDebtService[t] = settled.cashForDebtService;
     if (milk) milk.otherMargin[t] = operatingMargin - milkIncome + feed;
 
     if (lines) {
+      const interest = plan.interestByYear[t] ?? 0;
+      const principal = plan.principalByYear[t] ?? 0;
       const storedM3 = fixed.storedM3[t] ?? 0;
       const repaidAtHorizon = t === H ? round(plan.loanBalanceAtHorizon) : 0;
       lines.push({
