@@ -131,9 +131,11 @@ function loanWithConstruction(capitalLoan: number, finance: Scenario['finance'])
 function loanLinesOf(loan: { loanAmount: number; constructionInterest: number }, loanYears: LoanYearsFast, finance: Scenario['finance'], horizon: number): LoanLines {
   const interestByYear = new Array<number>(horizon + 1).fill(0);
   const principalByYear = new Array<number>(horizon + 1).fill(0);
-  for (let year = 1; year <= horizon; year++) {
-    interestByYear[year] = loanYears.interest[year - 1] ?? 0;
-    principalByYear[year] = loanYears.principal[year - 1] ?? 0;
+  // Years past the term owe nothing: read only the loan's own years (a read past an array's end is slow).
+  const loanYearsInHorizon = Math.min(horizon, loanYears.interest.length, loanYears.principal.length);
+  for (let year = 1; year <= loanYearsInHorizon; year++) {
+    interestByYear[year] = loanYears.interest[year - 1] as number;
+    principalByYear[year] = loanYears.principal[year - 1] as number;
   }
   const loanBalanceAtHorizon = loan.loanAmount > 0 && finance.termYears > horizon ? (loanYears.closingBalance[horizon - 1] ?? 0) : 0;
   return { loanAmount: loan.loanAmount, interestDuringConstruction: loan.constructionInterest, interestByYear, principalByYear, loanBalanceAtHorizon };
