@@ -287,8 +287,8 @@ export function loanYearsFast(principal: number, annualRate: number, years: numb
 
 /**
  * {@link loanYearsFast} of several loans on the same terms (index = loan), the same cents, walked
- * side by side: each loan's periods wait on one another, the loans' do not, so the processor
- * works on them together (a Monte Carlo draw walks every option's loan at its terms).
+ * side by side a year at a time: each loan's periods wait on one another, the loans' do not, so
+ * the processor works on several at once (a Monte Carlo draw walks every option's loan at its terms).
  */
 export function loanYearsSideBySide(principals: readonly number[], annualRate: number, years: number, paymentsPerYear: 1 | 2 | 4 | 12, interestOnlyMonths: number): LoanYearsFast[] {
   const loans = principals.length;
@@ -310,28 +310,27 @@ export function loanYearsSideBySide(principals: readonly number[], annualRate: n
     window[j] = tieWindowOf(cents, annualRate, paymentsPerYear);
   }
   const periodRate = annualRate / paymentsPerYear;
-  const yearInterest = new Float64Array(loans);
-  const yearPrincipal = new Float64Array(loans);
-  let number = 0;
   for (let year = 0; year < years; year++) {
-    yearInterest.fill(0);
-    yearPrincipal.fill(0);
-    for (let k = 0; k < paymentsPerYear; k++) {
-      number++;
-      for (const j of walked) {
-        const owed = balance[j] as number;
-        const interest = periodInterestCents(owed, periodRate, window[j] as number, annualRate, paymentsPerYear);
-        const principal = periodPrincipalCents(number, owed, interest, level[j] as number, interestOnlyPeriods, totalPeriods);
-        balance[j] = owed - principal;
-        yearInterest[j] = (yearInterest[j] as number) + interest;
-        yearPrincipal[j] = (yearPrincipal[j] as number) + principal;
-      }
-    }
+    // Year by year, each loan's periods of the year with its balance in a local: the processor
+    // overlaps one loan's periods with the next loan's as far as it reaches.
     for (const j of walked) {
+      let owed = balance[j] as number;
+      let yearInterest = 0;
+      let yearPrincipal = 0;
+      const loanLevel = level[j] as number;
+      const loanWindow = window[j] as number;
+      for (let k = 0, number = year * paymentsPerYear + 1; k < paymentsPerYear; k++, number++) {
+        const interest = periodInterestCents(owed, periodRate, loanWindow, annualRate, paymentsPerYear);
+        const principal = periodPrincipalCents(number, owed, interest, loanLevel, interestOnlyPeriods, totalPeriods);
+        owed -= principal;
+        yearInterest += interest;
+        yearPrincipal += principal;
+      }
+      balance[j] = owed;
       const result = results[j] as LoanYearsFast;
-      result.interest[year] = (yearInterest[j] as number) / 100;
-      result.principal[year] = (yearPrincipal[j] as number) / 100;
-      result.closingBalance[year] = (balance[j] as number) / 100;
+      result.interest[year] = yearInterest / 100;
+      result.principal[year] = yearPrincipal / 100;
+      result.closingBalance[year] = owed / 100;
     }
   }
   return results;
