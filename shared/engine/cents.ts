@@ -36,12 +36,26 @@ export function roundCentsFast(amount: number): number {
   // of every year of every Monte Carlo draw): below 2³⁶ the product errs by under 0.005 cents, so
   // an amount more than 0.025 cents away from a half cent rounds as Math.round says, and the same
   // away from zero on either side (a product and Math.round off a half are odd functions).
+  // wholeNear, not Math.round: V8 settles Math.round's half with a branch taken half the time.
   const scaled = amount * 100;
-  const cents = Math.round(scaled);
+  const cents = wholeNear(scaled);
   const off = scaled - cents;
-  if (off < QUICK_MARGIN && off > -QUICK_MARGIN && amount < QUICK_BELOW && amount > -QUICK_BELOW) return cents / 100;
+  // Math.round's zero keeps the amount's sign (−0.001 → −0), and so does the amount × 0.
+  if (off < QUICK_MARGIN && off > -QUICK_MARGIN && amount < QUICK_BELOW && amount > -QUICK_BELOW) return cents === 0 ? amount * 0 : cents / 100;
   return roundCentsNearHalf(amount);
 }
+
+/**
+ * The whole number nearest x (ties to even) for |x| < 2⁵¹ (WHOLE_NEAR_BELOW), in two additions
+ * and no branch: adding 1.5 × 2⁵² puts the sum where a double's spacing is 1, taking it away
+ * again is exact. Beyond that range the result may miss or not be whole at all.
+ */
+export function wholeNear(x: number): number {
+  return x + ROUNDER - ROUNDER;
+}
+
+const ROUNDER = 1.5 * 2 ** 52;
+export const WHOLE_NEAR_BELOW = 2 ** 51;
 
 /** Each amount rounded to cents in place, as {@link roundCentsFast} rounds it. */
 export function roundCentsInPlace(amounts: Float64Array): void {
@@ -176,35 +190,63 @@ function levelPaymentCents(balance: number, annualRate: number, paymentsPerYear:
   return toWholeCents(roundCents(decimalLevelPayment(currency(balance), new Money(annualRate).div(paymentsPerYear), periods)));
 }
 
-/** One loan walked period by period in whole cents; payments only when asked for. */
+/**
+ * The decimal.js loanSchedule's interest for one period (whole cents) on `balance` cents. Every
+ * period of a loan waits on the last, so the walk is latency-bound: the nearest whole cent by
+ * wholeNear, with no Math.floor or unpredictable branch on that path. Off a tie the nearest cent
+ * is the half-up one; the tie test is isTie's, |fraction − ½| < window. From 2⁵¹ cents of
+ * interest up (the product is never negative), where wholeNear may miss, the window (from the
+ * first, largest balance) is over 22 cents, so every period goes to decimal.js.
+ */
+function periodInterestCents(balance: number, periodRate: number, window: number, annualRate: number, paymentsPerYear: number): number {
+  // A product instead of the ledger's quotient: the two differ by an ulp or so, far inside the
+  // tie window, so the rounding and the tie test decide every period alike.
+  const raw = balance * periodRate;
+  const nearest = wholeNear(raw);
+  const off = raw - nearest;
+  return 0.5 - Math.abs(off) < window ? ledgerInterest(balance, ledgerPeriodRate(annualRate, paymentsPerYear)) : nearest;
+}
+
+/** Principal repaid in payment `number` (1-based, whole cents): none while interest only, the whole balance at the last. */
+function periodPrincipalCents(number: number, balance: number, interest: number, level: number, interestOnlyPeriods: number, totalPeriods: number): number {
+  if (number <= interestOnlyPeriods) return 0;
+  if (number === totalPeriods) return balance;
+  // A rounded-up level payment on a tiny loan could overpay before the last period.
+  const principal = level - interest;
+  return principal > balance ? balance : principal;
+}
+
+/** The first period's tie window: the balance only falls, so it covers every later one. */
+function tieWindowOf(balance: number, annualRate: number, paymentsPerYear: number): number {
+  return Math.max(TIE_WINDOW, ((balance * annualRate) / paymentsPerYear) * TIE_RELATIVE);
+}
+
+/** One loan walked period by period in whole cents, with its payment table. */
 interface CentsSchedule {
   /** Per loan year, index = year − 1 (currency, whole cents). */
   interest: number[];
   principal: number[];
   payment: number[];
   closingBalance: number[];
-  payments: LoanPayment[] | null;
+  payments: LoanPayment[];
   /** Whole cents. */
   totalInterest: number;
   loan: number;
 }
 
-function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPeriods: number, withPayments: boolean): CentsSchedule {
+function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPeriods: number): CentsSchedule {
   const { annualRate, years, paymentsPerYear } = input;
   const interest = new Array<number>(years).fill(0);
   const principal = new Array<number>(years).fill(0);
   const payment = new Array<number>(years).fill(0);
   const closingBalance = new Array<number>(years).fill(0);
-  const payments: LoanPayment[] | null = withPayments ? [] : null;
+  const payments: LoanPayment[] = [];
   const loan = wholeCents(input.principal);
   let balance = loan;
   let totalInterest = 0;
   if (balance === 0) return { interest, principal, payment, closingBalance, payments, totalInterest, loan };
   const level = levelPaymentCents(balance, annualRate, paymentsPerYear, totalPeriods - interestOnlyPeriods);
-  // The balance only falls, so the first period's window covers every later one.
-  const window = Math.max(TIE_WINDOW, ((balance * annualRate) / paymentsPerYear) * TIE_RELATIVE);
-  // A product instead of a quotient in the loop: the two differ by an ulp or so, far inside the
-  // tie window, so Math.round and the tie test decide every period alike.
+  const window = tieWindowOf(balance, annualRate, paymentsPerYear);
   const periodRate = annualRate / paymentsPerYear;
   let number = 0;
   for (let year = 0; year < years; year++) {
@@ -212,34 +254,19 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
     let yearPrincipal = 0;
     for (let k = 0; k < paymentsPerYear; k++) {
       number++;
-      // isTie inlined: this loop runs for every period of every loan of every Monte Carlo draw.
-      const raw = balance * periodRate;
-      const whole = Math.floor(raw);
-      const fraction = raw - whole;
-      const periodInterest =
-        fraction - 0.5 < window && 0.5 - fraction < window
-          ? ledgerInterest(balance, ledgerPeriodRate(annualRate, paymentsPerYear))
-          : fraction > 0.5
-            ? whole + 1
-            : whole;
-      let periodPrincipal: number;
-      if (number <= interestOnlyPeriods) periodPrincipal = 0;
-      else if (number === totalPeriods) periodPrincipal = balance;
-      // A rounded-up level payment on a tiny loan could overpay before the last period.
-      else periodPrincipal = Math.min(level - periodInterest, balance);
+      const periodInterest = periodInterestCents(balance, periodRate, window, annualRate, paymentsPerYear);
+      const periodPrincipal = periodPrincipalCents(number, balance, periodInterest, level, interestOnlyPeriods, totalPeriods);
       balance -= periodPrincipal;
       yearInterest += periodInterest;
       yearPrincipal += periodPrincipal;
-      if (payments) {
-        payments.push({
-          number,
-          year: year + 1,
-          payment: (periodInterest + periodPrincipal) / 100,
-          interest: periodInterest / 100,
-          principal: periodPrincipal / 100,
-          balance: balance / 100,
-        });
-      }
+      payments.push({
+        number,
+        year: year + 1,
+        payment: (periodInterest + periodPrincipal) / 100,
+        interest: periodInterest / 100,
+        principal: periodPrincipal / 100,
+        balance: balance / 100,
+      });
     }
     interest[year] = yearInterest / 100;
     principal[year] = yearPrincipal / 100;
@@ -255,10 +282,58 @@ function scheduleInCents(input: LoanInput, totalPeriods: number, interestOnlyPer
  * gives them, without the payment table; inputs as the scenario schema allows them.
  */
 export function loanYearsFast(principal: number, annualRate: number, years: number, paymentsPerYear: 1 | 2 | 4 | 12, interestOnlyMonths: number): LoanYearsFast {
-  const input = { principal, annualRate, years, paymentsPerYear, interestOnlyMonths };
-  const { totalPeriods, interestOnlyPeriods } = loanPeriods(input);
-  const { interest, principal: repaid, closingBalance } = scheduleInCents(input, totalPeriods, interestOnlyPeriods, false);
-  return { interest, principal: repaid, closingBalance };
+  return loanYearsSideBySide([principal], annualRate, years, paymentsPerYear, interestOnlyMonths)[0] as LoanYearsFast;
+}
+
+/**
+ * {@link loanYearsFast} of several loans on the same terms (index = loan), the same cents, walked
+ * side by side a year at a time: each loan's periods wait on one another, the loans' do not, so
+ * the processor works on several at once (a Monte Carlo draw walks every option's loan at its terms).
+ */
+export function loanYearsSideBySide(principals: readonly number[], annualRate: number, years: number, paymentsPerYear: 1 | 2 | 4 | 12, interestOnlyMonths: number): LoanYearsFast[] {
+  const loans = principals.length;
+  let totalPeriods = 0;
+  let interestOnlyPeriods = 0;
+  for (const principal of principals) ({ totalPeriods, interestOnlyPeriods } = loanPeriods({ principal, annualRate, years, paymentsPerYear, interestOnlyMonths }));
+  const results = principals.map((): LoanYearsFast => ({ interest: new Array<number>(years).fill(0), principal: new Array<number>(years).fill(0), closingBalance: new Array<number>(years).fill(0) }));
+  // Only the loans that borrow something are walked (a loan of 0 owes nothing any year).
+  const walked: number[] = [];
+  const balance = new Float64Array(loans);
+  const level = new Float64Array(loans);
+  const window = new Float64Array(loans);
+  for (let j = 0; j < loans; j++) {
+    const cents = wholeCents(principals[j] as number);
+    if (cents === 0) continue;
+    walked.push(j);
+    balance[j] = cents;
+    level[j] = levelPaymentCents(cents, annualRate, paymentsPerYear, totalPeriods - interestOnlyPeriods);
+    window[j] = tieWindowOf(cents, annualRate, paymentsPerYear);
+  }
+  const periodRate = annualRate / paymentsPerYear;
+  for (let year = 0; year < years; year++) {
+    // Year by year, each loan's periods of the year with its balance in a local: the processor
+    // overlaps one loan's periods with the next loan's as far as it reaches.
+    for (const j of walked) {
+      let owed = balance[j] as number;
+      let yearInterest = 0;
+      let yearPrincipal = 0;
+      const loanLevel = level[j] as number;
+      const loanWindow = window[j] as number;
+      for (let k = 0, number = year * paymentsPerYear + 1; k < paymentsPerYear; k++, number++) {
+        const interest = periodInterestCents(owed, periodRate, loanWindow, annualRate, paymentsPerYear);
+        const principal = periodPrincipalCents(number, owed, interest, loanLevel, interestOnlyPeriods, totalPeriods);
+        owed -= principal;
+        yearInterest += interest;
+        yearPrincipal += principal;
+      }
+      balance[j] = owed;
+      const result = results[j] as LoanYearsFast;
+      result.interest[year] = yearInterest / 100;
+      result.principal[year] = yearPrincipal / 100;
+      result.closingBalance[year] = owed / 100;
+    }
+  }
+  return results;
 }
 
 /**
@@ -269,10 +344,10 @@ export function loanYearsFast(principal: number, annualRate: number, years: numb
  */
 export function loanScheduleFast(input: LoanInput): LoanSchedule {
   const { totalPeriods, interestOnlyPeriods } = loanPeriods(input);
-  const cents = scheduleInCents(input, totalPeriods, interestOnlyPeriods, true);
+  const cents = scheduleInCents(input, totalPeriods, interestOnlyPeriods);
   if (cents.loan === 0) return { payments: [], years: [], totalInterest: 0, totalPrincipal: 0 };
   return {
-    payments: cents.payments ?? [],
+    payments: cents.payments,
     years: cents.interest.map((interest, i) => ({
       year: i + 1,
       payment: cents.payment[i] ?? 0,

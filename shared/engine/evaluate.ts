@@ -9,7 +9,7 @@ import { stressTables, stressYears, type StressYears } from './stress';
 import { presentValue } from './discounting';
 import { expansionSplitFlows, type SplitSide } from './expansion-split';
 import { discount, equivalentAnnualCost, mirr, paybackYears } from './finance';
-import { milkAtResponse, milkingLyingHours, npvAtMilk, npvAtPrice, planOption, projectOption, type MilkAtResponse, type MilkModel, type OptionPlan, type Projection } from './projection';
+import { milkAtResponse, milkingLyingHours, npvAtMilk, npvAtPrice, planOption, planOptionsFast, projectOption, type MilkAtResponse, type MilkModel, type OptionPlan, type Projection } from './projection';
 import type { CoreOptionResult, CoreScenarioResults, CoverageYear, DecisionFigures, ExpansionSplit, FastOptionResult, IncrementalResult, Metrics, ScenarioResults } from './results';
 import { irrFast } from './irr-fast';
 import { findRoot } from './root';
@@ -328,9 +328,10 @@ export function evaluateNpvOnly(scenario: Scenario, settings: FastEvaluationOpti
   const current = currentOptionOf(scenario);
   const { discountRate } = scenario.finance;
   const currentLying = milkingLyingHours(scenario.herd, current);
+  const plans = planOptionsFast(scenario, settings.steadyLines?.map((steady) => steady?.basis));
   const runs = scenario.options.map((option, index) => {
     const steady = settings.steadyLines?.[index] ?? null;
-    const { plan } = planOption(scenario, option, 'fast', steady?.basis);
+    const plan = plans[index] as OptionPlan;
     return { option, plan, projection: projectOption(scenario, option, plan, currentLying, false, false, steady) };
   });
   const base = runs.find((run) => run.option === current) ?? runs[0];

@@ -1,14 +1,23 @@
 /** Year t after its operating margin: tax with losses carried, the project's net flow, cash for debt service. */
 import type { Scenario } from '../schema';
 import type { OptionPlan } from './plan';
-import { roundCentsFast } from './cents';
+import { roundCentsFast, WHOLE_NEAR_BELOW, wholeNear } from './cents';
 import { lossCarriedOn, taxableIncome, taxOfYear } from './tax';
 
 /**
  * A sum of amounts already in whole cents, freed of binary noise (currency). No half-cent can
  * arise in such a sum, so this decides nothing that half-up rounding would.
  */
-export const noiseFreeCents = (sum: number): number => Math.round(sum * 100) / 100;
+export function noiseFreeCents(sum: number): number {
+  // Math.round(sum × 100) / 100, without the branch V8 settles Math.round's half with: the sum's
+  // noise has either sign, so that branch would go either way (see cents.ts wholeNear).
+  const scaled = sum * 100;
+  const cents = wholeNear(scaled);
+  const off = scaled - cents;
+  // Math.round's zero keeps the sum's sign (−1e-12 → −0), and so does the sum × 0.
+  if (off < 0.5 && off > -0.5 && scaled < WHOLE_NEAR_BELOW && scaled > -WHOLE_NEAR_BELOW) return cents === 0 ? sum * 0 : cents / 100;
+  return Math.round(scaled) / 100;
+}
 
 /** Tax and net flows of one year, written into by {@link settleYear} (currency). */
 export interface Settlement {

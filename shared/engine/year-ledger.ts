@@ -33,6 +33,9 @@ export interface Projection {
 // Where each of the year's rounded lines sits in the ledger's scratch array.
 const MILK = 0, FEED = 1, SCRAPING = 2, BED_CARE = 3, BEDDING_TOP_UP = 4, TROUGHS = 5, GRAZING = 6, MILKING = 7, MAINTENANCE = 8, RUNNING_COSTS = 9;
 const YEAR_LINES = 10;
+// One scratch array for every projection: a typed array costs more to allocate than a year's lines
+// to fill, and nothing the year loop calls projects another option.
+const year = new Float64Array(YEAR_LINES);
 
 /**
  * The yearly flows of one option, t = 0..H (currency, nominal). Every money line is rounded to
@@ -86,7 +89,6 @@ export function projectOption(
   const feedPerCow = baseFeedCostPerYear(1, plan.housedDays, option.feedCostPerCowDay.housed, option.feedCostPerCowDay.grazing);
 
   const settled = emptySettlement();
-  const year = new Float64Array(YEAR_LINES);
   // This year's growth factors per price group, updated in place year by year.
   const factors: GrowthFactors = { milkPrice: 1, feed: 1, wages: 1, bedding: 1, fertiliser: 1, general: 1 };
   let grownMilk = 1, grownFeed = 1, gWage = 1, gBedding = 1, gFert = 1, gGeneral = 1;
@@ -150,13 +152,13 @@ export function projectOption(
     settleYear(settled, plan, finance, t, operatingMargin, lossCarried, true);
     lossCarried = settled.lossCarried;
     const { replacements, herdPurchases, salvage, herdValue, depreciation, taxable, tax, net } = settled;
-    const interest = plan.interestByYear[t] ?? 0;
-    const principal = plan.principalByYear[t] ?? 0;
     cashFlows[t] = net;
     cashForDebtService[t] = settled.cashForDebtService;
     if (milk) milk.otherMargin[t] = operatingMargin - milkIncome + feed;
 
     if (lines) {
+      const interest = plan.interestByYear[t] ?? 0;
+      const principal = plan.principalByYear[t] ?? 0;
       const storedM3 = fixed.storedM3[t] ?? 0;
       const repaidAtHorizon = t === H ? round(plan.loanBalanceAtHorizon) : 0;
       lines.push({

@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { decliningBalanceFast, loanScheduleFast, loanYearsFast, roundCentsFast, straightLineFast } from '../../../shared/engine/cents';
+import { decliningBalanceFast, loanScheduleFast, loanYearsFast, loanYearsSideBySide, roundCentsFast, straightLineFast } from '../../../shared/engine/cents';
+import { noiseFreeCents } from '../../../shared/engine/settle-year';
 import { irr } from '../../../shared/engine/finance';
 import { atMostOneIrr, irrFast } from '../../../shared/engine/irr-fast';
 import { toCents } from '../../oracles/cents';
@@ -64,6 +65,55 @@ describe('floating-point twins of the ledger functions', () => {
         },
       ),
       { numRuns: 300 },
+    );
+  });
+
+  it('walk several loans side by side, each to its decimal.js schedule', () => {
+    // tests/oracles/loan-schedule.ts (decimal.js, half-up) is the reference for every loan; short
+    // decimal rates (0.06 / 12 = 0.005) put half cents on many periods, so ties are walked too.
+    fc.assert(
+      fc.property(
+        fc.array(fc.oneof(fc.constant(0), fc.integer({ min: 1, max: 500_000_000 })), { minLength: 0, maxLength: 6 }),
+        fc.oneof(fc.integer({ min: 0, max: 300 }).map((bp) => bp / 1000), fc.double({ min: 0, max: 0.3, noNaN: true })),
+        fc.integer({ min: 1, max: 40 }),
+        fc.constantFrom(1 as const, 2 as const, 4 as const, 12 as const),
+        fc.integer({ min: 0, max: 60 }),
+        (principalsCents, annualRate, years, paymentsPerYear, interestOnlyMonths) => {
+          fc.pre(Math.ceil((interestOnlyMonths * paymentsPerYear) / 12) < years * paymentsPerYear);
+          const principals = principalsCents.map((cents) => cents / 100);
+          const walked = loanYearsSideBySide(principals, annualRate, years, paymentsPerYear, interestOnlyMonths);
+          expect(walked).toHaveLength(principals.length);
+          principals.forEach((principal, i) => {
+            const ledger = loanSchedule({ principal, annualRate, years, paymentsPerYear, interestOnlyMonths });
+            const zeros = new Array<number>(years).fill(0);
+            // A loan of 0 has no schedule in the ledger: nothing owed or repaid in any year.
+            expect(walked[i]?.interest).toEqual(principal === 0 ? zeros : ledger.years.map((y) => y.interest));
+            expect(walked[i]?.principal).toEqual(principal === 0 ? zeros : ledger.years.map((y) => y.principal));
+            expect(walked[i]?.closingBalance).toEqual(principal === 0 ? zeros : ledger.years.map((y) => y.closingBalance));
+          });
+        },
+      ),
+      { numRuns: 200 },
+    );
+    // Each loan's own errors, naming the field.
+    expect(() => loanYearsSideBySide([1000, -1], 0.05, 10, 12, 0)).toThrow(/principal/);
+  });
+
+  it('free sums of whole cents of binary noise as Math.round(sum × 100) / 100 does', () => {
+    // ECMA-262 Math.round (recalled from memory: the nearest integer, halves towards +∞, −0 for
+    // −0.5 ≤ x < 0) is the reference, bit for bit; zero's sign included (Object.is).
+    const reference = (sum: number): number => Math.round(sum * 100) / 100;
+    for (const sum of [0, -0, 1e-12, -1e-12, 0.005, -0.005, 1.005, -1.005, 2 ** 49, -(2 ** 49) - 0.5, 2 ** 53, -(2 ** 60), Infinity, -Infinity]) {
+      expect(Object.is(noiseFreeCents(sum), reference(sum))).toBe(true);
+    }
+    expect(Number.isNaN(noiseFreeCents(Number.NaN))).toBe(true);
+    fc.assert(
+      fc.property(fc.integer({ min: -1e12, max: 1e12 }), fc.double({ min: -1e-6, max: 1e-6, noNaN: true }), fc.double({ noNaN: true }), (cents, noise, any) => {
+        const sum = cents / 100 + noise;
+        expect(Object.is(noiseFreeCents(sum), reference(sum))).toBe(true);
+        expect(Object.is(noiseFreeCents(any), reference(any))).toBe(true);
+      }),
+      { numRuns: 3000 },
     );
   });
 
