@@ -25,10 +25,15 @@ export function evaluateForKeeping(document: Scenario): ScenarioResults {
   return evaluateScenario(document);
 }
 
-/** Keeps `results` of `document` as scenario `scenarioId` version `version` (a version read back), whole, under today's engine key. */
-export async function keep(db: Executor, scenarioId: number, version: number, document: Scenario, results: ScenarioResults): Promise<KeptResults> {
+/** The texts kept of a version's results, with its document as `documentText`. */
+function textsOf(document: Scenario, documentText: string, results: ScenarioResults): KeptResults & { detail: string } {
   const { summary, detail } = splitResults(results);
-  const kept: KeptResults = { name: document.name, document: JSON.stringify(document), summary: JSON.stringify(summary), detail: JSON.stringify(detail) };
+  return { name: document.name, document: documentText, summary: JSON.stringify(summary), detail: JSON.stringify(detail) };
+}
+
+/** Keeps `results` of `document` as scenario `scenarioId` version `version` (a version read back), whole, under today's engine key. */
+export async function keep(db: Executor, scenarioId: number, version: number, document: Scenario, results: ScenarioResults): Promise<KeptResults & { detail: string }> {
+  const kept = textsOf(document, JSON.stringify(document), results);
   await keepResults(db, { ...kept, scenarioId, version, engineKey: resultsCacheKey() });
   return kept;
 }
@@ -38,8 +43,7 @@ export async function keep(db: Executor, scenarioId: number, version: number, do
  * `documentText` (keepSavedResults); returns the texts whole, to remember once committed.
  */
 export async function keepSaved(tx: Executor, scenarioId: number, document: Scenario, documentText: string, results: ScenarioResults): Promise<KeptResults> {
-  const { summary, detail } = splitResults(results);
-  const kept: KeptResults = { name: document.name, document: documentText, summary: JSON.stringify(summary), detail: JSON.stringify(detail) };
+  const kept = textsOf(document, documentText, results);
   await keepSavedResults(tx, scenarioId, resultsCacheKey(), kept.summary);
   return kept;
 }
@@ -96,14 +100,23 @@ export async function keptDetail(db: Executor, scenarioId: number, version: numb
   const remembered = rememberedIn(db);
   const key = `${scenarioId}:${version}`;
   const known = remembered.get(key);
-  if (known?.detail) return remember(remembered, key, known).detail as string;
+  if (known?.detail) {
+    remember(remembered, key, known);
+    return known.detail;
+  }
   const found = await findKeptResults(db, scenarioId, version, resultsCacheKey(), [...VIEW_COLUMNS, 'detail']);
-  if (!found) return remember(remembered, key, await keepWhole(db, scenarioId, version)).detail as string;
-  if (found.detail !== null) return remember(remembered, key, found).detail as string;
-  const { detail } = splitResults(evaluateForKeeping(await storedDocument(db, scenarioId, version)));
-  const text = JSON.stringify(detail);
-  await keepDetail(db, scenarioId, version, resultsCacheKey(), text);
-  return remember(remembered, key, { ...found, detail: text }).detail as string;
+  if (!found) {
+    const whole = await keepWhole(db, scenarioId, version);
+    remember(remembered, key, whole);
+    return whole.detail;
+  }
+  let detail = found.detail;
+  if (detail === null) {
+    detail = JSON.stringify(splitResults(evaluateForKeeping(await storedDocument(db, scenarioId, version))).detail);
+    await keepDetail(db, scenarioId, version, resultsCacheKey(), detail);
+  }
+  remember(remembered, key, { ...found, detail });
+  return detail;
 }
 
 async function storedDocument(db: Executor, scenarioId: number, version: number): Promise<Scenario> {
@@ -113,7 +126,7 @@ async function storedDocument(db: Executor, scenarioId: number, version: number)
 }
 
 /** Evaluates a stored version kept under no (or another) engine key, and keeps its results whole. */
-async function keepWhole(db: Executor, scenarioId: number, version: number): Promise<KeptResults> {
+async function keepWhole(db: Executor, scenarioId: number, version: number): Promise<KeptResults & { detail: string }> {
   const document = await storedDocument(db, scenarioId, version);
   return keep(db, scenarioId, version, document, evaluateForKeeping(document));
 }
