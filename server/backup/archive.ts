@@ -13,6 +13,9 @@ import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { chmodSync, copyFileSync, createReadStream, existsSync, linkSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
+import { Writable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import { createGunzip } from 'node:zlib';
 import { basename, dirname, join, resolve } from 'node:path';
 import { z } from 'zod';
 import type { AppConfig } from '../config.js';
@@ -139,12 +142,26 @@ export interface OpenedBackup {
   close(): void;
 }
 
+/**
+ * Reads the whole gzip stream and checks its CRC: tar stops at the archive's end marker, so a
+ * damaged byte in the padding after it (or a damage the entries' checks cannot see) would
+ * otherwise pass.
+ */
+async function assertWholeGzip(file: string): Promise<void> {
+  try {
+    await pipeline(createReadStream(file), createGunzip(), new Writable({ write: (_chunk, _encoding, done) => done() }));
+  } catch (error) {
+    throw new BackupError(`${basename(file)} is damaged (${error instanceof Error ? error.message : String(error)})`);
+  }
+}
+
 /** Unpacks a backup into a temporary directory and checks every part against the manifest. */
 export async function openBackup(file: string): Promise<OpenedBackup> {
   if (!existsSync(file)) throw new BackupError(`No backup at ${file}`);
   const dir = mkdtempSync(join(tmpdir(), 'byrecast-restore-'));
   const close = () => rmSync(dir, { recursive: true, force: true });
   try {
+    await assertWholeGzip(file);
     tar(['-xzf', resolve(file), '-C', dir, '--no-same-owner', '--no-same-permissions']);
     const manifestPath = join(dir, 'manifest.json');
     if (!existsSync(manifestPath)) throw new BackupError(`${basename(file)} is not a Byrecast backup (no manifest.json)`);
