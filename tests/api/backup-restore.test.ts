@@ -127,7 +127,7 @@ describe('backup and restore', () => {
     bytes[middle] = bytes[middle]! ^ 0xff;
     writeFileSync(damaged, bytes);
     const refused = await runChild('server/cli/restore.ts', env(fresh.url, otherData), [damaged, '--yes', '--force']);
-    expect(refused.code).toBe(1);
+    expect(refused.code, refused.output).toBe(1);
     expect(existsSync(join(otherData, 'files'))).toBe(true);
     const [still] = (await fresh.pool.query('SELECT COUNT(*) AS n FROM scenarios')) as unknown as [{ n: number }[]];
     expect(Number(still[0]!.n)).toBe(original.length);
