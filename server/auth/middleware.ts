@@ -7,7 +7,7 @@ import { Router, type NextFunction, type Request, type RequestHandler, type Resp
 import type { Database } from '../db/client.js';
 import type { FarmRole } from '../db/schema/index.js';
 import type { ScenarioHead } from '../db/repositories/scenarios.js';
-import { findMembership, findUserById, findUserWithMembership, findUserWithScenario, type User } from '../db/repositories/users.js';
+import { findMembership, findUserById, findUserWithScenario, type User } from '../db/repositories/users.js';
 import { forbidden, notFound, unauthorized } from '../errors.js';
 import { idParam } from '../http/params.js';
 import { roleAllows, type Permission } from '../../shared/permissions.js';
@@ -35,12 +35,9 @@ interface SessionRows {
 
 /** The user, their role on the farm and, on a GET of a scenario path, the scenario's head: one round trip. */
 async function findSessionRows(db: Database, userId: number, farmId: number, scenarioId: number): Promise<SessionRows | null> {
-  if (scenarioId > 0) {
-    const found = await findUserWithScenario(db, userId, farmId, scenarioId);
-    return found && { user: found.user, membership: { farmId, role: found.role }, scenario: { scenarioId, head: found.scenario } };
-  }
-  const found = await findUserWithMembership(db, userId, farmId);
-  return found && { user: found.user, membership: { farmId, role: found.role } };
+  const found = await findUserWithScenario(db, userId, farmId, scenarioId > 0 ? scenarioId : 0);
+  if (!found) return null;
+  return { user: found.user, membership: { farmId, role: found.role }, ...(scenarioId > 0 ? { scenario: { scenarioId, head: found.scenario } } : {}) };
 }
 
 export function loadSession(db: Database, secret: string): RequestHandler {

@@ -1,3 +1,4 @@
+import DataLoader from 'dataloader';
 import { and, count, eq, isNull, sql } from 'drizzle-orm';
 import type { SelectedFields } from 'drizzle-orm/mysql-core';
 import type { Database } from '../client.js';
@@ -26,7 +27,6 @@ const publicColumns = {
 };
 
 /** Built once per pool: a session check runs on every request, so its SQL is not rebuilt each time. */
-const preparedSessionQueries = new WeakMap<Database, ReturnType<typeof prepareSessionQuery>>();
 const preparedScenarioSessionQueries = new WeakMap<Database, ReturnType<typeof prepareScenarioSessionQuery>>();
 
 /** The user with their membership of one farm (the placeholder `farmId`), and any more columns a query wants. */
@@ -36,10 +36,6 @@ function withMembership<Extra extends SelectedFields>(db: Database, extra: Extra
     .from(usersTable)
     .leftJoin(membershipsTable, and(eq(membershipsTable.userId, usersTable.id), eq(membershipsTable.farmId, sql.placeholder('farmId'))))
     .leftJoin(farmsTable, eq(farmsTable.id, membershipsTable.farmId));
-}
-
-function prepareSessionQuery(db: Database) {
-  return withMembership(db, {}).where(eq(usersTable.id, sql.placeholder('userId'))).prepare();
 }
 
 /** The session query with one scenario's head, joined only through the membership: never a farm the user is not on. */
@@ -61,28 +57,72 @@ function preparedIn<T>(cache: WeakMap<Database, T>, db: Database, prepare: (db: 
   return prepared;
 }
 
+/** What a session check asks: a user, one farm and (0: none) one scenario of it. */
+type SessionKey = {
+  userId: number;
+  farmId: number;
+  scenarioId: number;
+};
+
+type SessionRow = Awaited<ReturnType<ReturnType<typeof prepareScenarioSessionQuery>['execute']>>[number];
+
 /**
- * A user and their role on one farm (null when not a member), in one round trip: a request to a
- * farm route needs both, and this is most of what a read of kept results costs.
+ * The session rows of many keys in one query: a derived table of the keys joined as the
+ * prepared query joins one. `k.i` gives each row back to its key.
  */
-export async function findUserWithMembership(db: Database, userId: number, farmId: number): Promise<{ user: User; role: FarmRole | null } | null> {
-  const [row] = await preparedIn(preparedSessionQueries, db, prepareSessionQuery).execute({ userId, farmId });
-  if (!row) return null;
-  const { role, farmId: foundFarm, ...user } = row;
-  return { user, role: foundFarm === null ? null : role };
+async function sessionRowsOf(db: Database, keys: readonly SessionKey[]): Promise<(SessionRow | null)[]> {
+  if (keys.length === 1) {
+    const [key] = keys as [SessionKey];
+    const [row] = await preparedIn(preparedScenarioSessionQueries, db, prepareScenarioSessionQuery).execute(key);
+    return [row ?? null];
+  }
+  const askedKeys = sql.join(
+    keys.map((key, i) => sql`SELECT ${i} AS i, ${key.userId} AS u, ${key.farmId} AS f, ${key.scenarioId} AS s`),
+    sql` UNION ALL `,
+  );
+  const rows = await db
+    .select({ asked: sql<number>`k.i`.mapWith(Number), ...publicColumns, role: membershipsTable.role, farmId: farmsTable.id, scenario: scenarioHeadColumns })
+    .from(sql`(${askedKeys}) AS k`)
+    .innerJoin(usersTable, eq(usersTable.id, sql`k.u`))
+    .leftJoin(membershipsTable, and(eq(membershipsTable.userId, usersTable.id), eq(membershipsTable.farmId, sql`k.f`)))
+    .leftJoin(farmsTable, eq(farmsTable.id, membershipsTable.farmId))
+    .leftJoin(scenariosTable, and(eq(scenariosTable.farmId, farmsTable.id), eq(scenariosTable.id, sql`k.s`)))
+    .leftJoin(scenarioCreator, eq(scenarioCreator.id, scenariosTable.createdBy))
+    .leftJoin(scenarioUpdater, eq(scenarioUpdater.id, scenariosTable.updatedBy));
+  const byKey: (SessionRow | null)[] = keys.map(() => null);
+  for (const { asked, ...row } of rows) byKey[asked] = row;
+  return byKey;
 }
 
 /**
- * Like findUserWithMembership, with the head of one scenario of that farm (null when the user is
- * not a member or the farm has no such scenario): a read of a scenario then needs no second query.
+ * Session checks asked in the same turn of the event loop go to MariaDB as one query: a busy
+ * server reads many sessions at once, and each query of its own costs a round trip and a wake-up
+ * of a MariaDB thread. Nothing is kept between turns, so every request still reads the database.
+ */
+const sessionLoaders = new WeakMap<Database, DataLoader<SessionKey, SessionRow | null>>();
+
+function sessionRow(db: Database, key: SessionKey): Promise<SessionRow | null> {
+  let loader = sessionLoaders.get(db);
+  if (!loader) {
+    loader = new DataLoader((keys) => sessionRowsOf(db, keys), { cache: false, maxBatchSize: 100, batchScheduleFn: (run) => setImmediate(run) });
+    sessionLoaders.set(db, loader);
+  }
+  return loader.load(key);
+}
+
+/**
+ * A user and their role on one farm (null when not a member) and, when `scenarioId` is one, the
+ * head of that scenario of the farm (null when the user is not a member or the farm has no such
+ * scenario), in one round trip: a request to a farm route needs the first two, a read of a
+ * scenario all three, and this is most of what a read of kept results costs.
  */
 export async function findUserWithScenario(
   db: Database,
   userId: number,
   farmId: number,
-  scenarioId: number,
+  scenarioId = 0,
 ): Promise<{ user: User; role: FarmRole | null; scenario: ScenarioHead | null } | null> {
-  const [row] = await preparedIn(preparedScenarioSessionQueries, db, prepareScenarioSessionQuery).execute({ userId, farmId, scenarioId });
+  const row = await sessionRow(db, { userId, farmId, scenarioId });
   if (!row) return null;
   const { role, farmId: foundFarm, scenario, ...user } = row;
   const member = foundFarm !== null;
