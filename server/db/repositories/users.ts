@@ -67,20 +67,15 @@ type SessionKey = {
 type SessionRow = Awaited<ReturnType<ReturnType<typeof prepareScenarioSessionQuery>['execute']>>[number];
 
 /**
- * The session rows of many keys in one query: a derived table of the keys joined as the
- * prepared query joins one. `k.i` gives each row back to its key.
+ * The session query for `count` keys at once: a derived table of the keys (placeholders u0, f0,
+ * s0, ...) joined as the one-key query joins one. `k.i` gives each row back to its key.
  */
-async function sessionRowsOf(db: Database, keys: readonly SessionKey[]): Promise<(SessionRow | null)[]> {
-  if (keys.length === 1) {
-    const [key] = keys as [SessionKey];
-    const [row] = await preparedIn(preparedScenarioSessionQueries, db, prepareScenarioSessionQuery).execute(key);
-    return [row ?? null];
-  }
+function prepareBatchSessionQuery(db: Database, count: number) {
   const askedKeys = sql.join(
-    keys.map((key, i) => sql`SELECT ${i} AS i, ${key.userId} AS u, ${key.farmId} AS f, ${key.scenarioId} AS s`),
+    Array.from({ length: count }, (_, i) => sql`SELECT ${sql.raw(String(i))} AS i, ${sql.placeholder(`u${i}`)} AS u, ${sql.placeholder(`f${i}`)} AS f, ${sql.placeholder(`s${i}`)} AS s`),
     sql` UNION ALL `,
   );
-  const rows = await db
+  return db
     .select({ asked: sql<number>`k.i`.mapWith(Number), ...publicColumns, role: membershipsTable.role, farmId: farmsTable.id, scenario: scenarioHeadColumns })
     .from(sql`(${askedKeys}) AS k`)
     .innerJoin(usersTable, eq(usersTable.id, sql`k.u`))
@@ -88,9 +83,32 @@ async function sessionRowsOf(db: Database, keys: readonly SessionKey[]): Promise
     .leftJoin(farmsTable, eq(farmsTable.id, membershipsTable.farmId))
     .leftJoin(scenariosTable, and(eq(scenariosTable.farmId, farmsTable.id), eq(scenariosTable.id, sql`k.s`)))
     .leftJoin(scenarioCreator, eq(scenarioCreator.id, scenariosTable.createdBy))
-    .leftJoin(scenarioUpdater, eq(scenarioUpdater.id, scenariosTable.updatedBy));
+    .leftJoin(scenarioUpdater, eq(scenarioUpdater.id, scenariosTable.updatedBy))
+    .prepare();
+}
+
+/** Per pool, by number of keys: built once each, as a busy server asks the same sizes again and again. */
+const preparedBatchSessionQueries = new WeakMap<Database, Map<number, ReturnType<typeof prepareBatchSessionQuery>>>();
+
+async function sessionRowsOf(db: Database, keys: readonly SessionKey[]): Promise<(SessionRow | null)[]> {
+  if (keys.length === 1) {
+    const [row] = await preparedIn(preparedScenarioSessionQueries, db, prepareScenarioSessionQuery).execute(keys[0]!);
+    return [row ?? null];
+  }
+  const bySize = preparedIn(preparedBatchSessionQueries, db, () => new Map<number, ReturnType<typeof prepareBatchSessionQuery>>());
+  let query = bySize.get(keys.length);
+  if (!query) {
+    query = prepareBatchSessionQuery(db, keys.length);
+    bySize.set(keys.length, query);
+  }
+  const placeholders: Record<string, number> = {};
+  keys.forEach((key, i) => {
+    placeholders[`u${i}`] = key.userId;
+    placeholders[`f${i}`] = key.farmId;
+    placeholders[`s${i}`] = key.scenarioId;
+  });
   const byKey: (SessionRow | null)[] = keys.map(() => null);
-  for (const { asked, ...row } of rows) byKey[asked] = row;
+  for (const { asked, ...row } of await query.execute(placeholders)) byKey[asked] = row;
   return byKey;
 }
 
