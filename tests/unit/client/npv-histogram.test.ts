@@ -112,7 +112,7 @@ describe('NpvHistogram', () => {
 
   it('gives each bar its band and share as a tooltip, in the option’s colour', () => {
     const wrapper = render();
-    const tips = wrapper.findAll('.bin > title').map((t) => t.text());
+    const tips = wrapper.findAll('.bar > title').map((t) => t.text());
     expect(tips).toEqual([
       '−€200,000 to −€100,000: 10.0% of draws (10)',
       '−€100,000 to €0: 30.0% of draws (30)',
