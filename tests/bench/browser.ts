@@ -141,7 +141,7 @@ export async function browserBench(distDir: string, databaseServerUrl: string, w
     await page.getByTestId('mc-run').click();
     await page.waitForFunction(() => (window as unknown as { __mcDoneAt: number[] }).__mcDoneAt.length > 0, undefined, { timeout: 240_000 });
     await page.getByTestId('mc-summary').waitFor();
-    await page.locator('.monte-carlo .apexcharts-canvas').waitFor({ timeout: 30_000 });
+    await page.getByTestId('npv-histogram').locator('svg').waitFor({ timeout: 30_000 });
     await page.waitForTimeout(500);
     const doneAt = await page.evaluate(() => (window as unknown as { __mcDoneAt: number[] }).__mcDoneAt[0] ?? 0);
     const tasks = await longTasks(page);

@@ -93,7 +93,7 @@ describe('risk screen in Chromium', () => {
     const shown = await page.getByTestId('mc-p50').evaluateAll((cells) =>
       cells.map((cell) => ({ optionId: cell.closest('tr')?.getAttribute('data-option-id') ?? '', p50: Number(cell.getAttribute('data-value')) })),
     );
-    await page.locator('.monte-carlo .apexcharts-canvas').waitFor();
+    await page.getByTestId('npv-histogram').locator('svg').waitFor();
     // The same seed and settings in the shared core here in Node (docs/product.md: the same P50 as the
     // server, to the cent). Chromium's and Node's Math functions may differ in the last binary digit.
     const expected = runMonteCarlo(scenario, { draws: DRAWS, seed: SEED, inputs: inputs.map((i) => ({ ...i })) });
@@ -103,6 +103,13 @@ describe('risk screen in Chromium', () => {
       expect(option.npv.p50, option.optionId).not.toBeNull();
       expect(p50, option.optionId).toBeCloseTo(option.npv.p50 ?? Number.NaN, 2);
     }
+    // The histogram shows the first candidate's change against the current option: a bar per bin,
+    // and the break-even line exactly when its range holds NPV 0.
+    const change = expected.options.find((o) => !o.current)?.incrementalNpv?.histogram ?? [];
+    const histogram = page.getByTestId('npv-histogram');
+    expect(await histogram.locator('.bar').count()).toBe(change.length);
+    expect(await histogram.getByTestId('npv-zero').count()).toBe((change[0]?.from ?? 0) <= 0 && (change.at(-1)?.to ?? 0) >= 0 ? 1 : 0);
+    expect(await histogram.locator('svg').getAttribute('aria-label')).toMatch(/draws below NPV 0/);
     await page.waitForTimeout(300);
     const text = await page.locator('main').innerText();
     expect(text).not.toMatch(/NaN|Infinity|undefined/);
