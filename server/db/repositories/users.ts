@@ -120,11 +120,7 @@ async function sessionRowsOf(db: Database, keys: readonly SessionKey[]): Promise
 const sessionLoaders = new WeakMap<Database, DataLoader<SessionKey, SessionRow | null>>();
 
 function sessionRow(db: Database, key: SessionKey): Promise<SessionRow | null> {
-  let loader = sessionLoaders.get(db);
-  if (!loader) {
-    loader = new DataLoader((keys) => sessionRowsOf(db, keys), { cache: false, maxBatchSize: 100, batchScheduleFn: (run) => setImmediate(run) });
-    sessionLoaders.set(db, loader);
-  }
+  const loader = preparedIn(sessionLoaders, db, () => new DataLoader((keys: readonly SessionKey[]) => sessionRowsOf(db, keys), { cache: false, maxBatchSize: 100, batchScheduleFn: (run) => setImmediate(run) }));
   return loader.load(key);
 }
 
